@@ -1,0 +1,39 @@
+// Shared numeric helpers and constants for the solver. No state, no I/O.
+
+export const TWO_PI = 2 * Math.PI;
+export const DEG = Math.PI / 180;
+export const RAD = 180 / Math.PI;
+export const SECONDS_PER_DAY = 86_400;
+
+export const degToRad = (deg: number): number => deg * DEG;
+export const radToDeg = (rad: number): number => rad * RAD;
+
+/** acos with its argument clamped to [-1, 1] against rounding just outside the domain. */
+export function acosClamped(x: number): number {
+  return Math.acos(x > 1 ? 1 : x < -1 ? -1 : x);
+}
+
+/** asin with its argument clamped to [-1, 1]. */
+export function asinClamped(x: number): number {
+  return Math.asin(x > 1 ? 1 : x < -1 ? -1 : x);
+}
+
+/** Angle reduced to [0, 2pi). */
+export function wrapTwoPi(angle: number): number {
+  const r = angle % TWO_PI;
+  return r < 0 ? r + TWO_PI : r;
+}
+
+/** Angle reduced to (-pi, pi]. */
+export function wrapPi(angle: number): number {
+  const r = wrapTwoPi(angle);
+  return r > Math.PI ? r - TWO_PI : r;
+}
+
+/** Relative difference |a - b| / max(|a|, |b|, tiny); 0 when both are 0. */
+export function relativeDifference(a: number, b: number): number {
+  const scale = Math.max(Math.abs(a), Math.abs(b));
+  return scale === 0 ? 0 : Math.abs(a - b) / scale;
+}
+
+export const isFiniteNumber = (x: number): boolean => Number.isFinite(x);
