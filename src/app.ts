@@ -1,0 +1,52 @@
+// buildApp(options) assembles the service and never listens: server.ts listens, tests inject.
+import Fastify, { type FastifyInstance } from 'fastify';
+import { serializerCompiler, validatorCompiler, type ZodTypeProvider } from 'fastify-type-provider-zod';
+import { defaultConfig, type Config } from './config.js';
+import { MemoryCache } from './cache/memory.js';
+import type { AnswerCache } from './cache/types.js';
+import problems from './plugins/problems.js';
+import openapi from './plugins/openapi.js';
+import answers from './plugins/answers.js';
+import health from './routes/health.js';
+import bodies from './routes/bodies.js';
+import orbit from './routes/orbit.js';
+import results from './routes/results.js';
+
+export interface BuildOptions {
+  config?: Partial<Config>;
+  /** pino options or false; tests pass false. */
+  logger?: boolean | object;
+  /** Replace the answer cache (tests, or a tiered cache built by server.ts). */
+  cache?: AnswerCache;
+}
+
+export async function buildApp(options: BuildOptions = {}): Promise<FastifyInstance> {
+  const config: Config = { ...defaultConfig(), ...options.config };
+  const app = Fastify({
+    logger: options.logger ?? { level: config.LOG_LEVEL },
+    bodyLimit: config.BODY_LIMIT_BYTES,
+    requestIdHeader: 'x-request-id',
+    genReqId: (() => { let n = 0; return () => `req-${(++n).toString(36)}`; })(),
+    routerOptions: { ignoreTrailingSlash: true },
+  }).withTypeProvider<ZodTypeProvider>();
+
+  app.setValidatorCompiler(validatorCompiler);
+  app.setSerializerCompiler(serializerCompiler);
+  app.decorate('config', config);
+
+  await app.register(problems);
+  await app.register(openapi);
+  await app.register(answers, { cache: options.cache ?? new MemoryCache(config.CACHE_MAX_BYTES) });
+
+  await app.register(health);
+  await app.register(bodies);
+  await app.register(orbit);
+  await app.register(results);
+  return app;
+}
+
+declare module 'fastify' {
+  interface FastifyInstance {
+    config: Config;
+  }
+}

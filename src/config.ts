@@ -1,0 +1,28 @@
+// Environment parsed once at start. A bad value stops the start with a message naming it.
+import { z } from 'zod';
+
+const int = (def: number, min: number, max: number) => z.coerce.number().int().min(min).max(max).default(def);
+
+export const Config = z.object({
+  PORT: int(8080, 0, 65_535).describe('TCP port to listen on'),
+  HOST: z.string().min(1).default('127.0.0.1').describe('Address to bind (0.0.0.0 in containers)'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  CACHE_MAX_BYTES: int(64 * 1024 * 1024, 0, 16 * 1024 ** 3).describe('Bound of the in-process answer cache, bytes (0 disables it)'),
+  BODY_LIMIT_BYTES: int(1024 * 1024, 1024, 64 * 1024 * 1024).describe('Largest accepted request body, bytes'),
+  MAX_TRACK_SAMPLES: int(100_000, 1, 10_000_000).describe('Largest number of samples in one track'),
+  REDIS_URL: z.string().url().optional().describe('Shared Redis for the cache tier and job queue; unset = embedded only'),
+});
+export type Config = z.infer<typeof Config>;
+
+/** Parse the environment; throws an Error whose message lists every bad variable. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = Config.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`invalid configuration:\n${lines.join('\n')}`);
+  }
+  return parsed.data;
+}
+
+/** Defaults for tests and embedding: the same as an empty environment. */
+export const defaultConfig = (): Config => Config.parse({});

@@ -1,0 +1,82 @@
+// Every error the service can answer, in one table: code -> HTTP status, title, and what it means.
+// Answers are RFC 9457 problem details with `type` = `/problems/<code>` (served by GET /problems/{code}).
+// docs/errors.md lists the same table; test/errors.test.ts checks the two agree.
+
+import type { SolverFailureCode } from './solver/result.js';
+
+export interface ErrorEntry {
+  readonly status: number;
+  readonly title: string;
+  readonly meaning: string;
+}
+
+const SERVICE_ERRORS = {
+  'validation-failed': { status: 400, title: 'Request does not match the schema', meaning: 'A field is missing, has the wrong type, or is out of range; `errors` lists each offending field by its path.' },
+  'malformed-json': { status: 400, title: 'Body is not valid JSON', meaning: 'The request body could not be parsed as JSON.' },
+  'body-too-large': { status: 413, title: 'Body too large', meaning: 'The request body exceeds the configured BODY_LIMIT_BYTES.' },
+  'unsupported-media-type': { status: 415, title: 'Unsupported media type', meaning: 'POST bodies must be application/json.' },
+  'not-acceptable': { status: 406, title: 'No acceptable representation', meaning: 'The Accept header names no format this endpoint can produce.' },
+  'not-found': { status: 404, title: 'Not found', meaning: 'No such route.' },
+  'result-not-cached': { status: 404, title: 'Result not in the cache', meaning: 'No answer is stored under this scenario hash (never computed, or evicted): send the scenario again to recompute it.' },
+  'problem-type-unknown': { status: 404, title: 'Unknown problem type', meaning: 'GET /problems/{code} was asked for a code that is not in the table.' },
+  'too-many-samples': { status: 422, title: 'Too many samples', meaning: 'The requested grid has more samples than the configured maximum; the detail names the maximum.' },
+  'limit-exceeded': { status: 422, title: 'Request exceeds a service limit', meaning: 'A window, list or count is larger than the service accepts; the detail names the limit.' },
+  'overloaded': { status: 503, title: 'Service overloaded', meaning: 'The worker queue is full; retry after the number of seconds in Retry-After.' },
+  'internal': { status: 500, title: 'Internal error', meaning: 'A fault in the service itself; the request id in the answer identifies it in the logs.' },
+} as const satisfies Record<string, ErrorEntry>;
+
+/** Expected solver failures: physically impossible or numerically unsolvable scenarios answer 422. */
+const SOLVER_ERRORS: Record<SolverFailureCode, ErrorEntry> = {
+  'invalid-epoch': { status: 400, title: 'Epoch is not a date', meaning: 'An epoch is not an ISO 8601 UTC timestamp of a real date and time.' },
+  'epoch-out-of-range': { status: 422, title: 'Epoch out of the supported range', meaning: 'Epochs must lie in 1972-2199 UTC (UTC before 1972 had no leap-second form).' },
+  'zero-position': { status: 422, title: 'Position is zero', meaning: 'The position vector (or the separation of two bodies) has zero length: no orbit is defined.' },
+  'rectilinear-motion': { status: 422, title: 'Rectilinear motion', meaning: 'The angular momentum is zero (velocity parallel to position): there is no orbital plane.' },
+  'eccentricity-out-of-range': { status: 422, title: 'Eccentricity out of range', meaning: 'Eccentricity must be a finite number >= 0.' },
+  'semi-major-axis-sign': { status: 422, title: 'Semi-major axis inconsistent with the eccentricity', meaning: 'Ellipses need a > 0, hyperbolas a < 0, and a parabola (e = 1) is given by its semi-latus rectum.' },
+  'anomaly-beyond-asymptote': { status: 422, title: 'True anomaly beyond the asymptote', meaning: 'On a hyperbola the true anomaly must satisfy |nu| < acos(-1/e).' },
+  'no-convergence': { status: 422, title: 'Solver did not converge', meaning: 'An iterative solution did not converge within its iteration limit for this input.' },
+  'impact': { status: 422, title: 'Trajectory meets the central body', meaning: 'The trajectory passes below the central body radius while the request asked for a trajectory that does not.' },
+  'parabolic-no-period': { status: 422, title: 'A parabola has no period', meaning: 'The quantity asked for exists only for bound orbits.' },
+  'invalid-parameter': { status: 422, title: 'Parameter out of its physical range', meaning: 'A number is outside the range where the physics is defined (the detail names it).' },
+  'invalid-horizon-mask': { status: 422, title: 'Horizon mask is not usable', meaning: 'A station horizon mask has azimuths outside [0, 360), repeated azimuths or elevations outside [-90, 90].' },
+  'window-too-long': { status: 422, title: 'Time window too long', meaning: 'The pass-search window is longer than the service accepts; the detail names the maximum.' },
+  'too-many-stations': { status: 422, title: 'Too many stations', meaning: 'More ground stations than the service accepts in one request; the detail names the maximum.' },
+  'integration-failed': { status: 422, title: 'Numerical integration failed', meaning: 'The integrator exceeded its step budget or met a non-finite value (e.g. a fall into the centre); the detail says where.' },
+  'energy-below-minimum': { status: 422, title: 'Energy below the effective-potential minimum', meaning: 'No radius satisfies E >= U_eff(r): the motion is not possible with this energy and angular momentum.' },
+  'no-radial-period': { status: 422, title: 'No radial period', meaning: 'The radial motion is not periodic (unbound, captured or rectilinear), so a period or apsidal angle does not exist.' },
+};
+
+export const ERRORS = { ...SERVICE_ERRORS, ...SOLVER_ERRORS } as const;
+export type ErrorCode = keyof typeof SERVICE_ERRORS | SolverFailureCode;
+
+export const errorCodes = (): ErrorCode[] => Object.keys(ERRORS) as ErrorCode[];
+export const isErrorCode = (code: string): code is ErrorCode => Object.hasOwn(ERRORS, code);
+export const problemType = (code: ErrorCode): string => `/problems/${code}`;
+
+export interface FieldIssue {
+  path: string;
+  message: string;
+}
+
+/** An error the service answers as a problem document. Thrown from routes and plugins; the error handler formats it. */
+export class ProblemError extends Error {
+  readonly code: ErrorCode;
+  readonly status: number;
+  readonly errors: FieldIssue[] | undefined;
+  readonly headers: Record<string, string>;
+
+  constructor(code: ErrorCode, detail: string, extra: { errors?: FieldIssue[]; headers?: Record<string, string> } = {}) {
+    super(detail);
+    this.name = 'ProblemError';
+    this.code = code;
+    this.status = ERRORS[code].status;
+    this.errors = extra.errors;
+    this.headers = extra.headers ?? {};
+  }
+}
+
+/** A solver failure (coded value) turned into the service's problem. */
+export function solverProblem(failure: { code: SolverFailureCode; message: string }): ProblemError {
+  return new ProblemError(failure.code, failure.message);
+}
+

@@ -1,0 +1,50 @@
+// Shared request/answer pieces. Units at the API: km, km/s, s, degrees, kg, km^3/s^2.
+import { z } from 'zod';
+import { parseUtcIso } from '../solver/time.js';
+
+export const DEMO_EPOCH = '2026-12-01T00:00:00Z';
+
+export const Vec3 = z.tuple([z.number(), z.number(), z.number()]);
+
+export const PositionKm = Vec3.describe('Position [x, y, z] in km');
+export const VelocityKmS = Vec3.describe('Velocity [vx, vy, vz] in km/s');
+
+export const Epoch = z
+  .string()
+  .superRefine((text, ctx) => {
+    const parsed = parseUtcIso(text);
+    if (!parsed.ok) ctx.addIssue({ code: 'custom', message: parsed.message });
+  })
+  .describe('Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table')
+  .meta({ example: DEMO_EPOCH });
+
+/** Epoch as the answers give it: ISO 8601 UTC with milliseconds. */
+export const EpochOut = z.string().describe('ISO 8601 UTC timestamp with milliseconds').meta({ example: '2026-12-01T00:00:00.000Z' });
+
+export const ScenarioHash = z.string().regex(/^[0-9a-f]{64}$/).describe('SHA-256 (hex) of the normalised scenario and the solver version; also the ETag');
+
+export const FieldIssue = z.object({
+  path: z.string().describe('Where the problem is, e.g. body.state.position.0'),
+  message: z.string(),
+});
+
+export const Problem = z
+  .object({
+    type: z.string().describe('URI reference of the problem type: /problems/{code}'),
+    title: z.string(),
+    status: z.number().int(),
+    detail: z.string().describe('What went wrong with this request, in words'),
+    instance: z.string().describe('The request path'),
+    requestId: z.string().describe('Identifies the request in the service logs'),
+    errors: z.array(FieldIssue).optional().describe('For validation errors: each offending field'),
+  })
+  .describe('RFC 9457 problem details (application/problem+json)');
+
+export const problemResponses = {
+  400: Problem.describe('Malformed JSON or a body that does not match the schema'),
+  422: Problem.describe('Valid JSON describing a physically impossible or unsolvable scenario'),
+} as const;
+
+/** Degrees <-> radians at the edge. */
+export const DEG_PER_RAD = 180 / Math.PI;
+export const RAD_PER_DEG = Math.PI / 180;

@@ -1,0 +1,199 @@
+// POST /v1/orbit: request and answer schemas, and the mapping from solver units (radians) to the API (degrees, ISO epochs).
+import { z } from 'zod';
+import type { OrbitSolution } from '../solver/orbit.js';
+import type { ElementsInput as SolverElementsInput } from '../solver/elements.js';
+import type { CentralBody } from '../solver/bodies.js';
+import { formatUtcIso, parseUtcIso } from '../solver/time.js';
+import type { Vec3 as SolverVec3 } from '../solver/vec3.js';
+import { CentralBodyInput, BodySummary, describeBody } from './body.js';
+import { DEG_PER_RAD, DEMO_EPOCH, Epoch, EpochOut, PositionKm, RAD_PER_DEG, ScenarioHash, Vec3, VelocityKmS } from './common.js';
+
+const SECONDS_PER_DAY = 86_400;
+
+export const StateInput = z
+  .object({
+    epoch: Epoch,
+    frame: z.enum(['gcrf']).default('gcrf').describe('Frame of the state: gcrf (inertial, J2000 equator and equinox)'),
+    position: PositionKm,
+    velocity: VelocityKmS,
+  })
+  .strict()
+  .describe('A Cartesian state at an epoch');
+
+export const ElementsInput = z
+  .object({
+    epoch: Epoch,
+    semiMajorAxis: z.number().optional().describe('Semi-major axis a, km: positive for ellipses, negative for hyperbolas; omit for a parabola (give semiLatusRectum)'),
+    semiLatusRectum: z.number().positive().optional().describe('Semi-latus rectum p, km: instead of semiMajorAxis, required when eccentricity = 1'),
+    eccentricity: z.number().min(0).describe('Eccentricity e >= 0 (0 circular, < 1 elliptic, 1 parabolic, > 1 hyperbolic)'),
+    inclination: z.number().min(0).max(180).describe('Inclination, degrees [0, 180]'),
+    raan: z.number().describe('Right ascension of the ascending node, degrees (ignored when equatorial)'),
+    argPeriapsis: z.number().describe('Argument of periapsis, degrees (ignored when circular)'),
+    trueAnomaly: z.number().optional().describe('True anomaly, degrees (give this or meanAnomaly)'),
+    meanAnomaly: z.number().optional().describe('Mean anomaly, degrees (hyperbolic or parabolic mean anomaly for unbound orbits, in degrees)'),
+  })
+  .strict()
+  .superRefine((el, ctx) => {
+    if ((el.trueAnomaly === undefined) === (el.meanAnomaly === undefined)) {
+      ctx.addIssue({ code: 'custom', path: ['trueAnomaly'], message: 'give exactly one of trueAnomaly and meanAnomaly' });
+    }
+    if ((el.semiMajorAxis === undefined) === (el.semiLatusRectum === undefined)) {
+      ctx.addIssue({ code: 'custom', path: ['semiMajorAxis'], message: 'give exactly one of semiMajorAxis and semiLatusRectum' });
+    }
+  })
+  .describe('Classical orbital elements at an epoch (angles in degrees, distances in km)');
+
+export const OrbitRequest = z
+  .object({
+    centralBody: CentralBodyInput,
+    state: StateInput.optional(),
+    elements: ElementsInput.optional(),
+  })
+  .strict()
+  .superRefine((req, ctx) => {
+    if ((req.state === undefined) === (req.elements === undefined)) {
+      ctx.addIssue({ code: 'custom', path: ['state'], message: 'give exactly one of state and elements' });
+    }
+  })
+  .meta({
+    description: 'An orbit about a central body, by state vector or by elements',
+    examples: [{
+      centralBody: 'earth',
+      elements: { epoch: DEMO_EPOCH, semiMajorAxis: 6928.137, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, trueAnomaly: 10 },
+    }],
+  });
+export type OrbitRequest = z.output<typeof OrbitRequest>;
+
+const Apsis = z.object({
+  radius: z.number().describe('km from the centre of the body'),
+  altitude: z.number().nullable().describe('km above the body radius (null when the body has no radius)'),
+  speed: z.number().describe('km/s'),
+  nextPassage: EpochOut.nullable().describe('Next passage at or after the epoch (null when it lies in the past on an unbound trajectory, or the orbit is circular)'),
+});
+
+export const Elements = z.object({
+  semiMajorAxis: z.number().nullable().describe('km; negative for hyperbolas, null for a parabola'),
+  eccentricity: z.number(),
+  inclination: z.number().describe('deg'),
+  raan: z.number().describe('deg; 0 by convention when equatorial (raanDefined false)'),
+  argPeriapsis: z.number().describe('deg; 0 by convention when circular (argPeriapsisDefined false); measured from the x axis when equatorial'),
+  trueAnomaly: z.number().describe('deg; the argument of latitude when circular inclined, the true longitude when circular equatorial'),
+  eccentricAnomaly: z.number().describe('deg: eccentric anomaly E (ellipse), hyperbolic anomaly H (hyperbola, in degrees), or for a parabola the parabolic anomaly D = tan(nu/2) in degrees of atan... see docs'),
+  meanAnomaly: z.number().describe('deg: mean anomaly (ellipse), hyperbolic mean anomaly (hyperbola) or parabolic mean anomaly, expressed in degrees'),
+  semiLatusRectum: z.number().describe('km, p = h^2/mu'),
+  argumentOfLatitude: z.number().describe('deg, u = argPeriapsis + trueAnomaly'),
+  trueLongitude: z.number().describe('deg, raan + argPeriapsis + trueAnomaly'),
+  longitudeOfPeriapsis: z.number().describe('deg, raan + argPeriapsis'),
+  raanDefined: z.boolean(),
+  argPeriapsisDefined: z.boolean(),
+});
+
+export const J2Rates = z.object({
+  raanRate: z.number().describe('Secular RAAN rate from J2, deg/day'),
+  argPeriapsisRate: z.number().describe('Secular argument-of-periapsis rate from J2, deg/day'),
+  meanAnomalyRate: z.number().describe('J2 correction to the mean motion, deg/day (added to the Keplerian mean motion)'),
+  sunSynchronous: z.boolean().describe('RAAN rate within the tolerance of the body\'s mean motion about the Sun'),
+  sunSynchronousInclination: z.number().nullable().describe('deg: the inclination that would make this a, e sun-synchronous (null when none does)'),
+});
+
+export const OrbitAnswer = z.object({
+  scenarioHash: ScenarioHash,
+  centralBody: BodySummary,
+  epoch: EpochOut,
+  orbitType: z.enum(['circular', 'elliptic', 'parabolic', 'hyperbolic']),
+  state: z.object({ frame: z.literal('gcrf'), position: Vec3.describe('km'), velocity: Vec3.describe('km/s') }),
+  elements: Elements,
+  apsides: z.object({ periapsis: Apsis, apoapsis: Apsis.nullable().describe('null when unbound') }),
+  period: z.number().nullable().describe('s; null when unbound'),
+  meanMotion: z.number().describe('deg/s (hyperbolic or parabolic mean motion for unbound orbits)'),
+  specificEnergy: z.number().describe('km^2/s^2, vis-viva v^2/2 - mu/r'),
+  specificAngularMomentum: z.object({ vector: Vec3.describe('km^2/s'), magnitude: z.number().describe('km^2/s') }),
+  eccentricityVector: Vec3.describe('dimensionless, points to periapsis'),
+  flightPathAngle: z.number().describe('deg, angle of the velocity above the local horizontal'),
+  radius: z.number().describe('km at epoch'),
+  speed: z.number().describe('km/s at epoch'),
+  intersectsBody: z.boolean().nullable().describe('true when the periapsis radius is below the body radius (null without a radius)'),
+  j2: J2Rates.nullable().describe('J2 secular rates (null when the body has no J2 or the orbit is unbound)'),
+});
+export type OrbitAnswer = z.infer<typeof OrbitAnswer>;
+
+/** The solver's input for a validated request (degrees -> radians). */
+export function orbitSolverInput(req: OrbitRequest): { epochTT: number; input: { r: SolverVec3; v: SolverVec3 } | { elements: SolverElementsInput } } {
+  const epochText = req.state?.epoch ?? req.elements?.epoch ?? '';
+  const epoch = parseUtcIso(epochText);
+  if (!epoch.ok) throw new Error('epoch validated by the schema did not parse'); // programmer error
+  if (req.state) return { epochTT: epoch.value, input: { r: req.state.position, v: req.state.velocity } };
+  const el = req.elements!;
+  return {
+    epochTT: epoch.value,
+    input: {
+      elements: {
+        ...(el.semiMajorAxis !== undefined ? { semiMajorAxis: el.semiMajorAxis } : {}),
+        ...(el.semiLatusRectum !== undefined ? { semiLatusRectum: el.semiLatusRectum } : {}),
+        eccentricity: el.eccentricity,
+        inclination: el.inclination * RAD_PER_DEG,
+        raan: el.raan * RAD_PER_DEG,
+        argPeriapsis: el.argPeriapsis * RAD_PER_DEG,
+        ...(el.trueAnomaly !== undefined ? { trueAnomaly: el.trueAnomaly * RAD_PER_DEG } : {}),
+        ...(el.meanAnomaly !== undefined ? { meanAnomaly: el.meanAnomaly * RAD_PER_DEG } : {}),
+      },
+    },
+  };
+}
+
+const deg = (rad: number): number => rad * DEG_PER_RAD;
+const degPerDay = (radPerS: number): number => radPerS * DEG_PER_RAD * SECONDS_PER_DAY;
+
+/** Solver solution -> API answer (radians -> degrees, seconds-after-epoch -> ISO epochs). */
+export function toOrbitAnswer(s: OrbitSolution, body: CentralBody, epochTT: number, scenarioHash: string): OrbitAnswer {
+  const passage = (seconds: number | null): string | null => (seconds === null ? null : formatUtcIso(epochTT + seconds));
+  const apsis = (a: OrbitSolution['apsides']['periapsis']) => ({
+    radius: a.radius,
+    altitude: a.altitude,
+    speed: a.speed,
+    nextPassage: passage(a.secondsToNextPassage),
+  });
+  const e = s.elements;
+  return {
+    scenarioHash,
+    centralBody: describeBody(body),
+    epoch: formatUtcIso(epochTT),
+    orbitType: e.orbitType,
+    state: { frame: 'gcrf', position: [...s.position], velocity: [...s.velocity] },
+    elements: {
+      semiMajorAxis: e.semiMajorAxis,
+      eccentricity: e.eccentricity,
+      inclination: deg(e.inclination),
+      raan: deg(e.raan),
+      argPeriapsis: deg(e.argPeriapsis),
+      trueAnomaly: deg(e.trueAnomaly),
+      eccentricAnomaly: deg(e.eccentricAnomaly),
+      meanAnomaly: deg(e.meanAnomaly),
+      semiLatusRectum: e.semiLatusRectum,
+      argumentOfLatitude: deg(e.argLatitude),
+      trueLongitude: deg(e.trueLongitude),
+      longitudeOfPeriapsis: deg(e.longitudeOfPeriapsis),
+      raanDefined: e.raanDefined,
+      argPeriapsisDefined: e.argPeriapsisDefined,
+    },
+    apsides: { periapsis: apsis(s.apsides.periapsis), apoapsis: s.apsides.apoapsis ? apsis(s.apsides.apoapsis) : null },
+    period: s.periodS,
+    meanMotion: deg(s.meanMotion),
+    specificEnergy: s.specificEnergy,
+    specificAngularMomentum: { vector: [...s.specificAngularMomentum], magnitude: s.specificAngularMomentumMagnitude },
+    eccentricityVector: [...s.eccentricityVector],
+    flightPathAngle: deg(s.flightPathAngle),
+    radius: s.radius,
+    speed: s.speed,
+    intersectsBody: body.radius === undefined ? null : s.apsides.periapsis.radius < body.radius,
+    j2: s.j2
+      ? {
+        raanRate: degPerDay(s.j2.raanRate),
+        argPeriapsisRate: degPerDay(s.j2.argPeriapsisRate),
+        meanAnomalyRate: degPerDay(s.j2.meanAnomalyRate),
+        sunSynchronous: s.j2.sunSynchronous,
+        sunSynchronousInclination: s.j2.sunSynchronousInclination === null ? null : deg(s.j2.sunSynchronousInclination),
+      }
+      : null,
+  };
+}

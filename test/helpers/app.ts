@@ -1,0 +1,13 @@
+import type { FastifyInstance } from 'fastify';
+import { buildApp, type BuildOptions } from '../../src/app.js';
+
+/** A quiet app for inject-based tests. */
+export async function testApp(options: BuildOptions = {}): Promise<FastifyInstance> {
+  const app = await buildApp({ logger: false, ...options });
+  await app.ready();
+  return app;
+}
+
+export async function postJson(app: FastifyInstance, url: string, payload: unknown, headers: Record<string, string> = {}) {
+  return app.inject({ method: 'POST', url, payload: payload as object, headers: { 'content-type': 'application/json', ...headers } });
+}
