@@ -7,6 +7,7 @@ import type { AnswerCache } from './cache/types.js';
 import problems from './plugins/problems.js';
 import openapi from './plugins/openapi.js';
 import answers from './plugins/answers.js';
+import metrics from './plugins/metrics.js';
 import health from './routes/health.js';
 import bodies from './routes/bodies.js';
 import orbit from './routes/orbit.js';
@@ -37,6 +38,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   await app.register(problems);
   await app.register(openapi);
   await app.register(answers, { cache: options.cache ?? new MemoryCache(config.CACHE_MAX_BYTES) });
+  await app.register(metrics);
 
   await app.register(health);
   await app.register(bodies);

@@ -1,7 +1,7 @@
 // POST /v1/orbit: request and answer schemas, and the mapping from solver units (radians) to the API (degrees, ISO epochs).
 import { z } from 'zod';
 import type { OrbitSolution } from '../solver/orbit.js';
-import type { ElementsInput as SolverElementsInput } from '../solver/elements.js';
+import { orbitTypeOf, type ElementsInput as SolverElementsInput } from '../solver/elements.js';
 import type { CentralBody } from '../solver/bodies.js';
 import { formatUtcIso, parseUtcIso } from '../solver/time.js';
 import type { Vec3 as SolverVec3 } from '../solver/vec3.js';
@@ -30,7 +30,7 @@ export const ElementsInput = z
     raan: z.number().describe('Right ascension of the ascending node, degrees (ignored when equatorial)'),
     argPeriapsis: z.number().describe('Argument of periapsis, degrees (ignored when circular)'),
     trueAnomaly: z.number().optional().describe('True anomaly, degrees (give this or meanAnomaly)'),
-    meanAnomaly: z.number().optional().describe('Mean anomaly, degrees (hyperbolic or parabolic mean anomaly for unbound orbits, in degrees)'),
+    meanAnomaly: z.number().optional().describe('Mean anomaly, degrees; for a hyperbola the hyperbolic mean anomaly e sinh H - H expressed in degrees; for a parabola (e = 1) M_p = B + B^3/3 with B = tan(nu/2), dimensionless'),
   })
   .strict()
   .superRefine((el, ctx) => {
@@ -78,8 +78,8 @@ export const Elements = z.object({
   raan: z.number().describe('deg; 0 by convention when equatorial (raanDefined false)'),
   argPeriapsis: z.number().describe('deg; 0 by convention when circular (argPeriapsisDefined false); measured from the x axis when equatorial'),
   trueAnomaly: z.number().describe('deg; the argument of latitude when circular inclined, the true longitude when circular equatorial'),
-  eccentricAnomaly: z.number().describe('deg: eccentric anomaly E (ellipse), hyperbolic anomaly H (hyperbola, in degrees), or for a parabola the parabolic anomaly D = tan(nu/2) in degrees of atan... see docs'),
-  meanAnomaly: z.number().describe('deg: mean anomaly (ellipse), hyperbolic mean anomaly (hyperbola) or parabolic mean anomaly, expressed in degrees'),
+  eccentricAnomaly: z.number().describe('Eccentric anomaly E in deg (ellipse); hyperbolic anomaly H expressed in deg (hyperbola); for a parabola the parabolic anomaly B = tan(nu/2), dimensionless (Vallado 4th ed. sec. 2.2)'),
+  meanAnomaly: z.number().describe('Mean anomaly M in deg (ellipse); hyperbolic mean anomaly M_h = e sinh H - H expressed in deg (hyperbola); for a parabola M_p = B + B^3/3, dimensionless'),
   semiLatusRectum: z.number().describe('km, p = h^2/mu'),
   argumentOfLatitude: z.number().describe('deg, u = argPeriapsis + trueAnomaly'),
   trueLongitude: z.number().describe('deg, raan + argPeriapsis + trueAnomaly'),
@@ -105,7 +105,7 @@ export const OrbitAnswer = z.object({
   elements: Elements,
   apsides: z.object({ periapsis: Apsis, apoapsis: Apsis.nullable().describe('null when unbound') }),
   period: z.number().nullable().describe('s; null when unbound'),
-  meanMotion: z.number().describe('deg/s (hyperbolic or parabolic mean motion for unbound orbits)'),
+  meanMotion: z.number().describe('deg/s: mean motion (ellipse), sqrt(mu/-a^3) expressed in deg/s (hyperbola); for a parabola 2 sqrt(mu/p^3) in 1/s, the rate of the dimensionless M_p'),
   specificEnergy: z.number().describe('km^2/s^2, vis-viva v^2/2 - mu/r'),
   specificAngularMomentum: z.object({ vector: Vec3.describe('km^2/s'), magnitude: z.number().describe('km^2/s') }),
   eccentricityVector: Vec3.describe('dimensionless, points to periapsis'),
@@ -135,7 +135,8 @@ export function orbitSolverInput(req: OrbitRequest): { epochTT: number; input: {
         raan: el.raan * RAD_PER_DEG,
         argPeriapsis: el.argPeriapsis * RAD_PER_DEG,
         ...(el.trueAnomaly !== undefined ? { trueAnomaly: el.trueAnomaly * RAD_PER_DEG } : {}),
-        ...(el.meanAnomaly !== undefined ? { meanAnomaly: el.meanAnomaly * RAD_PER_DEG } : {}),
+        // The parabolic mean anomaly is dimensionless: no degree conversion.
+        ...(el.meanAnomaly !== undefined ? { meanAnomaly: orbitTypeOf(el.eccentricity) === 'parabolic' ? el.meanAnomaly : el.meanAnomaly * RAD_PER_DEG } : {}),
       },
     },
   };
@@ -154,6 +155,9 @@ export function toOrbitAnswer(s: OrbitSolution, body: CentralBody, epochTT: numb
     nextPassage: passage(a.secondsToNextPassage),
   });
   const e = s.elements;
+  // Parabolic anomalies and mean motion are dimensionless (per second): reported as they are.
+  const parabolic = e.orbitType === 'parabolic';
+  const anomaly = (x: number): number => (parabolic ? x : deg(x));
   return {
     scenarioHash,
     centralBody: describeBody(body),
@@ -167,8 +171,8 @@ export function toOrbitAnswer(s: OrbitSolution, body: CentralBody, epochTT: numb
       raan: deg(e.raan),
       argPeriapsis: deg(e.argPeriapsis),
       trueAnomaly: deg(e.trueAnomaly),
-      eccentricAnomaly: deg(e.eccentricAnomaly),
-      meanAnomaly: deg(e.meanAnomaly),
+      eccentricAnomaly: anomaly(e.eccentricAnomaly),
+      meanAnomaly: anomaly(e.meanAnomaly),
       semiLatusRectum: e.semiLatusRectum,
       argumentOfLatitude: deg(e.argLatitude),
       trueLongitude: deg(e.trueLongitude),
@@ -178,7 +182,7 @@ export function toOrbitAnswer(s: OrbitSolution, body: CentralBody, epochTT: numb
     },
     apsides: { periapsis: apsis(s.apsides.periapsis), apoapsis: s.apsides.apoapsis ? apsis(s.apsides.apoapsis) : null },
     period: s.periodS,
-    meanMotion: deg(s.meanMotion),
+    meanMotion: anomaly(s.meanMotion),
     specificEnergy: s.specificEnergy,
     specificAngularMomentum: { vector: [...s.specificAngularMomentum], magnitude: s.specificAngularMomentumMagnitude },
     eccentricityVector: [...s.eccentricityVector],

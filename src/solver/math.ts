@@ -18,14 +18,17 @@ export function asinClamped(x: number): number {
   return Math.asin(x > 1 ? 1 : x < -1 ? -1 : x);
 }
 
-/** Angle reduced to [0, 2pi). */
+/** Angle reduced to [0, 2pi); an angle already in range comes back unchanged. */
 export function wrapTwoPi(angle: number): number {
+  if (angle >= 0 && angle < TWO_PI) return angle;
   const r = angle % TWO_PI;
-  return r < 0 ? r + TWO_PI : r;
+  const w = r < 0 ? r + TWO_PI : r;
+  return w < TWO_PI ? w : 0; // a tiny negative angle would otherwise round up to 2pi
 }
 
-/** Angle reduced to (-pi, pi]. */
+/** Angle reduced to (-pi, pi]; an angle already in range comes back unchanged (no rounding near 0). */
 export function wrapPi(angle: number): number {
+  if (angle > -Math.PI && angle <= Math.PI) return angle;
   const r = wrapTwoPi(angle);
   return r > Math.PI ? r - TWO_PI : r;
 }

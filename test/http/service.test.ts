@@ -33,6 +33,15 @@ describe('service endpoints', () => {
     expect(res.headers['content-type']).toMatch(/text\/html/);
   });
 
+  it('GET /metrics answers Prometheus text with request and cache figures', async () => {
+    await app.inject({ url: '/healthz' });
+    const res = await app.inject({ url: '/metrics' });
+    expect(res.statusCode).toBe(200);
+    expect(res.headers['content-type']).toMatch(/text\/plain/);
+    expect(res.body).toMatch(/apsides_http_requests_total\{method="GET",route="\/healthz",status="200"\} [1-9]/);
+    expect(res.body).toMatch(/apsides_cache_entries \d+/);
+  });
+
   it('an unknown route answers a 404 problem', async () => {
     const res = await app.inject({ url: '/v1/nowhere' });
     expect(res.statusCode).toBe(404);
