@@ -13,6 +13,12 @@ export const SOLVER_FAILURE_CODES = [
   'impact',
   'parabolic-no-period',
   'invalid-parameter',
+  'invalid-horizon-mask',
+  'window-too-long',
+  'too-many-stations',
+  'integration-failed',
+  'energy-below-minimum',
+  'no-radial-period',
 ] as const;
 
 export type SolverFailureCode = (typeof SOLVER_FAILURE_CODES)[number];
