@@ -12,6 +12,7 @@ import health from './routes/health.js';
 import bodies from './routes/bodies.js';
 import orbit from './routes/orbit.js';
 import results from './routes/results.js';
+import track from './routes/track.js';
 
 export interface BuildOptions {
   config?: Partial<Config>;
@@ -37,12 +38,16 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
 
   await app.register(problems);
   await app.register(openapi);
-  await app.register(answers, { cache: options.cache ?? new MemoryCache(config.CACHE_MAX_BYTES) });
+  await app.register(answers, {
+    cache: options.cache ?? new MemoryCache(config.CACHE_MAX_BYTES),
+    maxStoredBytes: Math.floor(config.CACHE_MAX_BYTES / 4),
+  });
   await app.register(metrics);
 
   await app.register(health);
   await app.register(bodies);
   await app.register(orbit);
+  await app.register(track);
   await app.register(results);
   return app;
 }

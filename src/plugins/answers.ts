@@ -1,5 +1,6 @@
 // The scenario -> cache -> solve pipeline shared by every solving route.
 // Hash the normalised scenario; If-None-Match -> 304; cache hit -> stored bytes; miss -> produce, store, send.
+import { Readable } from 'node:stream';
 import fp from 'fastify-plugin';
 import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import type { AnswerCache, CachedAnswer } from '../cache/types.js';
@@ -14,7 +15,24 @@ export interface AnswerService {
     scenario: unknown,
     produce: (hash: string) => CachedAnswer | Promise<CachedAnswer>,
   ): Promise<FastifyReply>;
+  /**
+   * Like respond, for big answers: the text is streamed chunk by chunk as it is formatted (never
+   * held whole unless it is small enough to cache) and stored when complete. produce must do all
+   * checks that can fail before it returns: once streaming starts the status is 200.
+   */
+  respondStream(
+    request: FastifyRequest,
+    reply: FastifyReply,
+    kind: ScenarioKind,
+    scenario: unknown,
+    produce: (hash: string) => StreamedAnswer | Promise<StreamedAnswer>,
+  ): Promise<FastifyReply>;
   sendStored(request: FastifyRequest, reply: FastifyReply, hash: string, answer: CachedAnswer, cacheState: 'hit' | 'miss'): FastifyReply;
+}
+
+export interface StreamedAnswer {
+  readonly contentType: string;
+  readonly chunks: Iterable<string>;
 }
 
 declare module 'fastify' {
@@ -37,16 +55,41 @@ export const jsonAnswer = (value: unknown): CachedAnswer => ({
   contentType: 'application/json; charset=utf-8',
 });
 
-export default fp(async function answers(app: FastifyInstance, opts: { cache: AnswerCache }) {
-  const { cache } = opts;
+export interface AnswersOptions {
+  cache: AnswerCache;
+  /** Streamed answers longer than this are sent but not stored. */
+  maxStoredBytes: number;
+}
 
-  const sendStored: AnswerService['sendStored'] = (request, reply, hash, answer, cacheState) =>
+export default fp(async function answers(app: FastifyInstance, opts: AnswersOptions) {
+  const { cache, maxStoredBytes } = opts;
+
+  const headers = (reply: FastifyReply, hash: string, cacheState: 'hit' | 'miss', contentType: string): FastifyReply =>
     reply
       .header('etag', etagOf(hash))
       .header('content-location', `/v1/results/${hash}`)
       .header('x-cache', cacheState)
-      .type(answer.contentType)
-      .send(answer.body);
+      .type(contentType);
+
+  const sendStored: AnswerService['sendStored'] = (_request, reply, hash, answer, cacheState) =>
+    headers(reply, hash, cacheState, answer.contentType).send(answer.body);
+
+  /** Stream the chunks; keep a copy while it stays under maxStoredBytes and store it at the end. */
+  function streamAndStore(hash: string, answer: StreamedAnswer): Readable {
+    async function* bytes(): AsyncGenerator<Buffer> {
+      let kept: Buffer[] | undefined = [];
+      let size = 0;
+      for (const chunk of answer.chunks) {
+        const buffer = Buffer.from(chunk);
+        size += buffer.length;
+        if (kept && size <= maxStoredBytes) kept.push(buffer);
+        else kept = undefined;
+        yield buffer;
+      }
+      if (kept) await cache.set(hash, { body: Buffer.concat(kept, size), contentType: answer.contentType });
+    }
+    return Readable.from(bytes(), { objectMode: false });
+  }
 
   const service: AnswerService = {
     cache,
@@ -61,6 +104,16 @@ export default fp(async function answers(app: FastifyInstance, opts: { cache: An
       const answer = await produce(hash);
       await cache.set(hash, answer);
       return sendStored(request, reply, hash, answer, 'miss');
+    },
+    async respondStream(request, reply, kind, scenario, produce) {
+      const hash = scenarioHash(kind, scenario);
+      if (ifNoneMatchHits(request.headers['if-none-match'], hash)) {
+        return reply.code(304).header('etag', etagOf(hash)).send();
+      }
+      const stored = await cache.get(hash);
+      if (stored) return sendStored(request, reply, hash, stored, 'hit');
+      const answer = await produce(hash);
+      return headers(reply, hash, 'miss', answer.contentType).send(streamAndStore(hash, answer));
     },
   };
   app.decorate('answers', service);

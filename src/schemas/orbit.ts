@@ -43,24 +43,28 @@ export const ElementsInput = z
   })
   .describe('Classical orbital elements at an epoch (angles in degrees, distances in km)');
 
+/** The orbit part shared by every request that takes an orbit: a body and a state or elements. */
+export const orbitFields = {
+  centralBody: CentralBodyInput,
+  state: StateInput.optional(),
+  elements: ElementsInput.optional(),
+};
+
+export function requireOneOrbitInput(req: { state?: unknown; elements?: unknown }, ctx: z.RefinementCtx): void {
+  if ((req.state === undefined) === (req.elements === undefined)) {
+    ctx.addIssue({ code: 'custom', path: ['state'], message: 'give exactly one of state and elements' });
+  }
+}
+
+export const DEMO_ELEMENTS = { epoch: DEMO_EPOCH, semiMajorAxis: 6928.137, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, trueAnomaly: 10 };
+
 export const OrbitRequest = z
-  .object({
-    centralBody: CentralBodyInput,
-    state: StateInput.optional(),
-    elements: ElementsInput.optional(),
-  })
+  .object(orbitFields)
   .strict()
-  .superRefine((req, ctx) => {
-    if ((req.state === undefined) === (req.elements === undefined)) {
-      ctx.addIssue({ code: 'custom', path: ['state'], message: 'give exactly one of state and elements' });
-    }
-  })
+  .superRefine(requireOneOrbitInput)
   .meta({
     description: 'An orbit about a central body, by state vector or by elements',
-    examples: [{
-      centralBody: 'earth',
-      elements: { epoch: DEMO_EPOCH, semiMajorAxis: 6928.137, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, trueAnomaly: 10 },
-    }],
+    examples: [{ centralBody: 'earth', elements: DEMO_ELEMENTS }],
   });
 export type OrbitRequest = z.output<typeof OrbitRequest>;
 
@@ -118,7 +122,7 @@ export const OrbitAnswer = z.object({
 export type OrbitAnswer = z.infer<typeof OrbitAnswer>;
 
 /** The solver's input for a validated request (degrees -> radians). */
-export function orbitSolverInput(req: OrbitRequest): { epochTT: number; input: { r: SolverVec3; v: SolverVec3 } | { elements: SolverElementsInput } } {
+export function orbitSolverInput(req: { state?: z.output<typeof StateInput>; elements?: z.output<typeof ElementsInput> }): { epochTT: number; input: { r: SolverVec3; v: SolverVec3 } | { elements: SolverElementsInput } } {
   const epochText = req.state?.epoch ?? req.elements?.epoch ?? '';
   const epoch = parseUtcIso(epochText);
   if (!epoch.ok) throw new Error('epoch validated by the schema did not parse'); // programmer error

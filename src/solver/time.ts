@@ -115,27 +115,60 @@ export function parseUtcIso(text: string): Outcome<number> {
 }
 
 const pad = (n: number, width = 2): string => String(n).padStart(width, '0');
+const TWO_DIGITS = Array.from({ length: 61 }, (_, i) => pad(i));
+
+/**
+ * A formatter of TT seconds since J2000 as ISO 8601 UTC with a fixed number of fractional digits
+ * (0-9), rounding half up. It keeps the UTC day of the previous call, so formatting a track's
+ * sorted epochs costs a few integer operations per sample. Same text as formatUtcIso.
+ */
+export function utcFormatter(fractionDigits = 3): (tt: number) => string {
+  if (!(Number.isInteger(fractionDigits) && fractionDigits >= 0 && fractionDigits <= 9)) {
+    throw new RangeError(`fractionDigits must be an integer 0-9, got ${fractionDigits}`);
+  }
+  const unitsPerSecond = 10 ** fractionDigits;
+  let dayStartTT = NaN;
+  let dayLengthUnits = 0;
+  let nextDayStartTT = NaN;
+  let prefix = '';
+  let nextPrefix = '';
+
+  const enterDay = (utcDay: number): void => {
+    dayStartTT = ttFromUtc(utcDay, 0);
+    nextDayStartTT = ttFromUtc(utcDay + 1, 0);
+    dayLengthUnits = (SECONDS_PER_DAY + (endsWithLeapSecond(utcDay) ? 1 : 0)) * unitsPerSecond;
+    const d = civilDate(utcDay);
+    const n = civilDate(utcDay + 1);
+    prefix = `${pad(d.year, 4)}-${TWO_DIGITS[d.month]}-${TWO_DIGITS[d.day]}T`;
+    nextPrefix = `${pad(n.year, 4)}-${TWO_DIGITS[n.month]}-${TWO_DIGITS[n.day]}T`;
+  };
+
+  return (tt: number): string => {
+    if (!(tt >= dayStartTT && tt < nextDayStartTT)) enterDay(utcFromTt(tt).utcDay);
+    let units = Math.round((tt - dayStartTT) * unitsPerSecond);
+    let datePart = prefix;
+    if (units >= dayLengthUnits) {
+      // Rounded up into the next day.
+      units -= dayLengthUnits;
+      datePart = nextPrefix;
+    }
+    const wholeSeconds = Math.floor(units / unitsPerSecond);
+    const fraction = units - wholeSeconds * unitsPerSecond;
+    let clock: string;
+    if (wholeSeconds >= SECONDS_PER_DAY) clock = '23:59:60'; // inside a leap second
+    else {
+      const hh = Math.floor(wholeSeconds / 3600);
+      const rest = wholeSeconds - hh * 3600;
+      const mm = Math.floor(rest / 60);
+      clock = `${TWO_DIGITS[hh]}:${TWO_DIGITS[mm]}:${TWO_DIGITS[rest - mm * 60]}`;
+    }
+    return fractionDigits > 0 ? `${datePart}${clock}.${String(fraction).padStart(fractionDigits, '0')}Z` : `${datePart}${clock}Z`;
+  };
+}
 
 /** Format TT seconds since J2000 as ISO 8601 UTC with a fixed number of fractional digits (0-9), rounding half up. */
 export function formatUtcIso(tt: number, fractionDigits = 3): string {
-  const unitsPerSecond = 10 ** fractionDigits;
-  const split = utcFromTt(tt);
-  let utcDay = split.utcDay;
-  let units = Math.round(split.secondOfDay * unitsPerSecond);
-  const dayUnits = (SECONDS_PER_DAY + (endsWithLeapSecond(utcDay) ? 1 : 0)) * unitsPerSecond;
-  if (units >= dayUnits) {
-    units -= dayUnits;
-    utcDay += 1;
-  }
-  const wholeSeconds = Math.floor(units / unitsPerSecond);
-  const fraction = units - wholeSeconds * unitsPerSecond;
-  const inLeap = wholeSeconds >= SECONDS_PER_DAY;
-  const hh = inLeap ? 23 : Math.floor(wholeSeconds / 3600);
-  const mm = inLeap ? 59 : Math.floor((wholeSeconds % 3600) / 60);
-  const ss = inLeap ? 60 : wholeSeconds % 60;
-  const { year, month, day } = civilDate(utcDay);
-  const frac = fractionDigits > 0 ? '.' + pad(fraction, fractionDigits) : '';
-  return `${pad(year, 4)}-${pad(month)}-${pad(day)}T${pad(hh)}:${pad(mm)}:${pad(ss)}${frac}Z`;
+  return utcFormatter(fractionDigits)(tt);
 }
 
 /** Julian date (TT) of an epoch. */

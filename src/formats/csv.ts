@@ -1,0 +1,51 @@
+// Track as CSV per RFC 4180: a header row naming each column with its unit, one record per
+// sample, CRLF after every record (the last included), no quoting needed (no field holds a comma,
+// quote or line break). Epochs are ISO 8601 UTC; numbers are fixed-point: by default 6 decimals
+// for km (1 mm) and 9 for km/s (1 micrometre/s), epochs to the millisecond.
+
+import { utcFormatter } from '../solver/time.js';
+import { checkDigits, fixed, sampleCount, type TrackTable } from './track-table.js';
+
+export const CSV_HEADER = 'epoch_utc,x_km,y_km,z_km,vx_km_s,vy_km_s,vz_km_s';
+/** Media type to answer with (RFC 4180 sec. 3, with the optional header parameter). */
+export const CSV_MEDIA_TYPE = 'text/csv; charset=utf-8; header=present';
+
+export interface CsvOptions {
+  /** Fractional-second digits of the epochs, 0-9 (default 3). */
+  readonly epochDigits?: number;
+  /** Decimals of positions in km (default 6). */
+  readonly positionDecimals?: number;
+  /** Decimals of velocities in km/s (default 9). */
+  readonly velocityDecimals?: number;
+  /** A chunk is yielded once it reaches this many characters (default 65536; ASCII, so bytes). */
+  readonly chunkChars?: number;
+}
+
+const CRLF = '\r\n';
+
+/** The table as CSV text in chunks of about chunkChars characters; every number is formatted once. */
+export function* csvChunks(table: TrackTable, opts: CsvOptions = {}): Generator<string> {
+  const n = sampleCount(table);
+  const epochDigits = opts.epochDigits ?? 3;
+  const pd = opts.positionDecimals ?? 6;
+  const vd = opts.velocityDecimals ?? 9;
+  const chunkChars = opts.chunkChars ?? 65_536;
+  checkDigits('epochDigits', epochDigits, 9);
+  checkDigits('positionDecimals', pd, 20);
+  checkDigits('velocityDecimals', vd, 20);
+  const { epochsTT, states } = table;
+  const epochText = utcFormatter(epochDigits);
+  let chunk = CSV_HEADER + CRLF;
+  for (let i = 0; i < n; i++) {
+    const o = 6 * i;
+    chunk +=
+      epochText(epochsTT[i]!) + ',' +
+      fixed(states[o]!, pd) + ',' + fixed(states[o + 1]!, pd) + ',' + fixed(states[o + 2]!, pd) + ',' +
+      fixed(states[o + 3]!, vd) + ',' + fixed(states[o + 4]!, vd) + ',' + fixed(states[o + 5]!, vd) + CRLF;
+    if (chunk.length >= chunkChars) {
+      yield chunk;
+      chunk = '';
+    }
+  }
+  if (chunk.length > 0) yield chunk;
+}

@@ -1,0 +1,62 @@
+// A propagated track as the formatters read it: epochs and Cartesian states in flat typed arrays
+// (no per-sample objects). Structurally the same as StateTable in src/solver/two-body.ts.
+
+/** epochsTT[i]: TT seconds since J2000.0; states[6i..6i+5]: x, y, z (km), vx, vy, vz (km/s). */
+export interface TrackTable {
+  readonly epochsTT: Float64Array;
+  readonly states: Float64Array;
+}
+
+export interface TrackColumn {
+  /** Name of the component: x, y, z, vx, vy, vz. */
+  readonly name: string;
+  readonly unit: 'km' | 'km/s';
+}
+
+/** The six numbers of each sample, in order. */
+export const STATE_COLUMNS: readonly TrackColumn[] = [
+  { name: 'x', unit: 'km' },
+  { name: 'y', unit: 'km' },
+  { name: 'z', unit: 'km' },
+  { name: 'vx', unit: 'km/s' },
+  { name: 'vy', unit: 'km/s' },
+  { name: 'vz', unit: 'km/s' },
+];
+
+/** Number of samples; throws when the states array does not hold exactly 6 numbers per epoch. */
+export function sampleCount(table: TrackTable): number {
+  const n = table.epochsTT.length;
+  if (table.states.length !== 6 * n) {
+    throw new RangeError(`track table holds ${table.states.length} state numbers for ${n} epochs (need ${6 * n})`);
+  }
+  return n;
+}
+
+/** Index of the first epoch not after its predecessor, or -1 when the epochs strictly increase. */
+export function firstNonIncreasing(epochsTT: Float64Array): number {
+  for (let i = 1; i < epochsTT.length; i++) if (!(epochsTT[i]! > epochsTT[i - 1]!)) return i;
+  return -1;
+}
+
+/**
+ * A number in fixed notation with `decimals` digits; a value that rounds to zero prints without a
+ * minus sign ("0.000000", not "-0.000000"). Non-finite values and |value| >= 1e21 throw.
+ */
+export function fixed(value: number, decimals: number): string {
+  // toFixed switches to exponent notation from 1e21 on; no track number comes near that.
+  if (!(Math.abs(value) < 1e21)) throw new RangeError(`cannot format ${value} as a fixed-point track number`);
+  const text = value.toFixed(decimals);
+  if (text.charCodeAt(0) === 45 && value > -1) {
+    for (let i = 1; i < text.length; i++) {
+      const c = text.charCodeAt(i);
+      if (c !== 48 && c !== 46) return text; // a digit other than 0 (46 is '.')
+    }
+    return text.slice(1);
+  }
+  return text;
+}
+
+/** Throws unless digits is an integer in [0, max] (an option of a formatter). */
+export function checkDigits(name: string, digits: number, max: number): void {
+  if (!(Number.isInteger(digits) && digits >= 0 && digits <= max)) throw new RangeError(`${name} must be an integer 0-${max}, got ${digits}`);
+}

@@ -1,0 +1,84 @@
+// POST /v1/track: an orbit propagated over a time grid, in JSON, CSV or CCSDS OEM.
+import { z } from 'zod';
+import { TRACK_MODELS } from '../solver/track.js';
+import { DEMO_EPOCH, Epoch } from './common.js';
+import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
+
+export const TRACK_FORMATS = [
+  ['json', 'application/json'],
+  ['csv', 'text/csv'],
+  ['oem', 'application/ccsds-oem'],
+] as const;
+export type TrackFormat = (typeof TRACK_FORMATS)[number][0];
+
+export const TimeGrid = z
+  .object({
+    start: Epoch.optional().describe('First epoch of a regular grid (ISO 8601 UTC)'),
+    stop: Epoch.optional().describe('Last epoch of a regular grid; before start for a backwards grid. The last sample is at stop exactly (the final step may be shorter)'),
+    step: z.number().positive().optional().describe('Spacing of a regular grid, s (> 0; the direction comes from start and stop)'),
+    times: z.array(Epoch).min(1).optional().describe('Instead of start/stop/step: the epochs themselves, in any order'),
+  })
+  .strict()
+  .superRefine((g, ctx) => {
+    const regular = g.start !== undefined || g.stop !== undefined || g.step !== undefined;
+    if (regular === (g.times !== undefined)) {
+      ctx.addIssue({ code: 'custom', message: 'give either start, stop and step, or times' });
+    } else if (regular && (g.start === undefined || g.stop === undefined || g.step === undefined)) {
+      ctx.addIssue({ code: 'custom', message: 'a regular grid needs start, stop and step' });
+    }
+  })
+  .describe('The sample epochs: a regular grid (start, stop, step) or a list (times)');
+
+export const ObjectLabel = z
+  .object({
+    name: z.string().min(1).max(80).regex(/^[^\r\n]+$/).default('UNNAMED').describe('Object name (OEM OBJECT_NAME)'),
+    id: z.string().min(1).max(80).regex(/^[^\r\n]+$/).default('UNKNOWN').describe('Object identifier (OEM OBJECT_ID)'),
+  })
+  .strict()
+  .default({ name: 'UNNAMED', id: 'UNKNOWN' });
+
+export const TrackRequest = z
+  .object({
+    ...orbitFields,
+    grid: TimeGrid,
+    model: z.enum(TRACK_MODELS).default('two-body').describe('two-body: exact Keplerian motion by universal variables (no perturbations)'),
+    frame: z.enum(['gcrf']).default('gcrf').describe('Output frame: gcrf (inertial)'),
+    format: z.enum(TRACK_FORMATS.map(([f]) => f) as [TrackFormat, ...TrackFormat[]]).optional()
+      .describe('json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN). Without it the Accept header chooses (application/json, text/csv, application/ccsds-oem); default json'),
+    object: ObjectLabel.describe('Labels for the exported track'),
+    passThroughBody: z.boolean().default(false).describe('Propagate as a point mass even below the body radius; by default a track that meets the body is refused (422 impact)'),
+  })
+  .strict()
+  .superRefine(requireOneOrbitInput)
+  .meta({
+    description: 'An orbit and a time grid',
+    examples: [{
+      centralBody: 'earth',
+      elements: DEMO_ELEMENTS,
+      grid: { start: DEMO_EPOCH, stop: '2026-12-01T01:36:00Z', step: 60 },
+      format: 'json',
+      object: { name: 'PLOVER-7', id: '2026-900A' },
+    }],
+  });
+export type TrackRequest = z.output<typeof TrackRequest>;
+
+export const TrackSample = z.object({
+  epoch: z.string().describe('ISO 8601 UTC'),
+  position: z.tuple([z.number(), z.number(), z.number()]).describe('km, 6 decimals'),
+  velocity: z.tuple([z.number(), z.number(), z.number()]).describe('km/s, 9 decimals'),
+});
+
+export const TrackAnswer = z.object({
+  scenarioHash: z.string(),
+  model: z.enum(TRACK_MODELS),
+  frame: z.enum(['gcrf']),
+  centralBody: z.object({ name: z.string(), gm: z.number().describe('km^3/s^2 used'), radius: z.number().nullable() }),
+  object: z.object({ name: z.string(), id: z.string() }),
+  sampleCount: z.number().int(),
+  diagnostics: z.object({
+    energyRelativeDrift: z.number().describe('max |E_k - E_0| / |E_0| of the specific energy across the samples'),
+    energyDriftVsPotential: z.number().describe('max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0'),
+    angularMomentumRelativeDrift: z.number().describe('max |h_k - h_0| / |h_0| (vector) across the samples'),
+  }),
+  samples: z.array(TrackSample),
+});

@@ -1,0 +1,32 @@
+// Time grids for tracks: a regular grid from start to stop, or a list of epochs. TT seconds since J2000.
+
+/** Samples of the regular grid start, start +- step, ... ending exactly at stop (the last step may be shorter). */
+export function regularGridCount(startTT: number, stopTT: number, stepS: number): number {
+  if (!(stepS > 0)) throw new RangeError('step must be positive');
+  const span = Math.abs(stopTT - startTT);
+  // Tolerance of a microsecond so that a stop on the grid does not add a sliver of a step.
+  const steps = Math.ceil(span / stepS - 1e-6 / stepS);
+  return Math.max(steps, 0) + 1;
+}
+
+/** The regular grid (forwards when stop > start, backwards when stop < start). */
+export function regularGrid(startTT: number, stopTT: number, stepS: number): Float64Array {
+  const n = regularGridCount(startTT, stopTT, stepS);
+  const direction = stopTT >= startTT ? 1 : -1;
+  const epochs = new Float64Array(n);
+  // start + k * step (not repeated addition): no drift over long grids.
+  for (let k = 0; k < n - 1; k++) epochs[k] = startTT + direction * k * stepS;
+  epochs[n - 1] = stopTT;
+  return epochs;
+}
+
+/** Order of the epochs: 1 strictly increasing, -1 strictly decreasing, 0 otherwise. */
+export function monotonicity(epochs: Float64Array): 1 | -1 | 0 {
+  let up = true;
+  let down = true;
+  for (let i = 1; i < epochs.length; i++) {
+    if (!(epochs[i]! > epochs[i - 1]!)) up = false;
+    if (!(epochs[i]! < epochs[i - 1]!)) down = false;
+  }
+  return up ? 1 : down ? -1 : 0;
+}
