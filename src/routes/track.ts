@@ -1,7 +1,7 @@
 // POST /v1/track: an orbit propagated over a time grid; JSON, CSV or CCSDS OEM, streamed.
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
-import { ProblemError, solverProblem } from '../errors.js';
+import { solverProblem } from '../errors.js';
 import { csvChunks, CSV_MEDIA_TYPE } from '../formats/csv.js';
 import { oemChunks, OEM_MEDIA_TYPE } from '../formats/oem.js';
 import { JSON_MEDIA_TYPE, trackJsonChunks } from '../formats/track-json.js';
@@ -9,28 +9,9 @@ import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../schemas/body.js';
 import { problemResponses } from '../schemas/common.js';
 import { initialState } from '../schemas/initial-state.js';
+import { gridEpochs } from '../schemas/grid.js';
 import { TRACK_FORMATS, TrackAnswer, TrackRequest } from '../schemas/track.js';
-import { regularGrid, regularGridCount } from '../solver/grid.js';
 import { propagateTrack, type Track } from '../solver/track.js';
-import { parseUtcIso } from '../solver/time.js';
-
-const tt = (iso: string): number => {
-  const r = parseUtcIso(iso);
-  if (!r.ok) throw new Error('epoch validated by the schema did not parse');
-  return r.value;
-};
-
-/** The sample epochs of a validated grid, refusing more than `max` before allocating anything. */
-export function gridEpochs(grid: TrackRequest['grid'], max: number): Float64Array {
-  if (grid.times) {
-    if (grid.times.length > max) throw new ProblemError('too-many-samples', `${grid.times.length} times asked; the maximum is ${max} samples`);
-    return Float64Array.from(grid.times, tt);
-  }
-  const [start, stop] = [tt(grid.start!), tt(grid.stop!)];
-  const count = regularGridCount(start, stop, grid.step!);
-  if (count > max) throw new ProblemError('too-many-samples', `the grid has ${count} samples; the maximum is ${max} (use a longer step or a shorter span)`);
-  return regularGrid(start, stop, grid.step!);
-}
 
 /** Increasing order without repeats (an OEM needs strictly increasing epochs). */
 function increasing(epochs: Float64Array): Float64Array {

@@ -3,10 +3,10 @@ import { z } from 'zod';
 import type { OrbitSolution } from '../solver/orbit.js';
 import { orbitTypeOf, type ElementsInput as SolverElementsInput } from '../solver/elements.js';
 import type { CentralBody } from '../solver/bodies.js';
-import { formatUtcIso, parseUtcIso } from '../solver/time.js';
+import { formatUtcIso } from '../solver/time.js';
 import type { Vec3 as SolverVec3 } from '../solver/vec3.js';
 import { CentralBodyInput, BodySummary, describeBody } from './body.js';
-import { DEG_PER_RAD, DEMO_EPOCH, Epoch, EpochOut, PositionKm, RAD_PER_DEG, ScenarioHash, Vec3, VelocityKmS } from './common.js';
+import { DEG_PER_RAD, DEMO_EPOCH, Epoch, EpochOut, epochTT, PositionKm, RAD_PER_DEG, ScenarioHash, Vec3, VelocityKmS } from './common.js';
 
 const SECONDS_PER_DAY = 86_400;
 
@@ -123,13 +123,10 @@ export type OrbitAnswer = z.infer<typeof OrbitAnswer>;
 
 /** The solver's input for a validated request (degrees -> radians). */
 export function orbitSolverInput(req: { state?: z.output<typeof StateInput>; elements?: z.output<typeof ElementsInput> }): { epochTT: number; input: { r: SolverVec3; v: SolverVec3 } | { elements: SolverElementsInput } } {
-  const epochText = req.state?.epoch ?? req.elements?.epoch ?? '';
-  const epoch = parseUtcIso(epochText);
-  if (!epoch.ok) throw new Error('epoch validated by the schema did not parse'); // programmer error
-  if (req.state) return { epochTT: epoch.value, input: { r: req.state.position, v: req.state.velocity } };
+  if (req.state) return { epochTT: epochTT(req.state.epoch), input: { r: req.state.position, v: req.state.velocity } };
   const el = req.elements!;
   return {
-    epochTT: epoch.value,
+    epochTT: epochTT(el.epoch),
     input: {
       elements: {
         ...(el.semiMajorAxis !== undefined ? { semiMajorAxis: el.semiMajorAxis } : {}),

@@ -1,7 +1,8 @@
 // POST /v1/track: an orbit propagated over a time grid, in JSON, CSV or CCSDS OEM.
 import { z } from 'zod';
 import { TRACK_MODELS } from '../solver/track.js';
-import { DEMO_EPOCH, Epoch } from './common.js';
+import { DEMO_EPOCH } from './common.js';
+import { TimeGrid } from './grid.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
 export const TRACK_FORMATS = [
@@ -10,24 +11,6 @@ export const TRACK_FORMATS = [
   ['oem', 'application/ccsds-oem'],
 ] as const;
 export type TrackFormat = (typeof TRACK_FORMATS)[number][0];
-
-export const TimeGrid = z
-  .object({
-    start: Epoch.optional().describe('First epoch of a regular grid (ISO 8601 UTC)'),
-    stop: Epoch.optional().describe('Last epoch of a regular grid; before start for a backwards grid. The last sample is at stop exactly (the final step may be shorter)'),
-    step: z.number().positive().optional().describe('Spacing of a regular grid, s (> 0; the direction comes from start and stop)'),
-    times: z.array(Epoch).min(1).optional().describe('Instead of start/stop/step: the epochs themselves, in any order'),
-  })
-  .strict()
-  .superRefine((g, ctx) => {
-    const regular = g.start !== undefined || g.stop !== undefined || g.step !== undefined;
-    if (regular === (g.times !== undefined)) {
-      ctx.addIssue({ code: 'custom', message: 'give either start, stop and step, or times' });
-    } else if (regular && (g.start === undefined || g.stop === undefined || g.step === undefined)) {
-      ctx.addIssue({ code: 'custom', message: 'a regular grid needs start, stop and step' });
-    }
-  })
-  .describe('The sample epochs: a regular grid (start, stop, step) or a list (times)');
 
 export const ObjectLabel = z
   .object({

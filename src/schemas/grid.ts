@@ -1,0 +1,38 @@
+// Time grids at the API: a regular grid (start, stop, step) or a list of epochs.
+import { z } from 'zod';
+import { ProblemError } from '../errors.js';
+import { regularGrid, regularGridCount } from '../solver/grid.js';
+import { Epoch, epochTT as tt } from './common.js';
+
+export const TimeGrid = z
+  .object({
+    start: Epoch.optional().describe('First epoch of a regular grid (ISO 8601 UTC)'),
+    stop: Epoch.optional().describe('Last epoch of a regular grid; before start for a backwards grid. The last sample is at stop exactly (the final step may be shorter)'),
+    step: z.number().positive().optional().describe('Spacing of a regular grid, s (> 0; the direction comes from start and stop)'),
+    times: z.array(Epoch).min(1).optional().describe('Instead of start/stop/step: the epochs themselves, in any order'),
+  })
+  .strict()
+  .superRefine((g, ctx) => {
+    const regular = g.start !== undefined || g.stop !== undefined || g.step !== undefined;
+    if (regular === (g.times !== undefined)) {
+      ctx.addIssue({ code: 'custom', message: 'give either start, stop and step, or times' });
+    } else if (regular && (g.start === undefined || g.stop === undefined || g.step === undefined)) {
+      ctx.addIssue({ code: 'custom', message: 'a regular grid needs start, stop and step' });
+    }
+  })
+  .describe('The sample epochs: a regular grid (start, stop, step) or a list (times)');
+
+export type TimeGrid = z.output<typeof TimeGrid>;
+
+/** The sample epochs of a validated grid, refusing more than `max` before allocating anything. */
+export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
+  if (grid.times) {
+    if (grid.times.length > max) throw new ProblemError('too-many-samples', `${grid.times.length} times asked; the maximum is ${max} samples`);
+    return Float64Array.from(grid.times, tt);
+  }
+  const [start, stop] = [tt(grid.start!), tt(grid.stop!)];
+  const count = regularGridCount(start, stop, grid.step!);
+  if (count > max) throw new ProblemError('too-many-samples', `the grid has ${count} samples; the maximum is ${max} (use a longer step or a shorter span)`);
+  return regularGrid(start, stop, grid.step!);
+}
+
