@@ -3,9 +3,15 @@
 import { cpus, totalmem } from 'node:os';
 import type { BenchResult } from './types.js';
 import { benchKepler } from './kepler.js';
+import { benchPasses } from './passes.js';
+import { benchTrackHttp } from './track-http.js';
+import { benchTrackKernel } from './track-kernel.js';
 
 const suites: Array<[string, () => Promise<BenchResult[]>]> = [
   ['kepler', benchKepler],
+  ['track-kernel', benchTrackKernel],
+  ['track-http', benchTrackHttp],
+  ['passes', benchPasses],
 ];
 
 const only = process.argv[2];

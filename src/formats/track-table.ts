@@ -38,22 +38,29 @@ export function firstNonIncreasing(epochsTT: Float64Array): number {
   return -1;
 }
 
+const ZEROS = Array.from({ length: 21 }, (_, i) => '0'.repeat(i));
+const SCALES = Array.from({ length: 21 }, (_, i) => 10 ** i);
+
 /**
  * A number in fixed notation with `decimals` digits; a value that rounds to zero prints without a
  * minus sign ("0.000000", not "-0.000000"). Non-finite values and |value| >= 1e21 throw.
+ * Integer arithmetic while |value| * 10^decimals < 9e15 (exact in a double) and not within 1e-6 of
+ * a rounding tie; toFixed (exact decimal rounding) otherwise. Same text as toFixed.
  */
 export function fixed(value: number, decimals: number): string {
+  const scale = SCALES[decimals]!;
+  const magnitude = Math.abs(value) * scale;
+  // Near a tie the product magnitude may have rounded across it: let toFixed decide from the exact value.
+  if (magnitude < 9e15 && Math.abs(magnitude - Math.floor(magnitude) - 0.5) > 1e-6) {
+    const scaled = Math.round(magnitude);
+    if (decimals === 0) return (value < 0 && scaled !== 0 ? '-' : '') + scaled;
+    const whole = Math.floor(scaled / scale);
+    const fraction = String(scaled - whole * scale);
+    return (value < 0 && scaled !== 0 ? '-' : '') + whole + '.' + ZEROS[decimals - fraction.length] + fraction;
+  }
   // toFixed switches to exponent notation from 1e21 on; no track number comes near that.
   if (!(Math.abs(value) < 1e21)) throw new RangeError(`cannot format ${value} as a fixed-point track number`);
-  const text = value.toFixed(decimals);
-  if (text.charCodeAt(0) === 45 && value > -1) {
-    for (let i = 1; i < text.length; i++) {
-      const c = text.charCodeAt(i);
-      if (c !== 48 && c !== 46) return text; // a digit other than 0 (46 is '.')
-    }
-    return text.slice(1);
-  }
-  return text;
+  return value.toFixed(decimals);
 }
 
 /** Throws unless digits is an integer in [0, max] (an option of a formatter). */
