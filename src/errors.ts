@@ -19,6 +19,7 @@ const SERVICE_ERRORS = {
   'not-found': { status: 404, title: 'Not found', meaning: 'No such route.' },
   'result-not-cached': { status: 404, title: 'Result not in the cache', meaning: 'No answer is stored under this scenario hash (never computed, or evicted): send the scenario again to recompute it.' },
   'problem-type-unknown': { status: 404, title: 'Unknown problem type', meaning: 'GET /problems/{code} was asked for a code that is not in the table.' },
+  'unsupported-frame': { status: 422, title: 'Frame or format not available here', meaning: 'Earth-fixed frames (itrf, geodetic) and GeoJSON ground tracks exist for the built-in earth only, and an OEM carries Cartesian states (gcrf or itrf).' },
   'too-many-samples': { status: 422, title: 'Too many samples', meaning: 'The requested grid has more samples than the configured maximum; the detail names the maximum.' },
   'limit-exceeded': { status: 422, title: 'Request exceeds a service limit', meaning: 'A window, list or count is larger than the service accepts; the detail names the limit.' },
   'overloaded': { status: 503, title: 'Service overloaded', meaning: 'The worker queue is full; retry after the number of seconds in Retry-After.' },

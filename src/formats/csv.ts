@@ -23,25 +23,38 @@ export interface CsvOptions {
 
 const CRLF = '\r\n';
 
+/** A numeric column: its header name (with unit) and decimals. */
+export interface CsvColumn {
+  readonly header: string;
+  readonly decimals: number;
+}
+
 /** The table as CSV text in chunks of about chunkChars characters; every number is formatted once. */
 export function* csvChunks(table: TrackTable, opts: CsvOptions = {}): Generator<string> {
-  const n = sampleCount(table);
-  const epochDigits = opts.epochDigits ?? 3;
+  sampleCount(table);
   const pd = opts.positionDecimals ?? 6;
   const vd = opts.velocityDecimals ?? 9;
-  const chunkChars = opts.chunkChars ?? 65_536;
-  checkDigits('epochDigits', epochDigits, 9);
   checkDigits('positionDecimals', pd, 20);
   checkDigits('velocityDecimals', vd, 20);
-  const { epochsTT, states } = table;
+  const columns = CSV_HEADER.split(',').slice(1).map((header, i) => ({ header, decimals: i < 3 ? pd : vd }));
+  yield* columnCsvChunks(table.epochsTT, table.states, columns, opts);
+}
+
+/** Any table of numbers per epoch (values holds columns.length numbers per sample) as RFC 4180 CSV. */
+export function* columnCsvChunks(epochsTT: Float64Array, values: Float64Array, columns: readonly CsvColumn[], opts: Pick<CsvOptions, 'epochDigits' | 'chunkChars'> = {}): Generator<string> {
+  const width = columns.length;
+  const n = epochsTT.length;
+  if (values.length !== width * n) throw new RangeError(`table holds ${values.length} numbers for ${n} epochs of ${width} columns`);
+  const epochDigits = opts.epochDigits ?? 3;
+  const chunkChars = opts.chunkChars ?? 65_536;
+  checkDigits('epochDigits', epochDigits, 9);
+  const decimals = columns.map((c) => c.decimals);
   const epochText = utcFormatter(epochDigits);
-  let chunk = CSV_HEADER + CRLF;
-  for (let i = 0; i < n; i++) {
-    const o = 6 * i;
-    chunk +=
-      epochText(epochsTT[i]!) + ',' +
-      fixed(states[o]!, pd) + ',' + fixed(states[o + 1]!, pd) + ',' + fixed(states[o + 2]!, pd) + ',' +
-      fixed(states[o + 3]!, vd) + ',' + fixed(states[o + 4]!, vd) + ',' + fixed(states[o + 5]!, vd) + CRLF;
+  let chunk = ['epoch_utc', ...columns.map((c) => c.header)].join(',') + CRLF;
+  for (let i = 0, o = 0; i < n; i++) {
+    chunk += epochText(epochsTT[i]!);
+    for (let c = 0; c < width; c++, o++) chunk += ',' + fixed(values[o]!, decimals[c]!);
+    chunk += CRLF;
     if (chunk.length >= chunkChars) {
       yield chunk;
       chunk = '';

@@ -7,6 +7,8 @@
 
 import { formatUtcIso } from '../solver/time.js';
 
+export const GEOJSON_MEDIA_TYPE = 'application/geo+json; charset=utf-8';
+
 export interface GroundTrackSample {
   /** TT seconds since J2000. */
   readonly tt: number;

@@ -1,32 +1,42 @@
 // Track as JSON, streamed: the answer's head fields, then "samples": one object per sample,
-// {"epoch", "position", "velocity"}, numbers fixed-point like the CSV (6 decimals km, 9 km/s).
+// e.g. {"epoch", "position", "velocity"}; numbers fixed-point like the CSV (6 decimals km, 9 km/s).
 import { utcFormatter } from '../solver/time.js';
-import { fixed, sampleCount, type TrackTable } from './track-table.js';
+import { fixed } from './track-table.js';
 
 export const JSON_MEDIA_TYPE = 'application/json; charset=utf-8';
 
-export interface TrackJsonOptions {
-  readonly positionDecimals?: number;
-  readonly velocityDecimals?: number;
-  readonly chunkChars?: number;
+/** One key of a sample object: `count` numbers from column `from` (an array when count > 1). */
+export interface JsonField {
+  readonly key: string;
+  readonly from: number;
+  readonly count: number;
+  readonly decimals: number;
 }
 
-/** `head` is a plain JSON object (its keys come first); the samples array is appended as its last key. */
-export function* trackJsonChunks(head: Record<string, unknown>, table: TrackTable, opts: TrackJsonOptions = {}): Generator<string> {
-  const n = sampleCount(table);
-  const pd = opts.positionDecimals ?? 6;
-  const vd = opts.velocityDecimals ?? 9;
-  const chunkChars = opts.chunkChars ?? 65_536;
+export const STATE_FIELDS: readonly JsonField[] = [
+  { key: 'position', from: 0, count: 3, decimals: 6 },
+  { key: 'velocity', from: 3, count: 3, decimals: 9 },
+];
+
+/** `head` is a plain JSON object (its keys come first); the samples array is appended as its last key. values holds `width` numbers per epoch. */
+export function* trackJsonChunks(head: Record<string, unknown>, epochsTT: Float64Array, values: Float64Array, fields: readonly JsonField[], chunkChars = 65_536): Generator<string> {
+  const width = fields.reduce((w, f) => Math.max(w, f.from + f.count), 0);
+  const n = epochsTT.length;
+  if (values.length !== width * n) throw new RangeError(`table holds ${values.length} numbers for ${n} epochs of ${width} columns`);
   const opening = JSON.stringify(head);
   let chunk = `${opening.slice(0, -1)}${opening.length > 2 ? ',' : ''}"samples":[`;
-  const { epochsTT, states } = table;
   const epochText = utcFormatter(3);
+  const prefixes = fields.map((f) => `,"${f.key}":${f.count > 1 ? '[' : ''}`);
   for (let i = 0; i < n; i++) {
-    const o = 6 * i;
-    chunk += (i === 0 ? '' : ',') +
-      '{"epoch":"' + epochText(epochsTT[i]!) +
-      '","position":[' + fixed(states[o]!, pd) + ',' + fixed(states[o + 1]!, pd) + ',' + fixed(states[o + 2]!, pd) +
-      '],"velocity":[' + fixed(states[o + 3]!, vd) + ',' + fixed(states[o + 4]!, vd) + ',' + fixed(states[o + 5]!, vd) + ']}';
+    const o = width * i;
+    chunk += (i === 0 ? '{"epoch":"' : ',{"epoch":"') + epochText(epochsTT[i]!) + '"';
+    for (let k = 0; k < fields.length; k++) {
+      const f = fields[k]!;
+      chunk += prefixes[k]! + fixed(values[o + f.from]!, f.decimals);
+      for (let c = 1; c < f.count; c++) chunk += ',' + fixed(values[o + f.from + c]!, f.decimals);
+      if (f.count > 1) chunk += ']';
+    }
+    chunk += '}';
     if (chunk.length >= chunkChars) {
       yield chunk;
       chunk = '';

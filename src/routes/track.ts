@@ -1,13 +1,17 @@
 // POST /v1/track: an orbit propagated over a time grid; JSON, CSV or CCSDS OEM, streamed.
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
-import { solverProblem } from '../errors.js';
-import { csvChunks, CSV_MEDIA_TYPE } from '../formats/csv.js';
+import { ProblemError, solverProblem } from '../errors.js';
+import { columnCsvChunks, csvChunks, CSV_MEDIA_TYPE } from '../formats/csv.js';
+import { GEOJSON_MEDIA_TYPE, groundTrackGeoJson } from '../formats/geojson.js';
 import { oemChunks, OEM_MEDIA_TYPE } from '../formats/oem.js';
-import { JSON_MEDIA_TYPE, trackJsonChunks } from '../formats/track-json.js';
+import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../schemas/body.js';
-import { problemResponses } from '../schemas/common.js';
+import { DEG_PER_RAD, problemResponses } from '../schemas/common.js';
+import type { CentralBody } from '../solver/bodies.js';
+import { gcrfToItrfBatch } from '../solver/frames.js';
+import { geodeticBatch } from '../solver/geodetic.js';
 import { initialState } from '../schemas/initial-state.js';
 import { gridEpochs } from '../schemas/grid.js';
 import { TRACK_FORMATS, TrackAnswer, TrackRequest } from '../schemas/track.js';
@@ -19,6 +23,27 @@ function increasing(epochs: Float64Array): Float64Array {
   let n = 0;
   for (let i = 0; i < sorted.length; i++) if (i === 0 || sorted[i]! > sorted[n - 1]!) sorted[n++] = sorted[i]!;
   return sorted.subarray(0, n);
+}
+
+const GEODETIC_CSV = [
+  { header: 'latitude_deg', decimals: 7 },
+  { header: 'longitude_deg', decimals: 7 },
+  { header: 'height_km', decimals: 6 },
+];
+const GEODETIC_FIELDS = [
+  { key: 'latitude', from: 0, count: 1, decimals: 7 },
+  { key: 'longitude', from: 1, count: 1, decimals: 7 },
+  { key: 'height', from: 2, count: 1, decimals: 6 },
+];
+
+/** WGS-84 latitude, longitude (deg) and height (km) of Earth-fixed states: radians to degrees at the edge. */
+function geodeticDegrees(itrfStates: Float64Array): Float64Array {
+  const g = geodeticBatch(itrfStates);
+  for (let i = 0; i < g.length; i += 3) {
+    g[i] = g[i]! * DEG_PER_RAD;
+    g[i + 1] = g[i + 1]! * DEG_PER_RAD;
+  }
+  return g;
 }
 
 const track: FastifyPluginAsyncZod = async (app) => {
@@ -37,6 +62,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
             'application/json': { schema: TrackAnswer },
             'text/csv': { schema: z.string().describe('RFC 4180 CSV: epoch_utc,x_km,y_km,z_km,vx_km_s,vy_km_s,vz_km_s') },
             'text/plain': { schema: z.string().describe('CCSDS 502.0-B-3 Orbit Ephemeris Message (KVN)') },
+            'application/geo+json': { schema: z.string().describe('RFC 7946 FeatureCollection: the WGS-84 ground track, a LineString or a MultiLineString split at the antimeridian; height in metres') },
           },
         },
         ...problemResponses,
@@ -44,7 +70,28 @@ const track: FastifyPluginAsyncZod = async (app) => {
     },
   }, async (request, reply) => {
     const req = request.body;
-    const format = chooseFormat(request, req.format, TRACK_FORMATS.map(([f, type]) => [f, f === 'oem' ? 'text/plain' : type] as const));
+    const format = chooseFormat(request, req.format, TRACK_FORMATS);
+    const earthOnly = req.frame !== 'gcrf' || format === 'geojson';
+    if (earthOnly && req.centralBody !== 'earth') {
+      throw new ProblemError('unsupported-frame', `frame ${req.frame}${format === 'geojson' ? ' and GeoJSON' : ''} need the built-in centralBody "earth"`);
+    }
+    if (format === 'oem' && req.frame === 'geodetic') {
+      throw new ProblemError('unsupported-frame', 'an OEM carries Cartesian states: choose frame gcrf or itrf');
+    }
+    const head = (hash: string, body: CentralBody, inertial: Track) => ({
+      scenarioHash: hash,
+      model: req.model,
+      frame: req.frame,
+      centralBody: { name: body.name, gm: body.gm, radius: body.radius ?? null },
+      object: req.object,
+      sampleCount: inertial.epochsTT.length,
+      // Conservation is checked on the inertial states, whatever the output frame.
+      diagnostics: {
+        energyRelativeDrift: inertial.drift.energy,
+        energyDriftVsPotential: inertial.drift.energyVsPotential,
+        angularMomentumRelativeDrift: inertial.drift.angularMomentumVector,
+      },
+    });
     return app.answers.respondStream(request, reply, 'track', { ...req, format }, (hash) => {
       const body = resolveBody(req.centralBody);
       const start = initialState(body, req);
@@ -53,7 +100,19 @@ const track: FastifyPluginAsyncZod = async (app) => {
       if (format === 'oem') epochsTT = increasing(epochsTT);
       const result = propagateTrack({ body, model: req.model, r0: start.value.r, v0: start.value.v, epochTT: start.value.epochTT, epochsTT, passThroughBody: req.passThroughBody });
       if (!result.ok) throw solverProblem(result);
-      const table: Track = result.value;
+      const inertial: Track = result.value;
+      const earthFixed = req.frame !== 'gcrf' || format === 'geojson';
+      const states = earthFixed ? gcrfToItrfBatch(inertial.epochsTT, inertial.states, { dut1: req.ut1MinusUtc }) : inertial.states;
+      const table = { epochsTT: inertial.epochsTT, states };
+      if (req.frame === 'geodetic' || format === 'geojson') {
+        const geodetic = geodeticDegrees(states);
+        if (format === 'geojson') {
+          const samples = Array.from(epochsTT, (t, i) => ({ tt: t, latitudeDeg: geodetic[3 * i]!, longitudeDeg: geodetic[3 * i + 1]!, heightKm: geodetic[3 * i + 2]! }));
+          return { contentType: GEOJSON_MEDIA_TYPE, chunks: groundTrackGeoJson(samples, { name: req.object.name, includeHeight: true }) };
+        }
+        if (format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: columnCsvChunks(epochsTT, geodetic, GEODETIC_CSV) };
+        return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(head(hash, body, inertial), epochsTT, geodetic, GEODETIC_FIELDS) };
+      }
       if (format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: csvChunks(table) };
       if (format === 'oem') {
         return {
@@ -64,28 +123,16 @@ const track: FastifyPluginAsyncZod = async (app) => {
             objectName: req.object.name,
             objectId: req.object.id,
             centerName: body.name.toUpperCase(),
-            refFrame: 'GCRF',
+            refFrame: req.frame === 'itrf' ? 'ITRF' : 'GCRF',
             comments: [
               `model ${req.model}, GM ${body.gm} km**3/s**2; scenario ${hash}`,
+              ...(req.frame === 'itrf' ? [`Earth-fixed: IAU precession-nutation and Earth rotation, polar motion neglected, UT1-UTC ${req.ut1MinusUtc} s`] : []),
               'CREATION_DATE is the epoch of the initial state, so that one scenario always gives the same bytes',
             ],
           }),
         };
       }
-      const head = {
-        scenarioHash: hash,
-        model: req.model,
-        frame: req.frame,
-        centralBody: { name: body.name, gm: body.gm, radius: body.radius ?? null },
-        object: req.object,
-        sampleCount: table.epochsTT.length,
-        diagnostics: {
-          energyRelativeDrift: table.drift.energy,
-          energyDriftVsPotential: table.drift.energyVsPotential,
-          angularMomentumRelativeDrift: table.drift.angularMomentumVector,
-        },
-      };
-      return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(head, table) };
+      return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(head(hash, body, inertial), epochsTT, states, STATE_FIELDS) };
     });
   });
 };

@@ -8,9 +8,11 @@ import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 export const TRACK_FORMATS = [
   ['json', 'application/json'],
   ['csv', 'text/csv'],
-  ['oem', 'application/ccsds-oem'],
+  ['oem', 'text/plain'],
+  ['geojson', 'application/geo+json'],
 ] as const;
 export type TrackFormat = (typeof TRACK_FORMATS)[number][0];
+export const TRACK_FRAMES = ['gcrf', 'itrf', 'geodetic'] as const;
 
 export const ObjectLabel = z
   .object({
@@ -25,9 +27,13 @@ export const TrackRequest = z
     ...orbitFields,
     grid: TimeGrid,
     model: z.enum(TRACK_MODELS).default('two-body').describe('two-body: exact Keplerian motion by universal variables (no perturbations)'),
-    frame: z.enum(['gcrf']).default('gcrf').describe('Output frame: gcrf (inertial)'),
+    frame: z.enum(TRACK_FRAMES).default('gcrf').describe(
+      'Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU precession-nutation and Earth rotation from astronomy-engine, polar motion neglected: ~10 m at LEO); ' +
+      'geodetic (WGS-84 latitude and longitude in deg, height in km). itrf and geodetic need centralBody earth'),
+    ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (IERS Bulletin A); 0 when not given, which costs up to ~0.4 km along-track in Earth-fixed frames'),
     format: z.enum(TRACK_FORMATS.map(([f]) => f) as [TrackFormat, ...TrackFormat[]]).optional()
-      .describe('json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN). Without it the Accept header chooses (application/json, text/csv, application/ccsds-oem); default json'),
+      .describe('json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN; gcrf or itrf) | geojson (RFC 7946 ground track on WGS-84, split at the antimeridian; earth only, whatever the frame). ' +
+        'Without it the Accept header chooses (application/json, text/csv, text/plain for OEM, application/geo+json); default json'),
     object: ObjectLabel.describe('Labels for the exported track'),
     passThroughBody: z.boolean().default(false).describe('Propagate as a point mass even below the body radius; by default a track that meets the body is refused (422 impact)'),
   })
@@ -45,16 +51,24 @@ export const TrackRequest = z
   });
 export type TrackRequest = z.output<typeof TrackRequest>;
 
-export const TrackSample = z.object({
-  epoch: z.string().describe('ISO 8601 UTC'),
-  position: z.tuple([z.number(), z.number(), z.number()]).describe('km, 6 decimals'),
-  velocity: z.tuple([z.number(), z.number(), z.number()]).describe('km/s, 9 decimals'),
-});
+export const TrackSample = z.union([
+  z.object({
+    epoch: z.string().describe('ISO 8601 UTC'),
+    position: z.tuple([z.number(), z.number(), z.number()]).describe('km, 6 decimals (gcrf or itrf)'),
+    velocity: z.tuple([z.number(), z.number(), z.number()]).describe('km/s, 9 decimals (gcrf or itrf)'),
+  }),
+  z.object({
+    epoch: z.string().describe('ISO 8601 UTC'),
+    latitude: z.number().describe('Geodetic latitude, deg (WGS-84), 7 decimals'),
+    longitude: z.number().describe('Longitude east, deg (-180, 180], 7 decimals'),
+    height: z.number().describe('Height above the WGS-84 ellipsoid, km, 6 decimals'),
+  }),
+]);
 
 export const TrackAnswer = z.object({
   scenarioHash: z.string(),
   model: z.enum(TRACK_MODELS),
-  frame: z.enum(['gcrf']),
+  frame: z.enum(TRACK_FRAMES),
   centralBody: z.object({ name: z.string(), gm: z.number().describe('km^3/s^2 used'), radius: z.number().nullable() }),
   object: z.object({ name: z.string(), id: z.string() }),
   sampleCount: z.number().int(),

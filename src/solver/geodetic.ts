@@ -72,3 +72,16 @@ function nearCentre(rho: number, z: number, longitude: number): Geodetic {
   const surface = geodeticToEarthFixed(latitude, 0, 0);
   return { latitude, longitude, height: Math.hypot(rho, z) - Math.hypot(surface[0], surface[2]) };
 }
+
+/** Earth-fixed states (6 numbers per sample) -> latitude, longitude (rad) and height (km), 3 per sample. */
+export function geodeticBatch(itrfStates: Float64Array): Float64Array {
+  const n = itrfStates.length / 6;
+  const out = new Float64Array(3 * n);
+  for (let k = 0; k < n; k++) {
+    const g = earthFixedToGeodetic([itrfStates[6 * k]!, itrfStates[6 * k + 1]!, itrfStates[6 * k + 2]!]);
+    out[3 * k] = g.latitude;
+    out[3 * k + 1] = g.longitude;
+    out[3 * k + 2] = g.height;
+  }
+  return out;
+}

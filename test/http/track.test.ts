@@ -130,3 +130,62 @@ describe('POST /v1/track', () => {
     expect(res.json().detail).toMatch(/start, stop and step/);
   });
 });
+
+describe('POST /v1/track in Earth-fixed frames', () => {
+  const grid = { start: EPOCH, stop: '2026-12-01T01:40:00Z', step: 300 };
+
+  it('itrf is a rotation of gcrf: same radius at every sample, different components', async () => {
+    const gcrf = (await postJson(app, '/v1/track', { ...demo, grid })).json();
+    const itrf = (await postJson(app, '/v1/track', { ...demo, grid, frame: 'itrf' })).json();
+    expect(itrf.frame).toBe('itrf');
+    gcrf.samples.forEach((s: { position: number[] }, i: number) => {
+      expectClose(Math.hypot(...itrf.samples[i].position), Math.hypot(...s.position), 2e-6, `radius ${i}`);
+    });
+    expect(Math.abs(itrf.samples[0].position[0] - gcrf.samples[0].position[0])).toBeGreaterThan(100);
+  });
+
+  it('geodetic samples map back onto the itrf positions through the WGS-84 ellipsoid formulas', async () => {
+    const itrf = (await postJson(app, '/v1/track', { ...demo, grid, frame: 'itrf' })).json();
+    const geo = (await postJson(app, '/v1/track', { ...demo, grid, frame: 'geodetic' })).json();
+    // x = (N + h) cos(lat) cos(lon), y = (N + h) cos(lat) sin(lon), z = (N (1 - e^2) + h) sin(lat),
+    // N = a / sqrt(1 - e^2 sin^2 lat); WGS-84 a = 6378.137 km, 1/f = 298.257223563
+    // (Vallado 4th ed. eq. 3-14 and NIMA TR8350.2 Table 3.1; from memory).
+    const a = 6378.137;
+    const f = 1 / 298.257223563;
+    const e2 = f * (2 - f);
+    geo.samples.forEach((s: { latitude: number; longitude: number; height: number }, i: number) => {
+      const lat = (s.latitude * Math.PI) / 180;
+      const lon = (s.longitude * Math.PI) / 180;
+      const n = a / Math.sqrt(1 - e2 * Math.sin(lat) ** 2);
+      const xyz = [(n + s.height) * Math.cos(lat) * Math.cos(lon), (n + s.height) * Math.cos(lat) * Math.sin(lon), (n * (1 - e2) + s.height) * Math.sin(lat)];
+      // 7 decimals of a degree is ~1 cm on the ground.
+      for (let c = 0; c < 3; c++) expectClose(xyz[c]!, itrf.samples[i].position[c], 3e-5, `sample ${i} axis ${c}`);
+    });
+  });
+
+  it('GeoJSON is an RFC 7946 FeatureCollection whose lines never jump across the antimeridian', async () => {
+    const res = await postJson(app, '/v1/track', { ...demo, grid: { ...grid, step: 60 } }, { accept: 'application/geo+json' });
+    expect(res.statusCode).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^application\/geo\+json/);
+    const doc = res.json();
+    expect(doc.type).toBe('FeatureCollection');
+    const geometry = doc.features[0].geometry;
+    const lines: number[][][] = geometry.type === 'LineString' ? [geometry.coordinates] : geometry.coordinates;
+    expect(geometry.type).toBe('MultiLineString'); // a polar orbit crosses the antimeridian within 100 min
+    for (const line of lines) {
+      for (let i = 1; i < line.length; i++) expect(Math.abs(line[i]![0]! - line[i - 1]![0]!)).toBeLessThan(180);
+      for (const [lon, lat] of line) {
+        expect(Math.abs(lon!)).toBeLessThanOrEqual(180);
+        expect(Math.abs(lat!)).toBeLessThanOrEqual(90);
+      }
+    }
+  });
+
+  it('Earth-fixed output for another body, and an OEM of geodetic samples, answer 422', async () => {
+    const mars = await postJson(app, '/v1/track', { ...demo, centralBody: 'mars', elements: { ...demo.elements, semiMajorAxis: 4000 }, grid, frame: 'geodetic' });
+    expect(mars.statusCode).toBe(422);
+    expect(mars.json().type).toBe('/problems/unsupported-frame');
+    const oem = await postJson(app, '/v1/track', { ...demo, grid, frame: 'geodetic', format: 'oem' });
+    expect(oem.statusCode).toBe(422);
+  });
+});
