@@ -13,6 +13,8 @@ import bodies from './routes/bodies.js';
 import orbit from './routes/orbit.js';
 import results from './routes/results.js';
 import track from './routes/track.js';
+import passes from './routes/passes.js';
+import centralForce from './routes/central-force.js';
 
 export interface BuildOptions {
   config?: Partial<Config>;
@@ -48,6 +50,8 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   await app.register(bodies);
   await app.register(orbit);
   await app.register(track);
+  await app.register(passes);
+  await app.register(centralForce);
   await app.register(results);
   return app;
 }

@@ -51,19 +51,20 @@ export const TrackRequest = z
   });
 export type TrackRequest = z.output<typeof TrackRequest>;
 
-export const TrackSample = z.union([
-  z.object({
-    epoch: z.string().describe('ISO 8601 UTC'),
-    position: z.tuple([z.number(), z.number(), z.number()]).describe('km, 6 decimals (gcrf or itrf)'),
-    velocity: z.tuple([z.number(), z.number(), z.number()]).describe('km/s, 9 decimals (gcrf or itrf)'),
-  }),
-  z.object({
-    epoch: z.string().describe('ISO 8601 UTC'),
-    latitude: z.number().describe('Geodetic latitude, deg (WGS-84), 7 decimals'),
-    longitude: z.number().describe('Longitude east, deg (-180, 180], 7 decimals'),
-    height: z.number().describe('Height above the WGS-84 ellipsoid, km, 6 decimals'),
-  }),
-]);
+export const StateSample = z.object({
+  epoch: z.string().describe('ISO 8601 UTC'),
+  position: z.tuple([z.number(), z.number(), z.number()]).describe('km, 6 decimals (gcrf or itrf)'),
+  velocity: z.tuple([z.number(), z.number(), z.number()]).describe('km/s, 9 decimals (gcrf or itrf)'),
+});
+
+export const GeodeticSample = z.object({
+  epoch: z.string().describe('ISO 8601 UTC'),
+  latitude: z.number().describe('Geodetic latitude, deg (WGS-84), 7 decimals'),
+  longitude: z.number().describe('Longitude east, deg (-180, 180], 7 decimals'),
+  height: z.number().describe('Height above the WGS-84 ellipsoid, km, 6 decimals'),
+});
+
+export const TrackSample = z.union([StateSample, GeodeticSample]);
 
 export const TrackAnswer = z.object({
   scenarioHash: z.string(),

@@ -1,0 +1,85 @@
+// POST /v1/central-force: effective-potential analysis of motion in a general central potential
+// (JSON), or a plot of it (SVG); optionally the track r(t), phi(t).
+import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
+import { z } from 'zod';
+import { ProblemError, solverProblem } from '../errors.js';
+import { effectivePotentialSvg } from '../formats/svg.js';
+import { jsonAnswer } from '../plugins/answers.js';
+import { chooseFormat } from '../plugins/negotiate.js';
+import {
+  CENTRAL_FORCE_FORMATS,
+  CentralForceAnswer,
+  CentralForceRequest,
+  centralForceProblem,
+  firstNonFinite,
+  SVG_MEDIA_TYPE,
+  toCentralForceAnswer,
+} from '../schemas/central-force.js';
+import { problemResponses } from '../schemas/common.js';
+import { radialTrack } from '../solver/radial-track.js';
+import { analyseCentralForce } from '../solver/radial.js';
+
+const OVERFLOW = 'the numbers overflow double precision (or lose all meaning) for this input: rescale the units';
+
+const centralForce: FastifyPluginAsyncZod = async (app) => {
+  app.post('/v1/central-force', {
+    schema: {
+      tags: ['orbits'],
+      summary: 'General central force: effective potential, turning points, circular orbits, radial period, apsidal angle, track',
+      description: 'Analyses motion in U(r) = sum of terms through U_eff = U + l^2 / (2 m r^2). Works in any consistent unit system ' +
+        '(numbers are used as given); angles in the answer (apsidalAngle, precessionPerOrbit, track phi) are degrees. ' +
+        'An energy below every value of U_eff answers 422 energy-below-minimum; parameters outside their physical range that the ' +
+        'schema cannot see answer 422 invalid-parameter.',
+      body: CentralForceRequest,
+      response: {
+        200: {
+          description: 'The analysis (JSON) or its plot (SVG)',
+          content: {
+            'application/json': { schema: CentralForceAnswer },
+            'image/svg+xml': { schema: z.string().describe('Standalone SVG plot of U_eff(r), U(r), the energy level, turning points and circular orbits') },
+          },
+        },
+        ...problemResponses,
+      },
+    },
+  }, async (request, reply) => {
+    const req = request.body;
+    const format = chooseFormat(request, req.format, CENTRAL_FORCE_FORMATS);
+    // The track's start defaults by the input form; filled here so that both spellings hash alike.
+    const track = req.track ? { ...req.track, start: req.track.start ?? (req.initial ? 'initial' as const : 'periapsis' as const) } : undefined;
+    const scenario = { ...req, format, ...(track ? { track } : {}) };
+    return app.answers.respond(request, reply, 'central-force', scenario, (hash) => {
+      const problem = centralForceProblem(req);
+      if (!problem.ok) throw solverProblem(problem);
+      const analysis = analyseCentralForce(problem.value, {
+        samples: req.samples,
+        ...(req.rMin !== undefined ? { rMin: req.rMin } : {}),
+        ...(req.rMax !== undefined ? { rMax: req.rMax } : {}),
+      });
+      if (!analysis.ok) throw solverProblem(analysis);
+
+      if (format === 'svg') {
+        if (analysis.value.effectivePotential.length < 2 || firstNonFinite(analysis.value) !== null) throw new ProblemError('invalid-parameter', OVERFLOW);
+        return { body: Buffer.from(effectivePotentialSvg(analysis.value, { units: req.units })), contentType: SVG_MEDIA_TYPE };
+      }
+
+      let solvedTrack = null;
+      if (track) {
+        const max = app.config.MAX_TRACK_SAMPLES;
+        if (track.samples > max) throw new ProblemError('too-many-samples', `${track.samples} track samples asked; the maximum is ${max}`);
+        const run = radialTrack(problem.value, analysis.value, {
+          samples: track.samples,
+          start: track.start,
+          ...(track.periods !== undefined ? { periods: track.periods } : { duration: track.duration! }),
+        });
+        if (!run.ok) throw solverProblem(run);
+        solvedTrack = { start: track.start, value: run.value };
+      }
+      const answer = toCentralForceAnswer(analysis.value, solvedTrack, req.units, hash);
+      const bad = firstNonFinite(answer);
+      if (bad !== null) throw new ProblemError('invalid-parameter', `${OVERFLOW} (${bad} is not finite)`);
+      return jsonAnswer(answer);
+    });
+  });
+};
+export default centralForce;

@@ -1,0 +1,93 @@
+// POST /v1/passes: ground-station passes of one spacecraft over a window.
+import { z } from 'zod';
+import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTING_STEP_S } from '../solver/passes.js';
+import { TRACK_MODELS } from '../solver/track.js';
+import { DEMO_EPOCH, Epoch, EpochOut } from './common.js';
+import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
+
+const MaskPoint = z
+  .object({
+    azimuth: z.number().min(0).lt(360).describe('deg from north through east, [0, 360)'),
+    elevation: z.number().min(-90).max(90).describe('deg: the lowest usable elevation at that azimuth'),
+  })
+  .strict();
+
+export const GroundStation = z
+  .object({
+    id: z.string().min(1).max(64).describe('Unique within the request; echoed in each pass'),
+    latitude: z.number().min(-90).max(90).describe('Geodetic latitude, deg (WGS-84)'),
+    longitude: z.number().min(-180).max(360).describe('Longitude east, deg'),
+    altitude: z.number().min(-10).max(100).describe('Height above the WGS-84 ellipsoid, km'),
+    minElevation: z.number().min(-90).max(90).default(0).describe('Elevation limit, deg (default 0)'),
+    horizonMask: z.array(MaskPoint).max(360).optional()
+      .describe('Elevation limit by azimuth for terrain and buildings: linear between points, wrapping at 360; never below minElevation'),
+  })
+  .strict();
+
+export const PassesRequest = z
+  .object({
+    ...orbitFields,
+    model: z.enum(TRACK_MODELS).default('two-body').describe('Propagation model (two-body: Keplerian motion, no perturbations)'),
+    window: z.object({ start: Epoch, stop: Epoch }).strict().describe(`Search window (ISO 8601 UTC), stop after start, at most ${MAX_PASS_WINDOW_S / 86_400} days`),
+    stations: z.array(GroundStation).min(1).max(MAX_PASS_STATIONS).describe(`Ground stations, 1 to ${MAX_PASS_STATIONS}`),
+    pointing: z
+      .object({
+        step: z.number().min(MIN_POINTING_STEP_S).describe(`Pointing-track step, s (>= ${MIN_POINTING_STEP_S}); at most ${MAX_POINTING_SAMPLES} samples over all passes`),
+        carrierFrequency: z.number().positive().optional().describe('Carrier frequency, Hz: adds the first-order Doppler shift, Hz, to each sample'),
+      })
+      .strict()
+      .optional()
+      .describe('Ask for an antenna pointing track of each pass'),
+    ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (0 when not given: up to ~0.4 km of along-track error on the ground)'),
+  })
+  .strict()
+  .superRefine(requireOneOrbitInput)
+  .meta({
+    description: 'A spacecraft, ground stations and a window',
+    examples: [{
+      centralBody: 'earth',
+      elements: DEMO_ELEMENTS,
+      window: { start: DEMO_EPOCH, stop: '2026-12-02T00:00:00Z' },
+      stations: [
+        { id: 'korrin-hill', latitude: 61.2, longitude: 24.9, altitude: 0.21, minElevation: 5 },
+        { id: 'veyra-point', latitude: -31.4, longitude: 138.6, altitude: 0.32, minElevation: 10, horizonMask: [{ azimuth: 0, elevation: 10 }, { azimuth: 90, elevation: 20 }, { azimuth: 180, elevation: 10 }] },
+      ],
+      pointing: { step: 10, carrierFrequency: 2.2e9 },
+    }],
+  });
+export type PassesRequest = z.output<typeof PassesRequest>;
+
+const PointingSample = z.object({
+  epoch: EpochOut,
+  azimuth: z.number().describe('deg'),
+  elevation: z.number().describe('deg (geometric, no refraction)'),
+  range: z.number().describe('km'),
+  rangeRate: z.number().describe('km/s, positive receding'),
+  dopplerFactor: z.number().describe('received / transmitted frequency, 1 - rangeRate / c (first order)'),
+  dopplerShift: z.number().nullable().describe('Hz at the carrier frequency (null without one)'),
+});
+
+export const Pass = z.object({
+  station: z.string(),
+  aos: EpochOut.describe('Acquisition of signal: elevation rises through the limit (or the window start)'),
+  tca: EpochOut.describe('Time of maximum elevation'),
+  los: EpochOut.describe('Loss of signal: elevation falls through the limit (or the window stop)'),
+  duration: z.number().describe('s'),
+  maxElevation: z.number().describe('deg'),
+  azimuthAos: z.number().describe('deg'),
+  azimuthTca: z.number().describe('deg'),
+  azimuthLos: z.number().describe('deg'),
+  rangeTca: z.number().describe('km at TCA'),
+  startsBeforeWindow: z.boolean().describe('Already up at the window start: aos is the window start'),
+  endsAfterWindow: z.boolean().describe('Still up at the window stop: los is the window stop'),
+  pointing: z.array(PointingSample).optional(),
+});
+
+export const PassesAnswer = z.object({
+  scenarioHash: z.string(),
+  model: z.enum(TRACK_MODELS),
+  window: z.object({ start: EpochOut, stop: EpochOut }),
+  coarseStep: z.number().describe('s: the scan step sized from the orbit so no pass above the limit is missed'),
+  passes: z.array(Pass).describe('In time order of AOS, then station order'),
+});
+export type PassesAnswer = z.infer<typeof PassesAnswer>;
