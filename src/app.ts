@@ -14,6 +14,7 @@ import orbit from './routes/orbit.js';
 import results from './routes/results.js';
 import track from './routes/track.js';
 import passes from './routes/passes.js';
+import twoBody from './routes/two-body.js';
 import centralForce from './routes/central-force.js';
 
 export interface BuildOptions {
@@ -51,6 +52,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   await app.register(orbit);
   await app.register(track);
   await app.register(passes);
+  await app.register(twoBody);
   await app.register(centralForce);
   await app.register(results);
   return app;

@@ -1,0 +1,118 @@
+// POST /v1/two-body: two bodies -> barycentre, relative orbit, each body's orbit about the
+// barycentre and the integrals; optionally both tracks about the barycentre (streamed JSON).
+import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
+import { ProblemError, solverProblem } from '../errors.js';
+import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
+import type { TrackTable } from '../formats/track-table.js';
+import { epochTT as toEpochTT, problemResponses } from '../schemas/common.js';
+import { gridEpochs } from '../schemas/grid.js';
+import {
+  relativeCentralBody,
+  toTwoBodyAnswer,
+  trackNames,
+  twoBodySolverInput,
+  TwoBodyAnswer,
+  TwoBodyRequest,
+  type TwoBodyTracks,
+} from '../schemas/two-body.js';
+import { solveOrbit } from '../solver/orbit.js';
+import { propagateTrack } from '../solver/track.js';
+import { bodyTracksAboutBarycentre, reduceTwoBody } from '../solver/two-body.js';
+
+/** The track formatter prints fixed-point numbers below this magnitude (see formats/track-table.ts). */
+const PRINTABLE_LIMIT = 1e21;
+
+interface Tracks {
+  readonly head: Omit<TwoBodyTracks, 'bodies'>;
+  readonly names: [string | null, string | null];
+  readonly tables: [TrackTable, TrackTable];
+}
+
+/** The answer's JSON: the head as it is, then (when asked) both tracks, streamed sample by sample. */
+function* answerChunks(head: Omit<TwoBodyAnswer, 'tracks'>, tracks: Tracks | null): Generator<string> {
+  if (!tracks) {
+    yield JSON.stringify({ ...head, tracks: null });
+    return;
+  }
+  const opening = JSON.stringify({ ...head, tracks: tracks.head });
+  yield `${opening.slice(0, -2)},"bodies":[`; // drop the closing braces of tracks and of the answer
+  yield* trackJsonChunks({ name: tracks.names[0] }, tracks.tables[0].epochsTT, tracks.tables[0].states, STATE_FIELDS);
+  yield ',';
+  yield* trackJsonChunks({ name: tracks.names[1] }, tracks.tables[1].epochsTT, tracks.tables[1].states, STATE_FIELDS);
+  yield ']}}';
+}
+
+/** JSON would print a non-finite number as null: refuse such a scenario before anything is sent. */
+function assertFinite(value: unknown, path: string): void {
+  if (typeof value === 'number') {
+    if (!Number.isFinite(value)) throw new ProblemError('invalid-parameter', `the scenario overflows double-precision arithmetic (${path} is ${value}); bring the masses, separation or speeds closer to each other`);
+  } else if (Array.isArray(value)) {
+    value.forEach((v, i) => assertFinite(v, `${path}.${i}`));
+  } else if (value !== null && typeof value === 'object') {
+    for (const [k, v] of Object.entries(value)) assertFinite(v, `${path}.${k}`);
+  }
+}
+
+function assertPrintable(table: TrackTable): void {
+  for (const x of table.states) {
+    if (!(Math.abs(x) < PRINTABLE_LIMIT)) {
+      throw new ProblemError('limit-exceeded', `a track sample reaches ${x} (km or km/s); tracks print values below ${PRINTABLE_LIMIT} in magnitude`);
+    }
+  }
+}
+
+const twoBody: FastifyPluginAsyncZod = async (app) => {
+  app.post('/v1/two-body', {
+    schema: {
+      tags: ['orbits'],
+      summary: 'Two-body reduction: barycentre, reduced mass, relative orbit, each body\'s orbit about the barycentre',
+      description: 'Masses in kg or as GM (km^3/s^2), converted with G (CODATA 2018); the relative orbit is answered as POST /v1/orbit answers it. ' +
+        'With `track`, both bodies\' tracks about the barycentre are appended (at most MAX_TRACK_SAMPLES samples, default 100000; beyond that a 422 names the maximum). ' +
+        'Point masses: the bodies have no radius and no collision is detected.',
+      body: TwoBodyRequest,
+      response: { 200: TwoBodyAnswer, ...problemResponses },
+    },
+  }, async (request, reply) => {
+    const req = request.body;
+    return app.answers.respondStream(request, reply, 'two-body', req, (hash) => {
+      const [b1, b2] = twoBodySolverInput(req);
+      const reduced = reduceTwoBody(b1, b2);
+      if (!reduced.ok) throw solverProblem(reduced);
+      const red = reduced.value;
+      const relativeBody = relativeCentralBody(req, red);
+      const orbit = solveOrbit(relativeBody, { r: red.relative.r, v: red.relative.v });
+      if (!orbit.ok) throw solverProblem(orbit);
+      const epochTT = toEpochTT(req.epoch);
+      const head = toTwoBodyAnswer(req, red, orbit.value, relativeBody, epochTT, hash);
+      assertFinite(head, 'answer');
+
+      let tracks: Tracks | null = null;
+      if (req.track) {
+        const epochsTT = gridEpochs(req.track.grid, app.config.MAX_TRACK_SAMPLES);
+        const relative = propagateTrack({ body: relativeBody, model: 'two-body', r0: red.relative.r, v0: red.relative.v, epochTT, epochsTT });
+        if (!relative.ok) throw solverProblem(relative);
+        const { body1, body2 } = bodyTracksAboutBarycentre(red, relative.value);
+        assertPrintable(body1);
+        assertPrintable(body2);
+        const { drift } = relative.value;
+        tracks = {
+          head: {
+            origin: 'barycenter',
+            frame: req.frame,
+            sampleCount: epochsTT.length,
+            diagnostics: {
+              energyRelativeDrift: drift.energy,
+              energyDriftVsPotential: drift.energyVsPotential,
+              angularMomentumRelativeDrift: drift.angularMomentumVector,
+            },
+          },
+          names: trackNames(req),
+          tables: [body1, body2],
+        };
+        assertFinite(tracks.head, 'tracks');
+      }
+      return { contentType: JSON_MEDIA_TYPE, chunks: answerChunks(head, tracks) };
+    });
+  });
+};
+export default twoBody;
