@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { OrbitSolution } from '../solver/orbit.js';
 import { orbitTypeOf, type ElementsInput as SolverElementsInput } from '../solver/elements.js';
 import type { CentralBody } from '../solver/bodies.js';
-import { formatUtcIso } from '../solver/time.js';
+import { END_OF_SUPPORTED_RANGE_TT, formatUtcIso } from '../solver/time.js';
 import type { Vec3 as SolverVec3 } from '../solver/vec3.js';
 import { CentralBodyInput, BodySummary, describeBody } from './body.js';
 import { DEG_PER_RAD, DEMO_EPOCH, Epoch, EpochOut, epochTT, PositionKm, RAD_PER_DEG, ScenarioHash, Vec3, VelocityKmS } from './common.js';
@@ -72,7 +72,7 @@ const Apsis = z.object({
   radius: z.number().describe('km from the centre of the body'),
   altitude: z.number().nullable().describe('km above the body radius (null when the body has no radius)'),
   speed: z.number().describe('km/s'),
-  nextPassage: EpochOut.nullable().describe('Next passage at or after the epoch (null when it lies in the past on an unbound trajectory, or the orbit is circular)'),
+  nextPassage: EpochOut.nullable().describe('Next passage at or after the epoch (null when it lies in the past on an unbound trajectory, when the orbit is circular, or when it falls after 2199)'),
 });
 
 export const Elements = z.object({
@@ -148,7 +148,9 @@ const degPerDay = (radPerS: number): number => radPerS * DEG_PER_RAD * SECONDS_P
 
 /** Solver solution -> API answer (radians -> degrees, seconds-after-epoch -> ISO epochs). */
 export function toOrbitAnswer(s: OrbitSolution, body: CentralBody, epochTT: number, scenarioHash: string): OrbitAnswer {
-  const passage = (seconds: number | null): string | null => (seconds === null ? null : formatUtcIso(epochTT + seconds));
+  // A passage beyond the supported calendar (after 2199) is reported as null, like one that does not exist.
+  const passage = (seconds: number | null): string | null =>
+    seconds === null || !(epochTT + seconds < END_OF_SUPPORTED_RANGE_TT) ? null : formatUtcIso(epochTT + seconds);
   const apsis = (a: OrbitSolution['apsides']['periapsis']) => ({
     radius: a.radius,
     altitude: a.altitude,

@@ -93,6 +93,9 @@ export function utcFromTt(tt: number): { utcDay: number; secondOfDay: number } {
   return { utcDay: day, secondOfDay: tai - taiMinusUtc(day) - day * SECONDS_PER_DAY };
 }
 
+/** TT of 2200-01-01T00:00:00Z: epochs at or after it are outside the supported range. */
+export const END_OF_SUPPORTED_RANGE_TT = ttFromUtc(dayNumber(LAST_SUPPORTED_YEAR + 1, 1, 1), 0);
+
 const ISO_UTC = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2}):(\d{2}(?:\.\d{1,9})?)(Z|[+-]00:00)$/;
 
 /** Parse an ISO 8601 UTC timestamp (`2026-12-01T00:00:00Z`, fractional seconds allowed) to TT seconds since J2000. */

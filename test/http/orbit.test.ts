@@ -141,3 +141,16 @@ describe('POST /v1/orbit', () => {
     expect(p.apsides.periapsis.nextPassage).not.toBeNull(); // nu < 0: periapsis ahead
   });
 });
+
+describe('POST /v1/orbit at the edges of the calendar', () => {
+  it('a passage after 2199 is reported as null, never as a date past year 9999', async () => {
+    // a = 1e9 km about the Earth: period ~ 5e9 s ~ 160 years (Kepler's third law; common practice, no source).
+    const res = await postJson(app, '/v1/orbit', {
+      elements: { epoch: '2150-01-01T00:00:00Z', semiMajorAxis: 1e9, eccentricity: 0.5, inclination: 10, raan: 0, argPeriapsis: 0, trueAnomaly: 1 },
+    });
+    expect(res.statusCode).toBe(200);
+    const a = OrbitAnswer.parse(res.json());
+    expect(a.apsides.periapsis.nextPassage).toBeNull();
+    expect(a.period!).toBeGreaterThan(1e9);
+  });
+});
