@@ -3,8 +3,8 @@
 // quote or line break). Epochs are ISO 8601 UTC; numbers are fixed-point: by default 6 decimals
 // for km (1 mm) and 9 for km/s (1 micrometre/s), epochs to the millisecond.
 
-import { utcFormatter } from '../solver/time.js';
-import { checkDigits, fixed, sampleCount, type TrackTable } from './track-table.js';
+import { AsciiWriter } from './ascii-writer.js';
+import { checkDigits, sampleCount, type TrackTable } from './track-table.js';
 
 export const CSV_HEADER = 'epoch_utc,x_km,y_km,z_km,vx_km_s,vy_km_s,vz_km_s';
 /** Media type to answer with (RFC 4180 sec. 3, with the optional header parameter). */
@@ -30,7 +30,7 @@ export interface CsvColumn {
 }
 
 /** The table as CSV text in chunks of about chunkChars characters; every number is formatted once. */
-export function* csvChunks(table: TrackTable, opts: CsvOptions = {}): Generator<string> {
+export function* csvChunks(table: TrackTable, opts: CsvOptions = {}): Generator<Buffer> {
   sampleCount(table);
   const pd = opts.positionDecimals ?? 6;
   const vd = opts.velocityDecimals ?? 9;
@@ -40,25 +40,21 @@ export function* csvChunks(table: TrackTable, opts: CsvOptions = {}): Generator<
   yield* columnCsvChunks(table.epochsTT, table.states, columns, opts);
 }
 
-/** Any table of numbers per epoch (values holds columns.length numbers per sample) as RFC 4180 CSV. */
-export function* columnCsvChunks(epochsTT: Float64Array, values: Float64Array, columns: readonly CsvColumn[], opts: Pick<CsvOptions, 'epochDigits' | 'chunkChars'> = {}): Generator<string> {
+/** Any table of numbers per epoch (values holds columns.length numbers per sample) as RFC 4180 CSV, in byte chunks. */
+export function* columnCsvChunks(epochsTT: Float64Array, values: Float64Array, columns: readonly CsvColumn[], opts: Pick<CsvOptions, 'epochDigits' | 'chunkChars'> = {}): Generator<Buffer> {
   const width = columns.length;
   const n = epochsTT.length;
   if (values.length !== width * n) throw new RangeError(`table holds ${values.length} numbers for ${n} epochs of ${width} columns`);
   const epochDigits = opts.epochDigits ?? 3;
-  const chunkChars = opts.chunkChars ?? 65_536;
   checkDigits('epochDigits', epochDigits, 9);
   const decimals = columns.map((c) => c.decimals);
-  const epochText = utcFormatter(epochDigits);
-  let chunk = ['epoch_utc', ...columns.map((c) => c.header)].join(',') + CRLF;
+  const out = new AsciiWriter(epochDigits, opts.chunkChars ?? 65_536);
+  out.text(['epoch_utc', ...columns.map((c) => c.header)].join(',') + CRLF);
   for (let i = 0, o = 0; i < n; i++) {
-    chunk += epochText(epochsTT[i]!);
-    for (let c = 0; c < width; c++, o++) chunk += ',' + fixed(values[o]!, decimals[c]!);
-    chunk += CRLF;
-    if (chunk.length >= chunkChars) {
-      yield chunk;
-      chunk = '';
-    }
+    out.utc(epochsTT[i]!);
+    for (let c = 0; c < width; c++, o++) out.char(44).fixed(values[o]!, decimals[c]!);
+    out.char(13).char(10);
+    if (out.full) yield out.take();
   }
-  if (chunk.length > 0) yield chunk;
+  if (out.size > 0) yield out.take();
 }

@@ -12,7 +12,8 @@
 // - Lines end with LF; fixed-point numbers, by default 6 decimals for km and 9 for km/s.
 
 import { utcFormatter } from '../solver/time.js';
-import { checkDigits, firstNonIncreasing, fixed, sampleCount, type TrackTable } from './track-table.js';
+import { AsciiWriter } from './ascii-writer.js';
+import { checkDigits, firstNonIncreasing, sampleCount, type TrackTable } from './track-table.js';
 
 export const OEM_VERSION = '3.0';
 export const OEM_MEDIA_TYPE = 'text/plain; charset=utf-8';
@@ -52,7 +53,7 @@ const oemEpochFormatter = (digits: number): ((tt: number) => string) => {
 };
 
 function keyValue(key: string, value: string): string {
-  if (value.length === 0 || /[\r\n]/.test(value) || value.trim() !== value) {
+  if (value.length === 0 || !/^[\x20-\x7e]+$/.test(value) || value.trim() !== value) {
     throw new RangeError(`OEM ${key} must be a non-empty single line without surrounding blanks, got ${JSON.stringify(value)}`);
   }
   const line = `${key.padEnd(20)} = ${value}`;
@@ -66,7 +67,7 @@ function comment(text: string): string {
 }
 
 /** The table as an OEM (KVN) in chunks of about meta.chunkChars characters. */
-export function* oemChunks(table: TrackTable, meta: OemMeta): Generator<string> {
+export function* oemChunks(table: TrackTable, meta: OemMeta): Generator<Buffer> {
   const n = sampleCount(table);
   if (n === 0) throw new RangeError('an OEM needs at least one ephemeris data line');
   const bad = firstNonIncreasing(table.epochsTT);
@@ -100,17 +101,15 @@ export function* oemChunks(table: TrackTable, meta: OemMeta): Generator<string> 
     chunk += keyValue('INTERPOLATION_DEGREE', String(meta.interpolation.degree));
   }
   chunk += 'META_STOP\n\n';
+  yield Buffer.from(chunk, 'latin1');
 
+  const out = new AsciiWriter(digits, chunkChars);
   for (let i = 0; i < n; i++) {
     const o = 6 * i;
-    chunk +=
-      oemEpoch(epochsTT[i]!) + ' ' +
-      fixed(states[o]!, pd) + ' ' + fixed(states[o + 1]!, pd) + ' ' + fixed(states[o + 2]!, pd) + ' ' +
-      fixed(states[o + 3]!, vd) + ' ' + fixed(states[o + 4]!, vd) + ' ' + fixed(states[o + 5]!, vd) + '\n';
-    if (chunk.length >= chunkChars) {
-      yield chunk;
-      chunk = '';
-    }
+    out.utc(epochsTT[i]!, false);
+    for (let c = 0; c < 6; c++) out.char(32).fixed(states[o + c]!, c < 3 ? pd : vd);
+    out.char(10);
+    if (out.full) yield out.take();
   }
-  if (chunk.length > 0) yield chunk;
+  if (out.size > 0) yield out.take();
 }

@@ -1,7 +1,6 @@
 // Track as JSON, streamed: the answer's head fields, then "samples": one object per sample,
 // e.g. {"epoch", "position", "velocity"}; numbers fixed-point like the CSV (6 decimals km, 9 km/s).
-import { utcFormatter } from '../solver/time.js';
-import { fixed } from './track-table.js';
+import { AsciiWriter } from './ascii-writer.js';
 
 export const JSON_MEDIA_TYPE = 'application/json; charset=utf-8';
 
@@ -19,28 +18,28 @@ export const STATE_FIELDS: readonly JsonField[] = [
 ];
 
 /** `head` is a plain JSON object (its keys come first); the samples array is appended as its last key. values holds `width` numbers per epoch. */
-export function* trackJsonChunks(head: Record<string, unknown>, epochsTT: Float64Array, values: Float64Array, fields: readonly JsonField[], chunkChars = 65_536): Generator<string> {
+export function* trackJsonChunks(head: Record<string, unknown>, epochsTT: Float64Array, values: Float64Array, fields: readonly JsonField[], chunkBytes = 65_536): Generator<Buffer> {
   const width = fields.reduce((w, f) => Math.max(w, f.from + f.count), 0);
   const n = epochsTT.length;
   if (values.length !== width * n) throw new RangeError(`table holds ${values.length} numbers for ${n} epochs of ${width} columns`);
+  const out = new AsciiWriter(3, chunkBytes);
+  // The head may hold non-ASCII text (object names): UTF-8 bytes, outside the ASCII writer.
   const opening = JSON.stringify(head);
-  let chunk = `${opening.slice(0, -1)}${opening.length > 2 ? ',' : ''}"samples":[`;
-  const epochText = utcFormatter(3);
+  const headBytes = Buffer.from(`${opening.slice(0, -1)}${opening.length > 2 ? ',' : ''}"samples":[`, 'utf8');
   const prefixes = fields.map((f) => `,"${f.key}":${f.count > 1 ? '[' : ''}`);
+  yield headBytes;
   for (let i = 0; i < n; i++) {
     const o = width * i;
-    chunk += (i === 0 ? '{"epoch":"' : ',{"epoch":"') + epochText(epochsTT[i]!) + '"';
+    out.text(i === 0 ? '{"epoch":"' : ',{"epoch":"').utc(epochsTT[i]!).char(34);
     for (let k = 0; k < fields.length; k++) {
       const f = fields[k]!;
-      chunk += prefixes[k]! + fixed(values[o + f.from]!, f.decimals);
-      for (let c = 1; c < f.count; c++) chunk += ',' + fixed(values[o + f.from + c]!, f.decimals);
-      if (f.count > 1) chunk += ']';
+      out.text(prefixes[k]!).fixed(values[o + f.from]!, f.decimals);
+      for (let c = 1; c < f.count; c++) out.char(44).fixed(values[o + f.from + c]!, f.decimals);
+      if (f.count > 1) out.char(93);
     }
-    chunk += '}';
-    if (chunk.length >= chunkChars) {
-      yield chunk;
-      chunk = '';
-    }
+    out.char(125);
+    if (out.full) yield out.take();
   }
-  yield chunk + ']}';
+  out.text(']}');
+  yield out.take();
 }

@@ -32,7 +32,7 @@ export interface AnswerService {
 
 export interface StreamedAnswer {
   readonly contentType: string;
-  readonly chunks: Iterable<string>;
+  readonly chunks: Iterable<string | Buffer>;
 }
 
 declare module 'fastify' {
@@ -80,7 +80,7 @@ export default fp(async function answers(app: FastifyInstance, opts: AnswersOpti
       let kept: Buffer[] | undefined = [];
       let size = 0;
       for (const chunk of answer.chunks) {
-        const buffer = Buffer.from(chunk);
+        const buffer = typeof chunk === 'string' ? Buffer.from(chunk) : chunk;
         size += buffer.length;
         if (kept && size <= maxStoredBytes) kept.push(buffer);
         else kept = undefined;

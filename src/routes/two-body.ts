@@ -29,7 +29,7 @@ interface Tracks {
 }
 
 /** The answer's JSON: the head as it is, then (when asked) both tracks, streamed sample by sample. */
-function* answerChunks(head: Omit<TwoBodyAnswer, 'tracks'>, tracks: Tracks | null): Generator<string> {
+function* answerChunks(head: Omit<TwoBodyAnswer, 'tracks'>, tracks: Tracks | null): Generator<string | Buffer> {
   if (!tracks) {
     yield JSON.stringify({ ...head, tracks: null });
     return;

@@ -16,8 +16,8 @@ export const TRACK_FRAMES = ['gcrf', 'itrf', 'geodetic'] as const;
 
 export const ObjectLabel = z
   .object({
-    name: z.string().min(1).max(80).regex(/^[^\r\n]+$/).default('UNNAMED').describe('Object name (OEM OBJECT_NAME)'),
-    id: z.string().min(1).max(80).regex(/^[^\r\n]+$/).default('UNKNOWN').describe('Object identifier (OEM OBJECT_ID)'),
+    name: z.string().min(1).max(80).regex(/^[\x20-\x7e]+$/, 'printable ASCII only (a CCSDS KVN value)').default('UNNAMED').describe('Object name (OEM OBJECT_NAME), printable ASCII'),
+    id: z.string().min(1).max(80).regex(/^[\x20-\x7e]+$/, 'printable ASCII only (a CCSDS KVN value)').default('UNKNOWN').describe('Object identifier (OEM OBJECT_ID), printable ASCII'),
   })
   .strict()
   .default({ name: 'UNNAMED', id: 'UNKNOWN' });

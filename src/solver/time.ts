@@ -120,12 +120,22 @@ export function parseUtcIso(text: string): Outcome<number> {
 const pad = (n: number, width = 2): string => String(n).padStart(width, '0');
 const TWO_DIGITS = Array.from({ length: 61 }, (_, i) => pad(i));
 
+/** An epoch split for printing: "YYYY-MM-DDT" and the clock fields (second 60 inside a leap second). */
+export interface UtcFields {
+  datePrefix: string;
+  hour: number;
+  minute: number;
+  second: number;
+  /** Fractional second in units of 10^-fractionDigits s. */
+  fraction: number;
+}
+
 /**
- * A formatter of TT seconds since J2000 as ISO 8601 UTC with a fixed number of fractional digits
- * (0-9), rounding half up. It keeps the UTC day of the previous call, so formatting a track's
- * sorted epochs costs a few integer operations per sample. Same text as formatUtcIso.
+ * A splitter of TT seconds since J2000 into UTC fields, rounded half up to `fractionDigits` (0-9).
+ * It keeps the UTC day of the previous call, so a track's sorted epochs cost a few integer
+ * operations each. Writes into `out` (no allocation per call).
  */
-export function utcFormatter(fractionDigits = 3): (tt: number) => string {
+export function utcSplitter(fractionDigits = 3): (tt: number, out: UtcFields) => void {
   if (!(Number.isInteger(fractionDigits) && fractionDigits >= 0 && fractionDigits <= 9)) {
     throw new RangeError(`fractionDigits must be an integer 0-9, got ${fractionDigits}`);
   }
@@ -146,26 +156,41 @@ export function utcFormatter(fractionDigits = 3): (tt: number) => string {
     nextPrefix = `${pad(n.year, 4)}-${TWO_DIGITS[n.month]}-${TWO_DIGITS[n.day]}T`;
   };
 
-  return (tt: number): string => {
+  return (tt: number, out: UtcFields): void => {
     if (!(tt >= dayStartTT && tt < nextDayStartTT)) enterDay(utcFromTt(tt).utcDay);
     let units = Math.round((tt - dayStartTT) * unitsPerSecond);
-    let datePart = prefix;
+    out.datePrefix = prefix;
     if (units >= dayLengthUnits) {
       // Rounded up into the next day.
       units -= dayLengthUnits;
-      datePart = nextPrefix;
+      out.datePrefix = nextPrefix;
     }
     const wholeSeconds = Math.floor(units / unitsPerSecond);
-    const fraction = units - wholeSeconds * unitsPerSecond;
-    let clock: string;
-    if (wholeSeconds >= SECONDS_PER_DAY) clock = '23:59:60'; // inside a leap second
-    else {
-      const hh = Math.floor(wholeSeconds / 3600);
-      const rest = wholeSeconds - hh * 3600;
-      const mm = Math.floor(rest / 60);
-      clock = `${TWO_DIGITS[hh]}:${TWO_DIGITS[mm]}:${TWO_DIGITS[rest - mm * 60]}`;
+    out.fraction = units - wholeSeconds * unitsPerSecond;
+    if (wholeSeconds >= SECONDS_PER_DAY) {
+      // Inside a leap second.
+      out.hour = 23;
+      out.minute = 59;
+      out.second = 60;
+    } else {
+      out.hour = Math.floor(wholeSeconds / 3600);
+      const rest = wholeSeconds - out.hour * 3600;
+      out.minute = Math.floor(rest / 60);
+      out.second = rest - out.minute * 60;
     }
-    return fractionDigits > 0 ? `${datePart}${clock}.${String(fraction).padStart(fractionDigits, '0')}Z` : `${datePart}${clock}Z`;
+  };
+}
+
+export const newUtcFields = (): UtcFields => ({ datePrefix: '', hour: 0, minute: 0, second: 0, fraction: 0 });
+
+/** A formatter of TT seconds since J2000 as ISO 8601 UTC with a fixed number of fractional digits (0-9). */
+export function utcFormatter(fractionDigits = 3): (tt: number) => string {
+  const split = utcSplitter(fractionDigits);
+  const f = newUtcFields();
+  return (tt: number): string => {
+    split(tt, f);
+    const clock = `${f.datePrefix}${TWO_DIGITS[f.hour]}:${TWO_DIGITS[f.minute]}:${TWO_DIGITS[f.second]}`;
+    return fractionDigits > 0 ? `${clock}.${String(f.fraction).padStart(fractionDigits, '0')}Z` : `${clock}Z`;
   };
 }
 

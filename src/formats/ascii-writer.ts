@@ -1,0 +1,145 @@
+// Writes ASCII text straight into fixed-size byte chunks: numbers and epochs are turned into
+// digits once, in place, with no intermediate string per sample. The formatters of big answers
+// (CSV, OEM, JSON tracks) write through it and yield each full chunk.
+import { newUtcFields, utcSplitter, type UtcFields } from '../solver/time.js';
+import { fixed } from './track-table.js';
+
+const ZERO = 48;
+/** "00".."99" as byte pairs: two digits per division. */
+const PAIRS = Uint8Array.from({ length: 200 }, (_, i) => ZERO + (i & 1 ? (i >> 1) % 10 : Math.floor((i >> 1) / 10)));
+const INT32_LIMIT = 2_147_483_648;
+const SCALES = Array.from({ length: 21 }, (_, i) => 10 ** i);
+
+export class AsciiWriter {
+  readonly #chunkBytes: number;
+  #buf: Buffer;
+  #pos = 0;
+  readonly #digits = new Uint8Array(24);
+  readonly #split: (tt: number, out: UtcFields) => void;
+  readonly #fields = newUtcFields();
+  readonly #fractionDigits: number;
+  #prefixText = '';
+  #prefixBytes = Buffer.alloc(0);
+
+  constructor(epochFractionDigits = 3, chunkBytes = 65_536) {
+    this.#chunkBytes = chunkBytes;
+    this.#buf = Buffer.allocUnsafe(chunkBytes);
+    this.#fractionDigits = epochFractionDigits;
+    this.#split = utcSplitter(epochFractionDigits);
+  }
+
+  /** Bytes written and not yet taken. */
+  get size(): number {
+    return this.#pos;
+  }
+
+  /** True once the current chunk is full enough to be taken (leaves room for one long line). */
+  get full(): boolean {
+    return this.#pos >= this.#chunkBytes - 1024;
+  }
+
+  /** The bytes written so far (a new buffer is started). */
+  take(): Buffer {
+    const out = this.#buf.subarray(0, this.#pos);
+    this.#buf = Buffer.allocUnsafe(this.#chunkBytes);
+    this.#pos = 0;
+    return out;
+  }
+
+  #room(n: number): void {
+    if (this.#pos + n <= this.#buf.length) return;
+    const bigger = Buffer.allocUnsafe(Math.max(this.#buf.length * 2, this.#pos + n));
+    this.#buf.copy(bigger, 0, 0, this.#pos);
+    this.#buf = bigger;
+  }
+
+  /** ASCII text (callers pass ASCII only: JSON they have escaped, keywords, separators). */
+  text(s: string): this {
+    this.#room(s.length);
+    for (let i = 0; i < s.length; i++) this.#buf[this.#pos++] = s.charCodeAt(i);
+    return this;
+  }
+
+  /** One ASCII character by code. */
+  char(code: number): this {
+    this.#room(1);
+    this.#buf[this.#pos++] = code;
+    return this;
+  }
+
+  /** A non-negative integer below 2^53, with at least `width` digits (zero-padded); room already reserved. */
+  #integer(n: number, width: number): void {
+    const d = this.#digits;
+    let k = 0;
+    // Above 2^31: peel off digits in floating point until int32 arithmetic can take over.
+    while (n >= INT32_LIMIT) {
+      const q = Math.floor(n / 10);
+      d[k++] = ZERO + (n - q * 10);
+      n = q;
+    }
+    let m = n | 0;
+    while (m >= 100) {
+      const q = (m / 100) | 0;
+      const r = (m - q * 100) << 1;
+      d[k++] = PAIRS[r + 1]!;
+      d[k++] = PAIRS[r]!;
+      m = q;
+    }
+    if (m >= 10) {
+      d[k++] = PAIRS[(m << 1) + 1]!;
+      d[k++] = PAIRS[m << 1]!;
+    } else {
+      d[k++] = ZERO + m;
+    }
+    while (k < width) d[k++] = ZERO;
+    const buf = this.#buf;
+    let pos = this.#pos;
+    while (k > 0) buf[pos++] = d[--k]!;
+    this.#pos = pos;
+  }
+
+  /** The same text as fixed(value, decimals) from track-table.ts. */
+  fixed(value: number, decimals: number): this {
+    const scale = SCALES[decimals]!;
+    const magnitude = Math.abs(value) * scale;
+    // Same fast path and tie guard as fixed(); anything else goes through it.
+    if (magnitude < 9e15 && Math.abs(magnitude - Math.floor(magnitude) - 0.5) > 1e-6) {
+      this.#room(40);
+      const scaled = Math.round(magnitude);
+      if (value < 0 && scaled !== 0) this.#buf[this.#pos++] = 45;
+      const whole = Math.floor(scaled / scale);
+      this.#integer(whole, 1);
+      if (decimals > 0) {
+        this.#buf[this.#pos++] = 46;
+        this.#integer(scaled - whole * scale, decimals);
+      }
+      return this;
+    }
+    return this.text(fixed(value, decimals));
+  }
+
+  /** An epoch as ISO 8601 UTC, with or without the trailing Z. */
+  utc(tt: number, zone = true): this {
+    const f = this.#fields;
+    this.#split(tt, f);
+    if (f.datePrefix !== this.#prefixText) {
+      this.#prefixText = f.datePrefix;
+      this.#prefixBytes = Buffer.from(f.datePrefix, 'latin1');
+    }
+    this.#room(this.#prefixBytes.length);
+    this.#prefixBytes.copy(this.#buf, this.#pos);
+    this.#pos += this.#prefixBytes.length;
+    this.#room(24);
+    this.#integer(f.hour, 2);
+    this.#buf[this.#pos++] = 58;
+    this.#integer(f.minute, 2);
+    this.#buf[this.#pos++] = 58;
+    this.#integer(f.second, 2);
+    if (this.#fractionDigits > 0) {
+      this.#buf[this.#pos++] = 46;
+      this.#integer(f.fraction, this.#fractionDigits);
+    }
+    if (zone) this.#buf[this.#pos++] = 90;
+    return this;
+  }
+}

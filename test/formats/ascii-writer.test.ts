@@ -1,0 +1,43 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { AsciiWriter } from '../../src/formats/ascii-writer.js';
+import { fixed } from '../../src/formats/track-table.js';
+import { formatUtcIso, parseUtcIso } from '../../src/solver/time.js';
+
+const written = (write: (w: AsciiWriter) => void, digits = 3): string => {
+  const w = new AsciiWriter(digits, 128);
+  write(w);
+  return w.take().toString('latin1');
+};
+
+describe('AsciiWriter', () => {
+  it('writes numbers exactly as fixed() prints them (toFixed text), above and below 2^31 and near ties', () => {
+    fc.assert(fc.property(fc.double({ min: -1e12, max: 1e12, noNaN: true }), fc.integer({ min: 0, max: 12 }), (x, d) => written((w) => w.fixed(x, d)) === fixed(x, d)), { numRuns: 20_000 });
+    for (const x of [0, -0, 2147483647.5, 2147483648.25, -9.9999999995, 0.1851851835, 1e20, -1e-30]) {
+      for (const d of [0, 3, 6, 9]) expect(written((w) => w.fixed(x, d)), `${x} ${d}`).toBe(fixed(x, d));
+    }
+  });
+
+  it('writes epochs exactly as formatUtcIso, leap second included', () => {
+    // Across the leap second 2016-12-31T23:59:60 (IERS Bulletin C 52).
+    const parsed = parseUtcIso('2016-12-31T23:59:58Z');
+    if (!parsed.ok) throw new Error(parsed.message);
+    const leap = parsed.value;
+    fc.assert(fc.property(fc.double({ min: -8e8, max: 3e9, noNaN: true }), fc.integer({ min: 0, max: 9 }), (t, d) => written((w) => w.utc(t), d) === formatUtcIso(t, d)));
+    const seen = new Set<string>();
+    for (let t = leap; t < leap + 4; t += 0.25) {
+      const text = written((w) => w.utc(t));
+      expect(text).toBe(formatUtcIso(t));
+      seen.add(text.slice(11, 19));
+    }
+    expect([...seen]).toEqual(['23:59:58', '23:59:59', '23:59:60', '00:00:00']);
+  });
+
+  it('grows past its chunk size rather than dropping bytes, and hands out each chunk once', () => {
+    const w = new AsciiWriter(3, 16);
+    for (let i = 0; i < 10; i++) w.fixed(123456.789, 6).char(44);
+    const text = w.take().toString('latin1');
+    expect(text).toBe('123456.789000,'.repeat(10));
+    expect(w.size).toBe(0);
+  });
+});
