@@ -226,7 +226,7 @@ export function effectivePotentialSvg(analysis: CentralForceAnalysis, opts: SvgP
       marks.push(`<path d="M${px(x)},${px(y - 6)}L${px(x + 5)},${px(y)}L${px(x)},${px(y + 6)}L${px(x - 5)},${px(y)}Z" fill="${COLOURS.energy}"/>`);
       marks.push(`<path d="M${px(x)},${px(y + 6)}V${TOP + PLOT_H}" stroke="${COLOURS.energy}" stroke-width="0.8" stroke-dasharray="2 3"/>`);
     }
-    marks.push(`<text x="${LEFT + PLOT_W - 6}" y="${px(sy(analysis.energy) - 6)}" text-anchor="end" fill="${COLOURS.energy}">E = ${esc(formatValue(analysis.energy))}</text>`);
+    marks.push(`<text x="${LEFT + 6}" y="${px(sy(analysis.energy) - 6)}" text-anchor="start" fill="${COLOURS.energy}">E = ${esc(formatValue(analysis.energy))}</text>`);
   }
   for (const c of analysis.circularOrbits) {
     if (!inX(c.radius) || !inY(c.energy)) continue;
