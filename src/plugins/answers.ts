@@ -91,30 +91,31 @@ export default fp(async function answers(app: FastifyInstance, opts: AnswersOpti
     return Readable.from(bytes(), { objectMode: false });
   }
 
+  /** 304 when the client holds it, stored bytes when cached, else `compute`. */
+  async function lookup(request: FastifyRequest, reply: FastifyReply, kind: ScenarioKind, scenario: unknown, compute: (hash: string) => Promise<FastifyReply>): Promise<FastifyReply> {
+    const hash = scenarioHash(kind, scenario);
+    if (ifNoneMatchHits(request.headers['if-none-match'], hash)) {
+      return reply.code(304).header('etag', etagOf(hash)).send();
+    }
+    const stored = await cache.get(hash);
+    if (stored) return sendStored(request, reply, hash, stored, 'hit');
+    return compute(hash);
+  }
+
   const service: AnswerService = {
     cache,
     sendStored,
-    async respond(request, reply, kind, scenario, produce) {
-      const hash = scenarioHash(kind, scenario);
-      if (ifNoneMatchHits(request.headers['if-none-match'], hash)) {
-        return reply.code(304).header('etag', etagOf(hash)).send();
-      }
-      const stored = await cache.get(hash);
-      if (stored) return sendStored(request, reply, hash, stored, 'hit');
-      const answer = await produce(hash);
-      await cache.set(hash, answer);
-      return sendStored(request, reply, hash, answer, 'miss');
-    },
-    async respondStream(request, reply, kind, scenario, produce) {
-      const hash = scenarioHash(kind, scenario);
-      if (ifNoneMatchHits(request.headers['if-none-match'], hash)) {
-        return reply.code(304).header('etag', etagOf(hash)).send();
-      }
-      const stored = await cache.get(hash);
-      if (stored) return sendStored(request, reply, hash, stored, 'hit');
-      const answer = await produce(hash);
-      return headers(reply, hash, 'miss', answer.contentType).send(streamAndStore(hash, answer));
-    },
+    respond: (request, reply, kind, scenario, produce) =>
+      lookup(request, reply, kind, scenario, async (hash) => {
+        const answer = await produce(hash);
+        await cache.set(hash, answer);
+        return sendStored(request, reply, hash, answer, 'miss');
+      }),
+    respondStream: (request, reply, kind, scenario, produce) =>
+      lookup(request, reply, kind, scenario, async (hash) => {
+        const answer = await produce(hash);
+        return headers(reply, hash, 'miss', answer.contentType).send(streamAndStore(hash, answer));
+      }),
   };
   app.decorate('answers', service);
   app.addHook('onClose', async () => cache.close());
