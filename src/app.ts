@@ -4,6 +4,7 @@ import { serializerCompiler, validatorCompiler, type ZodTypeProvider } from 'fas
 import { defaultConfig, type Config } from './config.js';
 import { MemoryCache } from './cache/memory.js';
 import type { AnswerCache } from './cache/types.js';
+import { RedisCache, TieredCache } from './cache/redis.js';
 import problems from './plugins/problems.js';
 import openapi from './plugins/openapi.js';
 import answers from './plugins/answers.js';
@@ -25,6 +26,12 @@ export interface BuildOptions {
   cache?: AnswerCache;
 }
 
+/** The in-process LRU, with the shared Redis tier behind it when REDIS_URL is set. */
+function answerCache(config: Config): AnswerCache {
+  const local = new MemoryCache(config.CACHE_MAX_BYTES);
+  return config.REDIS_URL ? new TieredCache(local, new RedisCache(config.REDIS_URL)) : local;
+}
+
 export async function buildApp(options: BuildOptions = {}): Promise<FastifyInstance> {
   const config: Config = { ...defaultConfig(), ...options.config };
   const app = Fastify({
@@ -42,7 +49,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   await app.register(problems);
   await app.register(openapi);
   await app.register(answers, {
-    cache: options.cache ?? new MemoryCache(config.CACHE_MAX_BYTES),
+    cache: options.cache ?? answerCache(config),
     maxStoredBytes: Math.floor(config.CACHE_MAX_BYTES / 4),
   });
   await app.register(metrics);
