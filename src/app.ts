@@ -9,6 +9,7 @@ import problems from './plugins/problems.js';
 import openapi from './plugins/openapi.js';
 import answers from './plugins/answers.js';
 import metrics from './plugins/metrics.js';
+import pool from './plugins/pool.js';
 import health from './routes/health.js';
 import bodies from './routes/bodies.js';
 import orbit from './routes/orbit.js';
@@ -53,6 +54,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
     maxStoredBytes: Math.floor(config.CACHE_MAX_BYTES / 4),
   });
   await app.register(metrics);
+  await app.register(pool);
 
   await app.register(health);
   await app.register(bodies);

@@ -1,4 +1,5 @@
 // Environment parsed once at start. A bad value stops the start with a message naming it.
+import { availableParallelism } from 'node:os';
 import { z } from 'zod';
 
 const int = (def: number, min: number, max: number) => z.coerce.number().int().min(min).max(max).default(def);
@@ -10,6 +11,8 @@ export const Config = z.object({
   CACHE_MAX_BYTES: int(64 * 1024 * 1024, 0, 16 * 1024 ** 3).describe('Bound of the in-process answer cache, bytes (0 disables it)'),
   BODY_LIMIT_BYTES: int(1024 * 1024, 1024, 64 * 1024 * 1024).describe('Largest accepted request body, bytes'),
   MAX_TRACK_SAMPLES: int(100_000, 1, 10_000_000).describe('Largest number of samples in one track'),
+  WORKER_THREADS: int(Math.max(1, availableParallelism() - 1), 1, 256).describe('Solver worker threads for heavy jobs (default: available parallelism minus one, at least 1)'),
+  WORKER_QUEUE_LIMIT: int(64, 0, 100_000).describe('Heavy jobs that may wait for a worker thread; beyond it requests answer 503 overloaded with Retry-After'),
   REDIS_URL: z.string().url().optional().describe('Shared Redis for the cache tier and job queue; unset = embedded only'),
 });
 export type Config = z.infer<typeof Config>;

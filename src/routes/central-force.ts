@@ -16,8 +16,6 @@ import {
   toCentralForceAnswer,
 } from '../schemas/central-force.js';
 import { problemResponses } from '../schemas/common.js';
-import { radialTrack } from '../solver/radial-track.js';
-import { analyseCentralForce } from '../solver/radial.js';
 
 const OVERFLOW = 'the numbers overflow double precision (or lose all meaning) for this input: rescale the units';
 
@@ -48,14 +46,26 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
     // The track's start defaults by the input form; filled here so that both spellings hash alike.
     const track = req.track ? { ...req.track, start: req.track.start ?? (req.initial ? 'initial' as const : 'periapsis' as const) } : undefined;
     const scenario = { ...req, format, ...(track ? { track } : {}) };
-    return app.answers.respond(request, reply, 'central-force', scenario, (hash) => {
+    return app.answers.respond(request, reply, 'central-force', scenario, async (hash) => {
       const problem = centralForceProblem(req);
       if (!problem.ok) throw solverProblem(problem);
-      const analysis = analyseCentralForce(problem.value, {
-        samples: req.samples,
-        ...(req.rMin !== undefined ? { rMin: req.rMin } : {}),
-        ...(req.rMax !== undefined ? { rMax: req.rMax } : {}),
+      const max = app.config.MAX_TRACK_SAMPLES;
+      // One job: the analysis, then the track when the answer carries one (JSON, within the sample
+      // limit). A job with a track runs on a worker thread. Failures are reported in the order
+      // below: analysis, then the sample limit, then the track.
+      const solved = await app.pool.solve({
+        kind: 'central-force',
+        problem: problem.value,
+        options: {
+          samples: req.samples,
+          ...(req.rMin !== undefined ? { rMin: req.rMin } : {}),
+          ...(req.rMax !== undefined ? { rMax: req.rMax } : {}),
+        },
+        track: track && format === 'json' && track.samples <= max
+          ? { samples: track.samples, start: track.start, ...(track.periods !== undefined ? { periods: track.periods } : { duration: track.duration! }) }
+          : null,
       });
+      const analysis = solved.analysis;
       if (!analysis.ok) throw solverProblem(analysis);
 
       if (format === 'svg') {
@@ -65,13 +75,9 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
 
       let solvedTrack = null;
       if (track) {
-        const max = app.config.MAX_TRACK_SAMPLES;
         if (track.samples > max) throw new ProblemError('too-many-samples', `${track.samples} track samples asked; the maximum is ${max}`);
-        const run = radialTrack(problem.value, analysis.value, {
-          samples: track.samples,
-          start: track.start,
-          ...(track.periods !== undefined ? { periods: track.periods } : { duration: track.duration! }),
-        });
+        const run = solved.track;
+        if (run === null) throw new Error('the central-force job returned no track although one was asked');
         if (!run.ok) throw solverProblem(run);
         solvedTrack = { start: track.start, value: run.value };
       }

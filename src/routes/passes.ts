@@ -6,11 +6,10 @@ import { DEG_PER_RAD, RAD_PER_DEG, epochTT, problemResponses } from '../schemas/
 import { resolveBody } from '../schemas/body.js';
 import { initialState } from '../schemas/initial-state.js';
 import { PassesAnswer, PassesRequest } from '../schemas/passes.js';
-import { findPasses, type Pass } from '../solver/passes.js';
+import type { Pass } from '../solver/passes.js';
 import { formatUtcIso } from '../solver/time.js';
 import { dopplerShift } from '../solver/topocentric.js';
 import { propagateTrack } from '../solver/track.js';
-import { propagate } from '../solver/universal.js';
 
 const passes: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/passes', {
@@ -26,7 +25,7 @@ const passes: FastifyPluginAsyncZod = async (app) => {
   }, async (request, reply) => {
     const req = request.body;
     if (req.centralBody !== 'earth') throw new ProblemError('unsupported-frame', 'ground-station passes need the built-in centralBody "earth"');
-    return app.answers.respond(request, reply, 'passes', req, (hash) => {
+    return app.answers.respond(request, reply, 'passes', req, async (hash) => {
       const body = resolveBody(req.centralBody);
       const start = initialState(body, req);
       if (!start.ok) throw solverProblem(start);
@@ -36,8 +35,14 @@ const passes: FastifyPluginAsyncZod = async (app) => {
       // The same surface check as /v1/track, over the whole window.
       const surface = propagateTrack({ body, model: req.model, r0, v0, epochTT: orbitEpochTT, epochsTT: Float64Array.of(startTT, stopTT) });
       if (!surface.ok) throw solverProblem(surface);
-      const found = findPasses({
-        stateAt: (tt) => propagate(r0, v0, body.gm, tt - orbitEpochTT),
+      // The search runs on a worker thread unless the window and station list are small; the
+      // two-body propagator is rebuilt there from this state.
+      const found = await app.pool.solve({
+        kind: 'passes',
+        gm: body.gm,
+        r0,
+        v0,
+        epochTT: orbitEpochTT,
         startTT,
         stopTT,
         stations: req.stations.map((s) => ({

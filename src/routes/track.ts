@@ -10,12 +10,10 @@ import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../schemas/body.js';
 import { DEG_PER_RAD, problemResponses } from '../schemas/common.js';
 import type { CentralBody } from '../solver/bodies.js';
-import { gcrfToItrfBatch } from '../solver/frames.js';
-import { geodeticBatch } from '../solver/geodetic.js';
 import { initialState } from '../schemas/initial-state.js';
 import { gridEpochs } from '../schemas/grid.js';
 import { TRACK_FORMATS, TrackAnswer, TrackRequest } from '../schemas/track.js';
-import { propagateTrack, type Track } from '../solver/track.js';
+import type { Track } from '../solver/track.js';
 
 /** Increasing order without repeats (an OEM needs strictly increasing epochs). */
 function increasing(epochs: Float64Array): Float64Array {
@@ -36,9 +34,8 @@ const GEODETIC_FIELDS = [
   { key: 'height', from: 2, count: 1, decimals: 6 },
 ];
 
-/** WGS-84 latitude, longitude (deg) and height (km) of Earth-fixed states: radians to degrees at the edge. */
-function geodeticDegrees(itrfStates: Float64Array): Float64Array {
-  const g = geodeticBatch(itrfStates);
+/** WGS-84 latitude, longitude (rad -> deg, in place) and height (km): radians to degrees at the edge. */
+function geodeticDegrees(g: Float64Array): Float64Array {
   for (let i = 0; i < g.length; i += 3) {
     g[i] = g[i]! * DEG_PER_RAD;
     g[i + 1] = g[i + 1]! * DEG_PER_RAD;
@@ -92,20 +89,29 @@ const track: FastifyPluginAsyncZod = async (app) => {
         angularMomentumRelativeDrift: inertial.drift.angularMomentumVector,
       },
     });
-    return app.answers.respondStream(request, reply, 'track', { ...req, format }, (hash) => {
+    return app.answers.respondStream(request, reply, 'track', { ...req, format }, async (hash) => {
       const body = resolveBody(req.centralBody);
       const start = initialState(body, req);
       if (!start.ok) throw solverProblem(start);
-      let epochsTT = gridEpochs(req.grid, app.config.MAX_TRACK_SAMPLES);
-      if (format === 'oem') epochsTT = increasing(epochsTT);
-      const result = propagateTrack({ body, model: req.model, r0: start.value.r, v0: start.value.v, epochTT: start.value.epochTT, epochsTT, passThroughBody: req.passThroughBody });
-      if (!result.ok) throw solverProblem(result);
-      const inertial: Track = result.value;
+      let grid = gridEpochs(req.grid, app.config.MAX_TRACK_SAMPLES);
+      if (format === 'oem') grid = increasing(grid);
       const earthFixed = req.frame !== 'gcrf' || format === 'geojson';
-      const states = earthFixed ? gcrfToItrfBatch(inertial.epochsTT, inertial.states, { dut1: req.ut1MinusUtc }) : inertial.states;
-      const table = { epochsTT: inertial.epochsTT, states };
-      if (req.frame === 'geodetic' || format === 'geojson') {
-        const geodetic = geodeticDegrees(states);
+      const wantGeodetic = req.frame === 'geodetic' || format === 'geojson';
+      // Propagation and frame conversion run on a worker thread for long grids (the grid's buffer
+      // moves there and comes back as inertial.epochsTT); formatting stays here, in chunks.
+      const result = await app.pool.solve({
+        kind: 'track',
+        input: { body, model: req.model, r0: start.value.r, v0: start.value.v, epochTT: start.value.epochTT, epochsTT: grid, passThroughBody: req.passThroughBody },
+        earthFixed: earthFixed ? { dut1: req.ut1MinusUtc } : null,
+        geodetic: wantGeodetic,
+      });
+      if (!result.ok) throw solverProblem(result);
+      const inertial: Track = result.value.track;
+      const epochsTT = inertial.epochsTT;
+      const states = result.value.earthFixed ?? inertial.states;
+      const table = { epochsTT, states };
+      if (wantGeodetic) {
+        const geodetic = geodeticDegrees(result.value.geodetic!);
         if (format === 'geojson') {
           const samples = Array.from(epochsTT, (t, i) => ({ tt: t, latitudeDeg: geodetic[3 * i]!, longitudeDeg: geodetic[3 * i + 1]!, heightKm: geodetic[3 * i + 2]! }));
           return { contentType: GEOJSON_MEDIA_TYPE, chunks: groundTrackGeoJson(samples, { name: req.object.name, includeHeight: true }) };

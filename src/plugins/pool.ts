@@ -1,0 +1,47 @@
+// app.pool: the solver pool (src/workers/pool.ts) shared by the solving routes. Small jobs run
+// inline, heavy ones in worker threads; a full queue answers 503 overloaded with Retry-After.
+// Threads start when the server listens (tests that inject start them on the first heavy job)
+// and stop on close, after the jobs in hand finish.
+import fp from 'fastify-plugin';
+import type { FastifyInstance } from 'fastify';
+import { ProblemError } from '../errors.js';
+import type { Job, JobResult } from '../workers/jobs.js';
+import { PoolOverloadedError, SolverPool, type PoolStats } from '../workers/pool.js';
+
+/** Seconds a refused client is asked to wait (Retry-After). */
+export const RETRY_AFTER_S = 2;
+
+export interface PoolService {
+  /** Solve a job inline or on a worker thread; ProblemError('overloaded') when the queue is full. */
+  solve<J extends Job>(job: J): Promise<JobResult<J>>;
+  stats(): PoolStats;
+}
+
+declare module 'fastify' {
+  interface FastifyInstance {
+    pool: PoolService;
+  }
+}
+
+export default fp(async function pool(app: FastifyInstance) {
+  const solver = new SolverPool({ threads: app.config.WORKER_THREADS, queueLimit: app.config.WORKER_QUEUE_LIMIT });
+  const service: PoolService = {
+    async solve(job) {
+      try {
+        return await solver.solve(job);
+      } catch (error) {
+        if (error instanceof PoolOverloadedError) {
+          throw new ProblemError('overloaded', `${error.message}; retry after ${RETRY_AFTER_S} s`, { headers: { 'retry-after': String(RETRY_AFTER_S) } });
+        }
+        throw error;
+      }
+    },
+    stats: () => solver.stats(),
+  };
+  app.decorate('pool', service);
+  app.addHook('onListen', async () => {
+    solver.start();
+    app.log.info({ threads: app.config.WORKER_THREADS, queueLimit: app.config.WORKER_QUEUE_LIMIT }, 'solver pool started');
+  });
+  app.addHook('onClose', async () => solver.close());
+}, { name: 'pool' });

@@ -1,0 +1,284 @@
+// The heavy work of the service as jobs: a payload in, a result out. The same runJob() answers a
+// small job inline on the main thread and a heavy one in a worker thread (src/workers/worker.ts),
+// so both paths give the same numbers. Payloads and results are structured-clone friendly
+// (plain objects, numbers, strings, Float64Array): closures cannot cross threads, so a job
+// carries the data a propagator is rebuilt from. Between threads, results travel in a wire form
+// whose bulk is Float64Array buffers that are transferred, not copied (toWire / fromWire).
+// Imports the solver only.
+
+import { gcrfToItrfBatch } from '../solver/frames.js';
+import { geodeticBatch } from '../solver/geodetic.js';
+import { findPasses, type Pass, type PassSearchOptions, type PassSearchResult, type PassStation, type PointingSample } from '../solver/passes.js';
+import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest } from '../solver/radial-track.js';
+import { analyseCentralForce, type AnalysisOptions, type CentralForceAnalysis, type CentralForceProblem, type PotentialSample } from '../solver/radial.js';
+import { success, type Outcome } from '../solver/result.js';
+import { propagateTrack, type Track, type TrackInput } from '../solver/track.js';
+import { propagate } from '../solver/universal.js';
+import type { Vec3 } from '../solver/vec3.js';
+
+// Size thresholds: below them a job runs inline (a few ms to a few tens of ms, measured on the
+// two-core development machine), at or above them in a worker thread.
+/** Tracks with fewer samples than this run inline (2000 two-body samples + ITRF + geodetic: ~10-30 ms). */
+export const INLINE_TRACK_SAMPLES = 2000;
+/** Pass searches run inline when the window is at most this long, s ... */
+export const INLINE_PASS_WINDOW_S = 86_400;
+/** ... with at most this many stations and no pointing track (1 day x 4 stations: ~20-35 ms). */
+export const INLINE_PASS_STATIONS = 4;
+// Central-force analyses without a track run inline (10 000 potential samples: ~10 ms); any track
+// goes to a worker, since its cost follows the integrated span (up to the 200 000-step limit), not
+// the sample count.
+
+/**
+ * Propagate a track and, when asked, convert it to Earth-fixed and geodetic coordinates. The
+ * input is propagateTrack's own (plain data); its epochsTT buffer is transferred to the worker,
+ * so the sender's array is empty afterwards (the result carries it back).
+ */
+export interface TrackJob {
+  readonly kind: 'track';
+  readonly input: TrackInput;
+  /** Also rotate the states to ITRF with this UT1 - UTC (s); null: inertial only. */
+  readonly earthFixed: { readonly dut1: number } | null;
+  /** Also WGS-84 latitude, longitude (rad) and height (km) of the ITRF states; needs earthFixed. */
+  readonly geodetic: boolean;
+}
+
+export interface TrackJobResult {
+  /** The inertial track (its epochsTT is the job's array, returned). */
+  readonly track: Track;
+  /** ITRF states, 6 per sample; null unless asked. */
+  readonly earthFixed: Float64Array | null;
+  /** Latitude, longitude (rad), height (km), 3 per sample; null unless asked. */
+  readonly geodetic: Float64Array | null;
+}
+
+/** A whole pass search on a two-body orbit; the propagator is rebuilt from the state and gm. */
+export interface PassesJob {
+  readonly kind: 'passes';
+  /** km^3/s^2. */
+  readonly gm: number;
+  /** GCRF state (km, km/s) at epochTT. */
+  readonly r0: Vec3;
+  readonly v0: Vec3;
+  readonly epochTT: number;
+  readonly startTT: number;
+  readonly stopTT: number;
+  readonly stations: readonly PassStation[];
+  readonly options: PassSearchOptions;
+}
+
+/** Effective-potential analysis and, when asked, the track r(t), phi(t). */
+export interface CentralForceJob {
+  readonly kind: 'central-force';
+  readonly problem: CentralForceProblem;
+  readonly options: AnalysisOptions;
+  /** null: no track (it is then not computed even when the analysis succeeds). */
+  readonly track: RadialTrackRequest | null;
+}
+
+export interface CentralForceJobResult {
+  readonly analysis: Outcome<CentralForceAnalysis>;
+  /** null when no track was asked or the analysis failed. */
+  readonly track: Outcome<RadialTrack> | null;
+}
+
+interface JobTypes {
+  track: { job: TrackJob; result: Outcome<TrackJobResult> };
+  passes: { job: PassesJob; result: Outcome<PassSearchResult> };
+  'central-force': { job: CentralForceJob; result: CentralForceJobResult };
+}
+export type JobKind = keyof JobTypes;
+export type Job = JobTypes[JobKind]['job'];
+export type JobResult<J extends Job> = JobTypes[J['kind']]['result'];
+
+/** True when the job is small enough to run on the main thread (see the thresholds above). */
+export function runsInline(job: Job): boolean {
+  switch (job.kind) {
+    case 'track':
+      return job.input.epochsTT.length < INLINE_TRACK_SAMPLES;
+    case 'passes':
+      return job.stopTT - job.startTT <= INLINE_PASS_WINDOW_S && job.stations.length <= INLINE_PASS_STATIONS && job.options.pointingStepS === undefined;
+    case 'central-force':
+      return job.track === null;
+  }
+}
+
+/** Run a job here and now. Expected failures are Outcome values; programmer errors throw. */
+export function runJob<J extends Job>(job: J): JobResult<J> {
+  const j: Job = job;
+  switch (j.kind) {
+    case 'track':
+      return runTrack(j) as JobResult<J>;
+    case 'passes':
+      return runPasses(j) as JobResult<J>;
+    case 'central-force':
+      return runCentralForce(j) as JobResult<J>;
+    default:
+      throw new TypeError(`unknown job kind ${(j as { kind: unknown }).kind}`);
+  }
+}
+
+function runTrack(job: TrackJob): Outcome<TrackJobResult> {
+  if (job.geodetic && !job.earthFixed) throw new TypeError('a geodetic track needs earthFixed');
+  const run = propagateTrack(job.input);
+  if (!run.ok) return run;
+  const earthFixed = job.earthFixed ? gcrfToItrfBatch(run.value.epochsTT, run.value.states, { dut1: job.earthFixed.dut1 }) : null;
+  const geodetic = job.geodetic && earthFixed ? geodeticBatch(earthFixed) : null;
+  return success({ track: run.value, earthFixed, geodetic });
+}
+
+function runPasses(job: PassesJob): Outcome<PassSearchResult> {
+  const { gm, r0, v0, epochTT } = job;
+  return findPasses({
+    stateAt: (tt) => propagate(r0, v0, gm, tt - epochTT),
+    startTT: job.startTT,
+    stopTT: job.stopTT,
+    stations: job.stations,
+    options: job.options,
+  });
+}
+
+function runCentralForce(job: CentralForceJob): CentralForceJobResult {
+  const analysis = analyseCentralForce(job.problem, job.options);
+  if (!analysis.ok || job.track === null) return { analysis, track: null };
+  return { analysis, track: radialTrack(job.problem, analysis.value, job.track) };
+}
+
+// ---- Between threads ------------------------------------------------------------------------
+// Arrays of many small objects are slow to clone (each object is serialised field by field), so
+// the wire form packs them into Float64Array buffers; numbers pass bit for bit, so the unpacked
+// result equals the one runJob returned in the worker.
+
+/** A result in its wire form, with the buffers to transfer. */
+export interface Wire {
+  readonly value: unknown;
+  readonly transfer: ArrayBuffer[];
+}
+
+const POINTING_FIELDS = 6;
+const POTENTIAL_FIELDS = 3;
+
+type WirePass = Omit<Pass, 'pointing'> & { readonly pointing: Float64Array | null };
+type WireAnalysis = Omit<CentralForceAnalysis, 'effectivePotential'> & { readonly effectivePotential: Float64Array };
+type WireRadialTrack = Omit<RadialTrack, 't' | 'r' | 'rDot' | 'phi'> & {
+  readonly t: Float64Array; readonly r: Float64Array; readonly rDot: Float64Array; readonly phi: Float64Array;
+};
+
+/** The result of a job of this kind in its wire form (worker side). */
+export function toWire(kind: JobKind, result: JobResult<Job>): Wire {
+  const transfer = new Set<ArrayBuffer>();
+  const keep = (a: Float64Array): Float64Array => { transfer.add(a.buffer as ArrayBuffer); return a; };
+  let value: unknown;
+  switch (kind) {
+    case 'track': {
+      const r = result as Outcome<TrackJobResult>;
+      if (r.ok) {
+        const { track, earthFixed, geodetic } = r.value;
+        keep(track.epochsTT);
+        keep(track.states);
+        if (earthFixed) keep(earthFixed);
+        if (geodetic) keep(geodetic);
+      }
+      value = r;
+      break;
+    }
+    case 'passes': {
+      const r = result as Outcome<PassSearchResult>;
+      value = r.ok ? success({ ...r.value, passes: r.value.passes.map((p) => packPass(p, keep)) }) : r;
+      break;
+    }
+    case 'central-force': {
+      const r = result as CentralForceJobResult;
+      value = {
+        analysis: r.analysis.ok ? success(packAnalysis(r.analysis.value, keep)) : r.analysis,
+        track: r.track?.ok ? success(packRadialTrack(r.track.value, keep)) : r.track,
+      };
+      break;
+    }
+  }
+  return { value, transfer: [...transfer] };
+}
+
+/** The result of a job of this kind from its wire form (main-thread side). */
+export function fromWire<J extends Job>(kind: J['kind'], value: unknown): JobResult<J> {
+  switch (kind) {
+    case 'track':
+      return value as JobResult<J>;
+    case 'passes': {
+      const r = value as Outcome<PassSearchResult & { passes: WirePass[] }>;
+      return (r.ok ? success({ ...r.value, passes: r.value.passes.map(unpackPass) }) : r) as JobResult<J>;
+    }
+    case 'central-force': {
+      const r = value as { analysis: Outcome<WireAnalysis>; track: Outcome<WireRadialTrack> | null };
+      return {
+        analysis: r.analysis.ok ? success(unpackAnalysis(r.analysis.value)) : r.analysis,
+        track: r.track?.ok ? success(unpackRadialTrack(r.track.value)) : r.track,
+      } as JobResult<J>;
+    }
+    default:
+      throw new TypeError(`unknown job kind ${String(kind)}`);
+  }
+}
+
+/** Buffers a job's payload can give away to the worker. */
+export function payloadTransfer(job: Job): ArrayBuffer[] {
+  return job.kind === 'track' ? [job.input.epochsTT.buffer as ArrayBuffer] : [];
+}
+
+function packPass(p: Pass, keep: (a: Float64Array) => Float64Array): WirePass {
+  const { pointing, ...rest } = p;
+  if (!pointing) return { ...rest, pointing: null };
+  const out = new Float64Array(POINTING_FIELDS * pointing.length);
+  pointing.forEach((s, i) => {
+    const o = POINTING_FIELDS * i;
+    out[o] = s.tt;
+    out[o + 1] = s.azimuth;
+    out[o + 2] = s.elevation;
+    out[o + 3] = s.range;
+    out[o + 4] = s.rangeRate;
+    out[o + 5] = s.dopplerFactor;
+  });
+  return { ...rest, pointing: keep(out) };
+}
+
+function unpackPass(p: WirePass): Pass {
+  const { pointing: packed, ...rest } = p;
+  if (!packed) return rest;
+  const pointing: PointingSample[] = new Array(packed.length / POINTING_FIELDS);
+  for (let i = 0, o = 0; i < pointing.length; i++, o += POINTING_FIELDS) {
+    pointing[i] = { tt: packed[o]!, azimuth: packed[o + 1]!, elevation: packed[o + 2]!, range: packed[o + 3]!, rangeRate: packed[o + 4]!, dopplerFactor: packed[o + 5]! };
+  }
+  return { ...rest, pointing };
+}
+
+function packAnalysis(a: CentralForceAnalysis, keep: (a: Float64Array) => Float64Array): WireAnalysis {
+  const out = new Float64Array(POTENTIAL_FIELDS * a.effectivePotential.length);
+  a.effectivePotential.forEach((s, i) => {
+    const o = POTENTIAL_FIELDS * i;
+    out[o] = s.r;
+    out[o + 1] = s.u;
+    out[o + 2] = s.uEff;
+  });
+  return { ...a, effectivePotential: keep(out) };
+}
+
+function unpackAnalysis(a: WireAnalysis): CentralForceAnalysis {
+  const packed = a.effectivePotential;
+  const samples: PotentialSample[] = new Array(packed.length / POTENTIAL_FIELDS);
+  for (let i = 0, o = 0; i < samples.length; i++, o += POTENTIAL_FIELDS) samples[i] = { r: packed[o]!, u: packed[o + 1]!, uEff: packed[o + 2]! };
+  return { ...a, effectivePotential: samples };
+}
+
+function packRadialTrack(t: RadialTrack, keep: (a: Float64Array) => Float64Array): WireRadialTrack {
+  return { ...t, t: keep(Float64Array.from(t.t)), r: keep(Float64Array.from(t.r)), rDot: keep(Float64Array.from(t.rDot)), phi: keep(Float64Array.from(t.phi)) };
+}
+
+function unpackRadialTrack(t: WireRadialTrack): RadialTrack {
+  return { ...t, t: toArray(t.t), r: toArray(t.r), rDot: toArray(t.rDot), phi: toArray(t.phi) };
+}
+
+/** Float64Array -> number[] (a plain loop: several times faster than Array.from here). */
+function toArray(a: Float64Array): number[] {
+  const out: number[] = new Array(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = a[i]!;
+  return out;
+}

@@ -1,0 +1,139 @@
+// The solver pool on the main thread: small jobs run inline, heavy ones in worker threads
+// (piscina), so the event loop keeps answering health checks and small requests while a long
+// track, pass search or radial integration runs. The queue in front of the threads is bounded:
+// beyond it solve() rejects at once with PoolOverloadedError instead of piling up work.
+// Threads start on first use (or on start()), so an app that never solves a heavy job never
+// spawns one.
+import { createRequire } from 'node:module';
+import { pathToFileURL } from 'node:url';
+import { Piscina } from 'piscina';
+import { fromWire, payloadTransfer, runJob, runsInline, type Job, type JobResult } from './jobs.js';
+
+/** The queue in front of the threads is full (or the pool is closing): try again later. */
+export class PoolOverloadedError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'PoolOverloadedError';
+  }
+}
+
+/** A job threw in its worker (a programmer error) or the worker died under it. */
+export class WorkerFailedError extends Error {
+  constructor(kind: string, cause: unknown) {
+    super(`the ${kind} job failed in its worker thread: ${cause instanceof Error ? cause.message : String(cause)}`, { cause });
+    this.name = 'WorkerFailedError';
+  }
+}
+
+export interface SolverPoolOptions {
+  /** Worker threads (>= 1). */
+  readonly threads: number;
+  /** Jobs that may wait for a thread; one more is refused (0: none wait once all threads are busy). */
+  readonly queueLimit: number;
+  /** Milliseconds close() waits for running and queued jobs before it stops the threads (default 30 000). */
+  readonly closeTimeoutMs?: number;
+}
+
+export interface PoolStats {
+  readonly threads: number;
+  /** Jobs sent to the pool and not yet settled (running + queued). */
+  readonly active: number;
+  /** Jobs waiting for a thread. */
+  readonly queued: number;
+  /** Jobs the threads have finished (successfully or not). */
+  readonly completed: number;
+}
+
+/**
+ * The worker entry and the Node options that load it. From source (tests, `npm run dev`) this
+ * module is a .ts file and the worker needs the tsx loader; from dist/ it is plain JavaScript and
+ * the worker inherits the process options.
+ */
+function workerEntry(): { filename: string; execArgv?: string[] } {
+  const here = import.meta.url;
+  if (!here.endsWith('.ts')) return { filename: new URL('./worker.js', here).href };
+  const tsxLoader = pathToFileURL(createRequire(here).resolve('tsx')).href;
+  return { filename: new URL('./worker.ts', here).href, execArgv: ['--import', tsxLoader] };
+}
+
+/** piscina's refusals when its queue is full (5.x wording; test/http/overload.test.ts pins them). */
+const QUEUE_FULL = new Set(['Task queue is at limit', 'No task queue available and all Workers are busy']);
+
+export class SolverPool {
+  readonly #options: SolverPoolOptions;
+  #piscina: Piscina | undefined;
+  #active = 0;
+  #closing = false;
+
+  constructor(options: SolverPoolOptions) {
+    if (!Number.isInteger(options.threads) || options.threads < 1) throw new RangeError('threads must be an integer >= 1');
+    if (!Number.isInteger(options.queueLimit) || options.queueLimit < 0) throw new RangeError('queueLimit must be an integer >= 0');
+    this.#options = options;
+  }
+
+  /** Start the threads now rather than on the first heavy job. */
+  start(): void {
+    if (this.#closing || this.#piscina) return;
+    const { threads, queueLimit, closeTimeoutMs = 30_000 } = this.#options;
+    this.#piscina = new Piscina({
+      ...workerEntry(),
+      minThreads: threads,
+      maxThreads: threads,
+      idleTimeout: Infinity,
+      maxQueue: queueLimit,
+      closeTimeout: closeTimeoutMs,
+      recordTiming: false,
+    });
+  }
+
+  /** A small job runs inline at once; a heavy one in a worker thread. */
+  solve<J extends Job>(job: J): Promise<JobResult<J>> {
+    if (runsInline(job)) {
+      try {
+        return Promise.resolve(runJob(job));
+      } catch (error) {
+        return Promise.reject(error);
+      }
+    }
+    return this.inWorker(job);
+  }
+
+  /**
+   * Run a job in a worker thread whatever its size. A track job's input.epochsTT buffer is transferred
+   * to the thread (the caller's array is emptied; the result carries it back).
+   */
+  async inWorker<J extends Job>(job: J): Promise<JobResult<J>> {
+    if (this.#closing) throw new PoolOverloadedError('the service is shutting down');
+    this.start();
+    this.#active++;
+    try {
+      const wire: unknown = await this.#piscina!.run(job, { transferList: payloadTransfer(job) });
+      return fromWire<J>(job.kind, wire);
+    } catch (error) {
+      if (error instanceof Error && QUEUE_FULL.has(error.message)) {
+        throw new PoolOverloadedError(`the solver queue is full (threads busy: ${this.#options.threads}, jobs waiting: ${this.#options.queueLimit})`);
+      }
+      if (error instanceof Error && error.name === 'AbortError') throw new PoolOverloadedError('the service is shutting down');
+      throw new WorkerFailedError(job.kind, error);
+    } finally {
+      this.#active--;
+    }
+  }
+
+  stats(): PoolStats {
+    return {
+      threads: this.#options.threads,
+      active: this.#active,
+      queued: this.#piscina?.queueSize ?? 0,
+      completed: this.#piscina?.completed ?? 0,
+    };
+  }
+
+  /** Refuse new jobs, let running and queued ones finish (up to closeTimeoutMs), stop the threads. */
+  async close(): Promise<void> {
+    this.#closing = true;
+    const piscina = this.#piscina;
+    this.#piscina = undefined;
+    if (piscina) await piscina.close();
+  }
+}
