@@ -53,8 +53,8 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
     cache: options.cache ?? answerCache(config),
     maxStoredBytes: Math.floor(config.CACHE_MAX_BYTES / 4),
   });
-  await app.register(metrics);
   await app.register(pool);
+  await app.register(metrics);
 
   await app.register(health);
   await app.register(bodies);

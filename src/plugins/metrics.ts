@@ -24,6 +24,15 @@ export default fp(async function metrics(app: FastifyInstance) {
     collect() { const s = app.answers.cache.stats(); this.set({ result: 'hit' }, s.hits); this.set({ result: 'miss' }, s.misses); },
   });
 
+  new Gauge({
+    name: 'apsides_pool_jobs', help: 'Heavy solver jobs on the worker pool by state', labelNames: ['state'], registers: [registry],
+    collect() { const s = app.pool.stats(); this.set({ state: 'active' }, s.active); this.set({ state: 'queued' }, s.queued); this.set({ state: 'completed' }, s.completed); },
+  });
+  new Gauge({
+    name: 'apsides_pool_threads', help: 'Worker threads of the solver pool', registers: [registry],
+    collect() { this.set(app.pool.stats().threads); },
+  });
+
   app.addHook('onResponse', async (request, reply) => {
     const route = request.routeOptions.url ?? 'unmatched';
     requests.inc({ method: request.method, route, status: String(reply.statusCode) });
@@ -32,4 +41,4 @@ export default fp(async function metrics(app: FastifyInstance) {
 
   app.get('/metrics', { schema: { hide: true } }, async (_request, reply) =>
     reply.type(registry.contentType).send(await registry.metrics()));
-}, { name: 'metrics', dependencies: ['answers'] });
+}, { name: 'metrics', dependencies: ['answers', 'pool'] });

@@ -40,6 +40,7 @@ describe('service endpoints', () => {
     expect(res.headers['content-type']).toMatch(/text\/plain/);
     expect(res.body).toMatch(/apsides_http_requests_total\{method="GET",route="\/healthz",status="200"\} [1-9]/);
     expect(res.body).toMatch(/apsides_cache_entries \d+/);
+    expect(res.body).toMatch(/apsides_pool_jobs\{state="queued"\} \d+/);
   });
 
   it('an unknown route answers a 404 problem', async () => {
