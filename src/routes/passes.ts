@@ -32,17 +32,17 @@ const passes: FastifyPluginAsyncZod = async (app) => {
       const { r: r0, v: v0, epochTT: orbitEpochTT } = start.value;
       const [startTT, stopTT] = [epochTT(req.window.start), epochTT(req.window.stop)];
       if (!(stopTT > startTT)) throw new ProblemError('validation-failed', 'the window stop must be after its start', { errors: [{ path: 'body.window.stop', message: 'must be after start' }] });
-      // The same surface check as /v1/track, over the whole window.
-      const surface = propagateTrack({ body, model: req.model, r0, v0, epochTT: orbitEpochTT, epochsTT: Float64Array.of(startTT, stopTT) });
-      if (!surface.ok) throw solverProblem(surface);
+      const spec = { body, model: req.model, forces: req.forces, r0, v0, epochTT: orbitEpochTT };
+      // The same surface check as /v1/track over the whole window (the numerical model checks while it integrates).
+      if (req.model !== 'numerical') {
+        const surface = propagateTrack({ ...spec, epochsTT: Float64Array.of(startTT, stopTT) });
+        if (!surface.ok) throw solverProblem(surface);
+      }
       // The search runs on a worker thread unless the window and station list are small; the
       // two-body propagator is rebuilt there from this state.
       const found = await app.pool.solve({
         kind: 'passes',
-        gm: body.gm,
-        r0,
-        v0,
-        epochTT: orbitEpochTT,
+        spec,
         startTT,
         stopTT,
         stations: req.stations.map((s) => ({

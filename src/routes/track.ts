@@ -78,6 +78,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
     const head = (hash: string, body: CentralBody, inertial: Track) => ({
       scenarioHash: hash,
       model: req.model,
+      forces: req.forces,
       frame: req.frame,
       centralBody: { name: body.name, gm: body.gm, radius: body.radius ?? null },
       object: req.object,
@@ -101,7 +102,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
       // moves there and comes back as inertial.epochsTT); formatting stays here, in chunks.
       const result = await app.pool.solve({
         kind: 'track',
-        input: { body, model: req.model, r0: start.value.r, v0: start.value.v, epochTT: start.value.epochTT, epochsTT: grid, passThroughBody: req.passThroughBody },
+        input: { body, model: req.model, forces: req.forces, r0: start.value.r, v0: start.value.v, epochTT: start.value.epochTT, epochsTT: grid, passThroughBody: req.passThroughBody },
         earthFixed: earthFixed ? { dut1: req.ut1MinusUtc } : null,
         geodetic: wantGeodetic,
       });

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTING_STEP_S } from '../solver/passes.js';
 import { TRACK_MODELS } from '../solver/track.js';
 import { DEMO_EPOCH, Epoch, EpochOut } from './common.js';
+import { modelFields } from './forces.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
 const MaskPoint = z
@@ -27,7 +28,7 @@ export const GroundStation = z
 export const PassesRequest = z
   .object({
     ...orbitFields,
-    model: z.enum(TRACK_MODELS).default('two-body').describe('Propagation model (two-body: Keplerian motion, no perturbations)'),
+    ...modelFields,
     window: z.object({ start: Epoch, stop: Epoch }).strict().describe(`Search window (ISO 8601 UTC), stop after start, at most ${MAX_PASS_WINDOW_S / 86_400} days`),
     stations: z.array(GroundStation).min(1).max(MAX_PASS_STATIONS).describe(`Ground stations, 1 to ${MAX_PASS_STATIONS}`),
     pointing: z

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { TRACK_MODELS } from '../solver/track.js';
 import { DEMO_EPOCH } from './common.js';
+import { Force, modelFields } from './forces.js';
 import { TimeGrid } from './grid.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
@@ -26,7 +27,7 @@ export const TrackRequest = z
   .object({
     ...orbitFields,
     grid: TimeGrid,
-    model: z.enum(TRACK_MODELS).default('two-body').describe('two-body: exact Keplerian motion by universal variables (no perturbations)'),
+    ...modelFields,
     frame: z.enum(TRACK_FRAMES).default('gcrf').describe(
       'Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU precession-nutation and Earth rotation from astronomy-engine, polar motion neglected: ~10 m at LEO); ' +
       'geodetic (WGS-84 latitude and longitude in deg, height in km). itrf and geodetic need centralBody earth'),
@@ -69,6 +70,7 @@ export const TrackSample = z.union([StateSample, GeodeticSample]);
 export const TrackAnswer = z.object({
   scenarioHash: z.string(),
   model: z.enum(TRACK_MODELS),
+  forces: z.array(Force).describe('Forces of the numerical model (empty for the analytic models)'),
   frame: z.enum(TRACK_FRAMES),
   centralBody: z.object({ name: z.string(), gm: z.number().describe('km^3/s^2 used'), radius: z.number().nullable() }),
   object: z.object({ name: z.string(), id: z.string() }),

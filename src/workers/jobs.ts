@@ -13,8 +13,7 @@ import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest 
 import { analyseCentralForce, type AnalysisOptions, type CentralForceAnalysis, type CentralForceProblem, type PotentialSample } from '../solver/radial.js';
 import { success, type Outcome } from '../solver/result.js';
 import { propagateTrack, type Track, type TrackInput } from '../solver/track.js';
-import { propagate } from '../solver/universal.js';
-import type { Vec3 } from '../solver/vec3.js';
+import { stateFunction, type PropagationSpec } from '../solver/propagator.js';
 
 // Size thresholds: below them a job runs inline (a few ms to a few tens of ms, measured on the
 // two-core development machine), at or above them in a worker thread.
@@ -51,15 +50,10 @@ export interface TrackJobResult {
   readonly geodetic: Float64Array | null;
 }
 
-/** A whole pass search on a two-body orbit; the propagator is rebuilt from the state and gm. */
+/** A whole pass search; the propagator is rebuilt in the worker from the propagation spec (plain data). */
 export interface PassesJob {
   readonly kind: 'passes';
-  /** km^3/s^2. */
-  readonly gm: number;
-  /** GCRF state (km, km/s) at epochTT. */
-  readonly r0: Vec3;
-  readonly v0: Vec3;
-  readonly epochTT: number;
+  readonly spec: PropagationSpec;
   readonly startTT: number;
   readonly stopTT: number;
   readonly stations: readonly PassStation[];
@@ -127,9 +121,10 @@ function runTrack(job: TrackJob): Outcome<TrackJobResult> {
 }
 
 function runPasses(job: PassesJob): Outcome<PassSearchResult> {
-  const { gm, r0, v0, epochTT } = job;
+  const stateAt = stateFunction(job.spec, job.startTT, job.stopTT);
+  if (!stateAt.ok) return stateAt;
   return findPasses({
-    stateAt: (tt) => propagate(r0, v0, gm, tt - epochTT),
+    stateAt: stateAt.value,
     startTT: job.startTT,
     stopTT: job.stopTT,
     stations: job.stations,

@@ -1,7 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { BODIES } from '../../src/solver/bodies.js';
 import { elementsToState, stateToElements } from '../../src/solver/elements.js';
-import { propagateJ2Secular } from '../../src/solver/j2-secular.js';
+import { statesAt } from '../../src/solver/propagator.js';
+import type { CentralBody } from '../../src/solver/bodies.js';
+import type { Vec3 } from '../../src/solver/vec3.js';
+
+const propagateJ2Secular = (body: CentralBody, r0: Vec3, v0: Vec3, epochTT: number, epochsTT: Float64Array) =>
+  statesAt({ body, model: 'j2-secular', r0, v0, epochTT }, epochsTT);
 import { propagateGrid } from '../../src/solver/universal.js';
 import { expectClose } from '../helpers/approx.js';
 
@@ -15,7 +20,7 @@ function start(el: { a: number; e: number; i: number; raan: number; argp: number
   return s.value;
 }
 
-describe('propagateJ2Secular (model j2-secular)', () => {
+describe('statesAt with model j2-secular', () => {
   it('with J2 = 0 it is Keplerian motion: agrees with the universal-variable propagator (an independent method)', () => {
     const s0 = start({ a: 7200, e: 0.05, i: 40, raan: 30, argp: 60, nu: 10 });
     const epochs = Float64Array.from({ length: 50 }, (_, k) => k * 3000 - 40_000);
@@ -40,19 +45,25 @@ describe('propagateJ2Secular (model j2-secular)', () => {
     const s = elementsToState({ semiMajorAxis: a, eccentricity: e, inclination: 51.43 * DEG, raan: 10 * DEG, argPeriapsis: 20 * DEG, trueAnomaly: 0 }, body.gm);
     if (!s.ok) throw new Error(s.message);
     const days = 3;
-    const out = propagateJ2Secular(body, s.value.r, s.value.v, 0, Float64Array.of(days * DAY));
+    const out = propagateJ2Secular(body, s.value.r, s.value.v, 0, Float64Array.of(0, days * DAY));
     if (!out.ok) throw new Error(out.message);
-    const el = stateToElements([out.value[0]!, out.value[1]!, out.value[2]!], [out.value[3]!, out.value[4]!, out.value[5]!], body.gm);
-    if (!el.ok) throw new Error(el.message);
+    const at = (k: number) => {
+      const o = 6 * k;
+      const el = stateToElements([out.value[o]!, out.value[o + 1]!, out.value[o + 2]!], [out.value[o + 3]!, out.value[o + 4]!, out.value[o + 5]!], body.gm);
+      if (!el.ok) throw new Error(el.message);
+      return el.value;
+    };
     const n = Math.sqrt(body.gm / a ** 3);
     const k = n * body.j2 * (R / (a * (1 - e * e))) ** 2;
     const raanRate = -1.5 * k * Math.cos(51.43 * DEG) * DAY / DEG;
     const argpRate = 0.75 * k * (4 - 5 * Math.sin(51.43 * DEG) ** 2) * DAY / DEG;
     expectClose(raanRate, -5.181, 0.002, 'printed node rate');
     expectClose(argpRate, 3.920, 0.002, 'printed periapsis rate');
-    const wrap = (deg: number) => ((deg % 360) + 360) % 360;
-    expectClose(el.value.raan / DEG, wrap(10 + raanRate * days), 1e-6, 'RAAN after 3 days');
-    expectClose(el.value.argPeriapsis / DEG, 20 + argpRate * days, 1e-6, 'argument of periapsis after 3 days');
+    // The model runs on mean elements (averaged over a revolution), whose rates differ from the
+    // osculating ones by O(J2): 0.05 deg over 3 days of 15 deg of node motion.
+    const turn = (deg: number) => ((deg % 360) + 540) % 360 - 180;
+    expectClose(turn((at(1).raan - at(0).raan) / DEG), raanRate * days, 0.05, 'RAAN advance over 3 days');
+    expectClose(turn((at(1).argPeriapsis - at(0).argPeriapsis) / DEG), argpRate * days, 0.05, 'periapsis advance over 3 days');
   });
 
   it('a sun-synchronous circular orbit keeps its plane turning with the mean Sun: 0.9856 deg/day (common practice, no source)', () => {

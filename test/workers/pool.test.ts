@@ -55,7 +55,7 @@ const STATIONS: PassStation[] = Array.from({ length: 6 }, (_, i) => ({
   ...(i === 3 ? { mask: [{ azimuth: 0, elevation: 3 * DEG }, { azimuth: 120 * DEG, elevation: 12 * DEG }, { azimuth: 240 * DEG, elevation: 3 * DEG }] } : {}),
 }));
 const passesJob = (days: number, stations: readonly PassStation[], pointingStepS?: number): PassesJob => ({
-  kind: 'passes', gm: EARTH.gm, r0: R0, v0: V0, epochTT: T0, startTT: T0, stopTT: T0 + days * 86_400, stations,
+  kind: 'passes', spec: { body: EARTH, model: 'two-body', r0: R0, v0: V0, epochTT: T0 }, startTT: T0, stopTT: T0 + days * 86_400, stations,
   options: { dut1: 0.1, gm: EARTH.gm, ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
 });
 

@@ -1,0 +1,26 @@
+// Propagation model and forces at the API (shared by /v1/track and /v1/passes).
+import { z } from 'zod';
+import { MODELS } from '../solver/propagator.js';
+
+export const Force = z
+  .discriminatedUnion('kind', [
+    z.object({ kind: z.literal('j2') }).strict().describe('The central body\'s J2 about its spin axis (needs j2 and radius)'),
+    z.object({ kind: z.literal('drag'), ballisticCoefficient: z.number().positive().max(1e6).describe('m / (Cd A), kg/m^2') }).strict()
+      .describe('Drag in an exponential atmosphere co-rotating with the Earth (Vallado 4th ed. Table 8-4); Earth only'),
+    z.object({ kind: z.literal('third-body'), body: z.enum(['sun', 'moon']) }).strict()
+      .describe('Point-mass Sun or Moon (positions from astronomy-engine); Earth-centred orbits only'),
+    z.object({
+      kind: z.literal('srp'),
+      areaToMass: z.number().positive().max(1e3).describe('A/m, m^2/kg'),
+      reflectivity: z.number().min(0).max(1).describe('epsilon in [0, 1]; C_R = 1 + epsilon'),
+    }).strict().describe('Solar radiation pressure on a sphere, cylindrical Earth shadow; Earth only'),
+  ])
+  .meta({ discriminator: { propertyName: 'kind' } });
+
+export const modelFields = {
+  model: z.enum(MODELS).default('two-body').describe(
+    'two-body: exact Keplerian motion (universal variables), no perturbations. ' +
+    'j2-secular: Keplerian motion in mean elements (averaged over one revolution) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates; bound orbits about a body with J2; short-period J2 terms left out (bounded error up to ~10 km in LEO, including at the first sample). ' +
+    'numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)'),
+  forces: z.array(Force).max(5).default([]).describe('Forces of the numerical model, each kind at most once (ignored by the analytic models)'),
+};
