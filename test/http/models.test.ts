@@ -3,16 +3,13 @@ import type { FastifyInstance } from 'fastify';
 import { PassesAnswer } from '../../src/schemas/passes.js';
 import { postJson, testApp } from '../helpers/app.js';
 import { expectClose } from '../helpers/approx.js';
+import { DEMO_ORBIT, EPOCH } from '../helpers/demo.js';
 
 let app: FastifyInstance;
 beforeAll(async () => { app = await testApp(); });
 afterAll(async () => { await app.close(); });
 
-const EPOCH = '2026-12-01T00:00:00Z';
-const demo = {
-  centralBody: 'earth',
-  elements: { epoch: EPOCH, semiMajorAxis: 6928.137, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, trueAnomaly: 10 },
-};
+const demo = DEMO_ORBIT;
 type Sample = { epoch: string; position: number[]; velocity: number[] };
 const last = async (body: object): Promise<Sample> => {
   const res = await postJson(app, '/v1/track', body);

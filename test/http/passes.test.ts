@@ -3,22 +3,13 @@ import type { FastifyInstance } from 'fastify';
 import { PassesAnswer } from '../../src/schemas/passes.js';
 import { postJson, testApp } from '../helpers/app.js';
 import { expectClose } from '../helpers/approx.js';
+import { DEMO_ORBIT, DEMO_STATIONS, EPOCH } from '../helpers/demo.js';
 
 let app: FastifyInstance;
 beforeAll(async () => { app = await testApp(); });
 afterAll(async () => { await app.close(); });
 
-const EPOCH = '2026-12-01T00:00:00Z';
-// Invented demo scenario: the spacecraft Plover-7 and two invented stations.
-const demo = {
-  centralBody: 'earth',
-  elements: { epoch: EPOCH, semiMajorAxis: 6928.137, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, trueAnomaly: 10 },
-  window: { start: EPOCH, stop: '2026-12-02T00:00:00Z' },
-  stations: [
-    { id: 'korrin-hill', latitude: 61.2, longitude: 24.9, altitude: 0.21, minElevation: 5 },
-    { id: 'oskel-fjord', latitude: 78.1, longitude: 15.3, altitude: 0.45, minElevation: 0, horizonMask: [{ azimuth: 0, elevation: 3 }, { azimuth: 120, elevation: 12 }, { azimuth: 240, elevation: 3 }] },
-  ],
-};
+const demo = { ...DEMO_ORBIT, window: { start: EPOCH, stop: '2026-12-02T00:00:00Z' }, stations: DEMO_STATIONS };
 const ms = (iso: string) => Date.parse(iso);
 
 describe('POST /v1/passes', () => {

@@ -3,12 +3,12 @@ import type { FastifyInstance } from 'fastify';
 import { postJson, testApp } from '../helpers/app.js';
 import { expectClose } from '../helpers/approx.js';
 import { parseOemKvn } from '../helpers/oem-kvn.js';
+import { DEMO_ORBIT, EPOCH } from '../helpers/demo.js';
 
 let app: FastifyInstance;
 beforeAll(async () => { app = await testApp({ config: { MAX_TRACK_SAMPLES: 5000 } }); });
 afterAll(async () => { await app.close(); });
 
-const EPOCH = '2026-12-01T00:00:00Z';
 // Vallado, Fundamentals of Astrodynamics and Applications, 4th ed., Example 2-4 (from memory):
 // 40 min after r = (1131.340, -2282.343, 6672.423) km, v = (-5.64305, 4.30333, 2.42879) km/s,
 // r = (-4219.7527, 4363.0292, -3958.7666) km, v = (3.689866, -1.916735, -6.112511) km/s (mu = 398600.4418).
@@ -16,11 +16,7 @@ const vallado = {
   centralBody: { name: 'earth', gm: 398600.4418, radius: 6378.137 },
   state: { epoch: EPOCH, position: [1131.34, -2282.343, 6672.423], velocity: [-5.64305, 4.30333, 2.42879] },
 };
-const demo = {
-  centralBody: 'earth',
-  elements: { epoch: EPOCH, semiMajorAxis: 6928.137, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, trueAnomaly: 10 },
-  object: { name: 'PLOVER-7', id: '2026-900A' },
-};
+const demo = { ...DEMO_ORBIT, object: { name: 'PLOVER-7', id: '2026-900A' } };
 
 describe('POST /v1/track', () => {
   it('reproduces Vallado Example 2-4 forty minutes on (JSON), with conservation diagnostics near machine precision', async () => {
