@@ -67,3 +67,12 @@ export function fixed(value: number, decimals: number): string {
 export function checkDigits(name: string, digits: number, max: number): void {
   if (!(Number.isInteger(digits) && digits >= 0 && digits <= max)) throw new RangeError(`${name} must be an integer 0-${max}, got ${digits}`);
 }
+
+/** Magnitude from which fixed() refuses a number (toFixed would switch to exponent notation). */
+export const PRINTABLE_LIMIT = 1e21;
+
+/** Index of the first value that is not finite or not printable in fixed notation, or -1. Check before streaming: a formatter that throws mid-answer can only cut the answer short. */
+export function firstUnprintable(values: Float64Array): number {
+  for (let i = 0; i < values.length; i++) if (!(Math.abs(values[i]!) < PRINTABLE_LIMIT)) return i;
+  return -1;
+}

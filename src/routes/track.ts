@@ -6,6 +6,7 @@ import { columnCsvChunks, csvChunks, CSV_MEDIA_TYPE } from '../formats/csv.js';
 import { GEOJSON_MEDIA_TYPE, groundTrackGeoJson } from '../formats/geojson.js';
 import { oemChunks, OEM_MEDIA_TYPE } from '../formats/oem.js';
 import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
+import { firstUnprintable, PRINTABLE_LIMIT } from '../formats/track-table.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../schemas/body.js';
 import { DEG_PER_RAD, problemResponses } from '../schemas/common.js';
@@ -111,6 +112,8 @@ const track: FastifyPluginAsyncZod = async (app) => {
       const epochsTT = inertial.epochsTT;
       const states = result.value.earthFixed ?? inertial.states;
       const table = { epochsTT, states };
+      const bad = firstUnprintable(states);
+      if (bad >= 0) throw new ProblemError('limit-exceeded', `sample ${Math.floor(bad / 6)} reaches ${states[bad]} km or km/s; tracks print values below ${PRINTABLE_LIMIT} in magnitude`);
       if (wantGeodetic) {
         const geodetic = geodeticDegrees(result.value.geodetic!);
         if (format === 'geojson') {

@@ -3,7 +3,7 @@
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { ProblemError, solverProblem } from '../errors.js';
 import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
-import type { TrackTable } from '../formats/track-table.js';
+import { firstUnprintable, PRINTABLE_LIMIT, type TrackTable } from '../formats/track-table.js';
 import { epochTT as toEpochTT, problemResponses } from '../schemas/common.js';
 import { gridEpochs } from '../schemas/grid.js';
 import {
@@ -20,7 +20,6 @@ import { propagateTrack } from '../solver/track.js';
 import { bodyTracksAboutBarycentre, reduceTwoBody } from '../solver/two-body.js';
 
 /** The track formatter prints fixed-point numbers below this magnitude (see formats/track-table.ts). */
-const PRINTABLE_LIMIT = 1e21;
 
 interface Tracks {
   readonly head: Omit<TwoBodyTracks, 'bodies'>;
@@ -54,10 +53,9 @@ function assertFinite(value: unknown, path: string): void {
 }
 
 function assertPrintable(table: TrackTable): void {
-  for (const x of table.states) {
-    if (!(Math.abs(x) < PRINTABLE_LIMIT)) {
-      throw new ProblemError('limit-exceeded', `a track sample reaches ${x} (km or km/s); tracks print values below ${PRINTABLE_LIMIT} in magnitude`);
-    }
+  const bad = firstUnprintable(table.states);
+  if (bad >= 0) {
+    throw new ProblemError('limit-exceeded', `a track sample reaches ${table.states[bad]} (km or km/s); tracks print values below ${PRINTABLE_LIMIT} in magnitude`);
   }
 }
 

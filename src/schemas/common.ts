@@ -6,8 +6,15 @@ export const DEMO_EPOCH = '2026-12-01T00:00:00Z';
 
 export const Vec3 = z.tuple([z.number(), z.number(), z.number()]);
 
-export const PositionKm = Vec3.describe('Position [x, y, z] in km');
-export const VelocityKmS = Vec3.describe('Velocity [vx, vy, vz] in km/s');
+/** Largest position component accepted, km (~6700 AU): every propagated number then stays printable (< 1e21) over 1972-2199. */
+export const MAX_POSITION_KM = 1e12;
+/** Largest velocity component accepted: the speed of light, km/s (SI Brochure, 9th ed.). */
+export const MAX_SPEED_KM_S = 299_792.458;
+const bounded = (limit: number) => z.number().min(-limit).max(limit);
+export const PositionKm = z.tuple([bounded(MAX_POSITION_KM), bounded(MAX_POSITION_KM), bounded(MAX_POSITION_KM)])
+  .describe(`Position [x, y, z] in km, each component within +-${MAX_POSITION_KM}`);
+export const VelocityKmS = z.tuple([bounded(MAX_SPEED_KM_S), bounded(MAX_SPEED_KM_S), bounded(MAX_SPEED_KM_S)])
+  .describe('Velocity [vx, vy, vz] in km/s, each component below the speed of light');
 
 export const Epoch = z
   .string()

@@ -6,7 +6,7 @@ import type { CentralBody } from '../solver/bodies.js';
 import { END_OF_SUPPORTED_RANGE_TT, formatUtcIso } from '../solver/time.js';
 import type { Vec3 as SolverVec3 } from '../solver/vec3.js';
 import { CentralBodyInput, BodySummary, describeBody } from './body.js';
-import { DEG_PER_RAD, DEMO_EPOCH, Epoch, EpochOut, epochTT, PositionKm, RAD_PER_DEG, ScenarioHash, Vec3, VelocityKmS } from './common.js';
+import { DEG_PER_RAD, DEMO_EPOCH, Epoch, EpochOut, epochTT, MAX_POSITION_KM, PositionKm, RAD_PER_DEG, ScenarioHash, Vec3, VelocityKmS } from './common.js';
 
 const SECONDS_PER_DAY = 86_400;
 
@@ -23,8 +23,8 @@ export const StateInput = z
 export const ElementsInput = z
   .object({
     epoch: Epoch,
-    semiMajorAxis: z.number().optional().describe('Semi-major axis a, km: positive for ellipses, negative for hyperbolas; omit for a parabola (give semiLatusRectum)'),
-    semiLatusRectum: z.number().positive().optional().describe('Semi-latus rectum p, km: instead of semiMajorAxis, required when eccentricity = 1'),
+    semiMajorAxis: z.number().min(-MAX_POSITION_KM).max(MAX_POSITION_KM).optional().describe(`Semi-major axis a, km: positive for ellipses, negative for hyperbolas, |a| <= ${MAX_POSITION_KM}; omit for a parabola (give semiLatusRectum)`),
+    semiLatusRectum: z.number().positive().max(MAX_POSITION_KM).optional().describe('Semi-latus rectum p, km: instead of semiMajorAxis, required when eccentricity = 1'),
     eccentricity: z.number().min(0).describe('Eccentricity e >= 0 (0 circular, < 1 elliptic, 1 parabolic, > 1 hyperbolic)'),
     inclination: z.number().min(0).max(180).describe('Inclination, degrees [0, 180]'),
     raan: z.number().describe('Right ascension of the ascending node, degrees (ignored when equatorial)'),

@@ -46,6 +46,9 @@ export function j2SecularPropagator(body: CentralBody, r0: Vec3, v0: Vec3, epoch
   const mean = meanElements(body, r0, v0, el.semiMajorAxis, j2, radius);
   if (!mean.ok) return mean;
   const m = mean.value;
+  if (!(m.a > 0 && m.e >= 0 && m.e < 1 && Number.isFinite(m.raan + m.meanAnomaly))) {
+    return failure('invalid-parameter', `model j2-secular found no bound mean orbit (mean a ${m.a} km, mean e ${m.e}): the orbit is too close to or inside the body for J2 averaging; use the numerical model`);
+  }
   const rates = j2SecularRates(m.a, m.e, m.i, mu, j2, radius);
   const n = Math.sqrt(mu / (m.a * m.a * m.a));
   // Undefined angles (elements.ts conventions): on a circular orbit the anomaly is measured from the
