@@ -34,7 +34,8 @@ export function statesAt(spec: PropagationSpec, epochsTT: Float64Array): Outcome
   const { body, r0, v0, epochTT } = spec;
   switch (spec.model) {
     case 'two-body': {
-      const dt = epochsTT.map((t) => t - epochTT);
+      const dt = new Float64Array(epochsTT.length); // a plain loop: TypedArray.map is several times slower here
+      for (let k = 0; k < dt.length; k++) dt[k] = epochsTT[k]! - epochTT;
       const out = new Float64Array(6 * epochsTT.length);
       const done = propagateGrid(r0, v0, body.gm, dt, out);
       return done.ok ? success(out) : done;
