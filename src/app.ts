@@ -18,6 +18,8 @@ import track from './routes/track.js';
 import passes from './routes/passes.js';
 import twoBody from './routes/two-body.js';
 import centralForce from './routes/central-force.js';
+import batch from './routes/batch.js';
+import jobs from './routes/jobs.js';
 
 export interface BuildOptions {
   config?: Partial<Config>;
@@ -64,6 +66,8 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   await app.register(twoBody);
   await app.register(centralForce);
   await app.register(results);
+  await app.register(batch);
+  await app.register(jobs);
   return app;
 }
 

@@ -14,6 +14,13 @@ export const Config = z.object({
   WORKER_THREADS: int(Math.max(1, availableParallelism() - 1), 1, 256).describe('Solver worker threads for heavy jobs (default: available parallelism minus one, at least 1)'),
   WORKER_QUEUE_LIMIT: int(64, 0, 100_000).describe('Heavy jobs that may wait for a worker thread; beyond it requests answer 503 overloaded with Retry-After'),
   REDIS_URL: z.string().url().optional().describe('Shared Redis for the cache tier and job queue; unset = embedded only'),
+  BATCH_MAX_ITEMS: int(1000, 1, 100_000).describe('Most items in one POST /v1/batch or POST /v1/jobs body; more answers 422 limit-exceeded'),
+  BATCH_CONCURRENCY: int(4, 1, 64).describe('Items of one batch or job solved at the same time (lines still come out in input order)'),
+  BATCH_MAX_TRACK_SAMPLES: int(10_000, 1, 10_000_000).describe('Most samples in one track inside a batch or job (track grid, two-body track grid, central-force track samples); beyond it that item answers 422 too-many-samples'),
+  BATCH_MAX_ANSWER_BYTES: int(4 * 1024 * 1024, 1024, 1024 ** 3).describe('Largest answer, bytes, one batch line carries; a larger answer becomes that item\'s 422 limit-exceeded (it stays cached under its scenario hash)'),
+  JOBS_MAX_KEPT: int(100, 1, 100_000).describe('In-process job queue only: jobs kept (queued, running and finished); the oldest finished ones are dropped first, and when all are unfinished POST /v1/jobs answers 503 queue-unavailable'),
+  JOB_RESULT_TTL_S: int(7 * 86_400, 60, 365 * 86_400).describe('Seconds a job record and its results are kept after the job was submitted or last made progress'),
+  JOB_KEY_PREFIX: z.string().min(1).max(100).default('apsides:jobs:').describe('Prefix of every Redis key of the job queue (REDIS_URL set)'),
 });
 export type Config = z.infer<typeof Config>;
 

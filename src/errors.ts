@@ -23,6 +23,9 @@ const SERVICE_ERRORS = {
   'too-many-samples': { status: 422, title: 'Too many samples', meaning: 'The requested grid has more samples than the configured maximum; the detail names the maximum.' },
   'limit-exceeded': { status: 422, title: 'Request exceeds a service limit', meaning: 'A window, list or count is larger than the service accepts; the detail names the limit.' },
   'overloaded': { status: 503, title: 'Service overloaded', meaning: 'The worker queue is full; retry after the number of seconds in Retry-After.' },
+  'queue-unavailable': { status: 503, title: 'Job queue unavailable', meaning: 'The job queue cannot take or look up jobs now: its Redis store does not answer, or the in-process queue holds JOBS_MAX_KEPT unfinished jobs; retry after the number of seconds in Retry-After. Jobs already stored are not lost.' },
+  'job-not-found': { status: 404, title: 'No such job', meaning: 'No job has this id: never submitted, expired (JOB_RESULT_TTL_S), or dropped from the in-process queue (JOBS_MAX_KEPT).' },
+  'job-not-done': { status: 409, title: 'Job results not ready', meaning: 'Results exist only for a job whose status is done: a queued or running job answers this with Retry-After; a failed job answers it with the reason in the detail.' },
   'internal': { status: 500, title: 'Internal error', meaning: 'A fault in the service itself; the request id in the answer identifies it in the logs.' },
 } as const satisfies Record<string, ErrorEntry>;
 

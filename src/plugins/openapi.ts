@@ -28,6 +28,7 @@ export default fp(async function openapi(app: FastifyInstance) {
       tags: [
         { name: 'orbits', description: 'Orbit solutions' },
         { name: 'results', description: 'Stored answers' },
+        { name: 'batch', description: 'Many scenarios in one call, and queued jobs' },
         { name: 'service', description: 'Health and reference data' },
       ],
     },

@@ -1,0 +1,102 @@
+// POST /v1/batch and POST /v1/jobs: many scenarios of any kind in one body; the answer is NDJSON,
+// one line per item in input order. Each item's request is validated by its own endpoint when it
+// runs, so one bad item becomes that line's problem and never spoils the others.
+import { z } from 'zod';
+import { DEMO_EPOCH, Problem, ScenarioHash } from './common.js';
+
+export const BATCH_KINDS = ['orbit', 'two-body', 'central-force', 'track', 'passes'] as const;
+export type BatchKind = (typeof BATCH_KINDS)[number];
+
+export const NDJSON_MEDIA_TYPE = 'application/x-ndjson';
+
+export const BatchItem = z
+  .object({
+    id: z.string().min(1).max(200).optional().describe('Your name for the item, echoed in its line (null when not given); need not be unique'),
+    kind: z.enum(BATCH_KINDS).describe('Which endpoint answers the item: orbit -> POST /v1/orbit, two-body, central-force, track, passes likewise'),
+    request: z.record(z.string(), z.unknown()).describe(
+      'The JSON body of that endpoint, exactly as it would be sent alone (same fields, units and defaults). It is validated when the item runs: ' +
+      'an invalid request becomes that line\'s 400 problem. Answers inside a batch are JSON: a track or central-force request with another format answers 406 not-acceptable. ' +
+      'Tracks (track grid, two-body track grid, central-force track samples) hold at most BATCH_MAX_TRACK_SAMPLES samples (default 10000), else 422 too-many-samples'),
+  })
+  .strict()
+  .describe('One scenario of the batch');
+export type BatchItem = z.output<typeof BatchItem>;
+
+const DEMO_ITEMS: BatchItem[] = [
+  {
+    id: 'plover-7',
+    kind: 'orbit',
+    request: { centralBody: 'earth', elements: { epoch: DEMO_EPOCH, semiMajorAxis: 6928.137, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, trueAnomaly: 10 } },
+  },
+  {
+    id: 'plover-7-hyperbolic-a',
+    kind: 'orbit',
+    request: { centralBody: 'earth', elements: { epoch: DEMO_EPOCH, semiMajorAxis: 6928.137, eccentricity: 1.5, inclination: 97.6, raan: 40, argPeriapsis: 90, trueAnomaly: 10 } },
+  },
+];
+
+const itemsField = z.array(BatchItem).min(1).describe('The scenarios, 1 to BATCH_MAX_ITEMS (default 1000; more answers 422 limit-exceeded); the whole body is also bounded by BODY_LIMIT_BYTES');
+
+export const BatchRequest = z
+  .object({ items: itemsField })
+  .strict()
+  .meta({ description: 'Many scenarios of any kind in one call', examples: [{ items: DEMO_ITEMS }] });
+export type BatchRequest = z.output<typeof BatchRequest>;
+
+/** One NDJSON line. `answer` is spliced in as the endpoint's bytes, so it is byte for byte what the endpoint answers alone. */
+export const BatchLine = z
+  .object({
+    index: z.number().int().min(0).describe('Position of the item in the request, from 0; lines come in this order'),
+    id: z.string().nullable().describe('The item\'s id, or null'),
+    kind: z.enum(BATCH_KINDS).describe('The item\'s kind'),
+    status: z.number().int().describe('The HTTP status the endpoint answered for this item alone: 200, or the problem\'s status (400, 406, 422, 503, 500)'),
+    scenarioHash: ScenarioHash.optional().describe('With status 200 (and with 422 limit-exceeded for an answer too big for a line): the item\'s scenario hash; GET /v1/results/{scenarioHash} serves the answer while it is cached'),
+    answer: z.unknown().optional().describe('With status 200: exactly the JSON the endpoint answers for this request alone (same fields, same bytes)'),
+    problem: Problem.optional().describe('Otherwise: the RFC 9457 problem the endpoint answers for this request alone'),
+  })
+  .describe(`One line of the ${NDJSON_MEDIA_TYPE} answer: one per item, in input order, each a JSON object ending with a newline`);
+export type BatchLine = z.output<typeof BatchLine>;
+
+export const JobStatus = z.enum(['queued', 'running', 'done', 'failed'])
+  .describe('queued: waiting for a worker; running: items being solved; done: every item has its line (items may have failed: see counts.failed); failed: the job as a whole could not run (see error)');
+export type JobStatus = z.output<typeof JobStatus>;
+
+export const JobRequest = z
+  .object({
+    label: z.string().min(1).max(200).optional().describe('Your name for the job, echoed in its status'),
+    items: itemsField,
+  })
+  .strict()
+  .meta({ description: 'A batch to run later: the same items as POST /v1/batch', examples: [{ label: 'nightly recalculation', items: DEMO_ITEMS }] });
+export type JobRequest = z.output<typeof JobRequest>;
+
+export const JobId = z.string().min(1).max(100).describe('The job id (a UUID)');
+
+export const JobLinks = z.object({
+  self: z.string().describe('GET: the job status'),
+  results: z.string().describe('GET: the NDJSON results once the job is done'),
+});
+
+export const JobAccepted = z.object({
+  id: JobId,
+  status: z.literal('queued'),
+  links: JobLinks,
+});
+
+export const JobAnswer = z.object({
+  id: JobId,
+  label: z.string().nullable().describe('The label given at submission, or null'),
+  status: JobStatus,
+  counts: z.object({
+    items: z.number().int().describe('Items in the job'),
+    done: z.number().int().describe('Items whose line is written (answered or failed)'),
+    failed: z.number().int().describe('Of those, items whose line carries a problem'),
+  }),
+  attempts: z.number().int().describe('Times a worker took the job (more than 1 after a worker stopped under it; the job resumes after the lines already stored)'),
+  createdAt: z.string().describe('Submission time, ISO 8601 UTC'),
+  startedAt: z.string().nullable().describe('When a worker first took it, ISO 8601 UTC; null while queued'),
+  finishedAt: z.string().nullable().describe('When it became done or failed, ISO 8601 UTC; null before'),
+  error: z.string().nullable().describe('Why a failed job failed; null otherwise'),
+  links: JobLinks,
+});
+export type JobAnswer = z.output<typeof JobAnswer>;
