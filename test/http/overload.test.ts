@@ -101,13 +101,13 @@ describe('worker pool under load', () => {
 
   it('a throw inside the worker answers 500 internal with the request id (and never hangs)', async () => {
     app = await buildApp({ logger: false, config: { WORKER_THREADS: 1 } });
-    // A route only this test has: it sends the pool a malformed job (geodetic without earthFixed),
-    // which runJob refuses by throwing in the worker.
+    // A route only this test has: it sends the pool a malformed job (geodetic without earthFixed; a
+    // j2-secular track, which always goes to a thread at this size), which runJob refuses by throwing in the worker.
     app.get('/test/broken-job', async () => {
       const epochsTT = Float64Array.from({ length: 5000 }, (_, i) => 852_076_869.184 + i);
       await app!.pool.solve({
         kind: 'track',
-        input: { body: { name: 'earth', gm: 398_600.4418, sources: {} }, model: 'two-body', r0: [7000, 0, 0], v0: [0, 7.5, 0], epochTT: 852_076_869.184, epochsTT },
+        input: { body: { name: 'earth', gm: 398_600.4418, sources: {} }, model: 'j2-secular', r0: [7000, 0, 0], v0: [0, 7.5, 0], epochTT: 852_076_869.184, epochsTT },
         earthFixed: null,
         geodetic: true,
       });

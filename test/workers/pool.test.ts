@@ -13,6 +13,7 @@ import {
   INLINE_PASS_STATIONS,
   INLINE_PASS_WINDOW_S,
   INLINE_TRACK_SAMPLES,
+  INLINE_TWO_BODY_SAMPLES,
   runsInline,
   type CentralForceJob,
   type PassesJob,
@@ -153,6 +154,10 @@ describe('SolverPool: inline jobs, failures and the bounded queue', () => {
   it('runsInline(job) keeps small jobs on the main thread by the named thresholds', () => {
     expect(runsInline(trackJob(INLINE_TRACK_SAMPLES - 1))).toBe(true);
     expect(runsInline(trackJob(INLINE_TRACK_SAMPLES))).toBe(false);
+    // Inertial two-body tracks stay inline far longer; other models and Earth-fixed output do not.
+    expect(runsInline(trackJob(INLINE_TWO_BODY_SAMPLES - 1, { earthFixed: null, geodetic: false }))).toBe(true);
+    expect(runsInline(trackJob(INLINE_TWO_BODY_SAMPLES, { earthFixed: null, geodetic: false }))).toBe(false);
+    expect(runsInline(trackJob(INLINE_TRACK_SAMPLES, { earthFixed: null, geodetic: false }, { model: 'j2-secular' }))).toBe(false);
     const few = STATIONS.slice(0, INLINE_PASS_STATIONS);
     expect(runsInline(passesJob(INLINE_PASS_WINDOW_S / 86_400, few))).toBe(true);
     expect(runsInline(passesJob(INLINE_PASS_WINDOW_S / 86_400 + 0.01, few))).toBe(false);
