@@ -60,6 +60,14 @@ export class AsciiWriter {
     return this;
   }
 
+  /** Bytes prepared once (constant fragments of a line). */
+  bytes(b: Uint8Array): this {
+    this.#room(b.length);
+    this.#buf.set(b, this.#pos);
+    this.#pos += b.length;
+    return this;
+  }
+
   /** One ASCII character by code. */
   char(code: number): this {
     this.#room(1);

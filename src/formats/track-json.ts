@@ -26,14 +26,16 @@ export function* trackJsonChunks(head: Record<string, unknown>, epochsTT: Float6
   // The head may hold non-ASCII text (object names): UTF-8 bytes, outside the ASCII writer.
   const opening = JSON.stringify(head);
   const headBytes = Buffer.from(`${opening.slice(0, -1)}${opening.length > 2 ? ',' : ''}"samples":[`, 'utf8');
-  const prefixes = fields.map((f) => `,"${f.key}":${f.count > 1 ? '[' : ''}`);
+  const prefixes = fields.map((f) => Buffer.from(`,"${f.key}":${f.count > 1 ? '[' : ''}`, 'latin1'));
+  const firstOpen = Buffer.from('{"epoch":"', 'latin1');
+  const nextOpen = Buffer.from(',{"epoch":"', 'latin1');
   yield headBytes;
   for (let i = 0; i < n; i++) {
     const o = width * i;
-    out.text(i === 0 ? '{"epoch":"' : ',{"epoch":"').utc(epochsTT[i]!).char(34);
+    out.bytes(i === 0 ? firstOpen : nextOpen).utc(epochsTT[i]!).char(34);
     for (let k = 0; k < fields.length; k++) {
       const f = fields[k]!;
-      out.text(prefixes[k]!).fixed(values[o + f.from]!, f.decimals);
+      out.bytes(prefixes[k]!).fixed(values[o + f.from]!, f.decimals);
       for (let c = 1; c < f.count; c++) out.char(44).fixed(values[o + f.from + c]!, f.decimals);
       if (f.count > 1) out.char(93);
     }
