@@ -13,7 +13,7 @@ import { DEG_PER_RAD, problemResponses } from '../schemas/common.js';
 import type { CentralBody } from '../solver/bodies.js';
 import { initialState } from '../schemas/initial-state.js';
 import { gridEpochs } from '../schemas/grid.js';
-import { TRACK_FORMATS, TrackAnswer, TrackRequest } from '../schemas/track.js';
+import { diagnosticsOf, TRACK_FORMATS, TrackAnswer, TrackRequest } from '../schemas/track.js';
 import type { Track } from '../solver/track.js';
 
 /** Increasing order without repeats (an OEM needs strictly increasing epochs). */
@@ -85,11 +85,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
       object: req.object,
       sampleCount: inertial.epochsTT.length,
       // Conservation is checked on the inertial states, whatever the output frame.
-      diagnostics: {
-        energyRelativeDrift: inertial.drift.energy,
-        energyDriftVsPotential: inertial.drift.energyVsPotential,
-        angularMomentumRelativeDrift: inertial.drift.angularMomentumVector,
-      },
+      diagnostics: diagnosticsOf(inertial.drift),
     });
     return app.answers.respondStream(request, reply, 'track', { ...req, format }, async (hash) => {
       const body = resolveBody(req.centralBody);

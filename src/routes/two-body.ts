@@ -1,5 +1,6 @@
 // POST /v1/two-body: two bodies -> barycentre, relative orbit, each body's orbit about the
 // barycentre and the integrals; optionally both tracks about the barycentre (streamed JSON).
+import { diagnosticsOf } from '../schemas/track.js';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { ProblemError, solverProblem } from '../errors.js';
 import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
@@ -98,11 +99,7 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
             origin: 'barycenter',
             frame: req.frame,
             sampleCount: epochsTT.length,
-            diagnostics: {
-              energyRelativeDrift: drift.energy,
-              energyDriftVsPotential: drift.energyVsPotential,
-              angularMomentumRelativeDrift: drift.angularMomentumVector,
-            },
+            diagnostics: diagnosticsOf(drift),
           },
           names: trackNames(req),
           tables: [body1, body2],

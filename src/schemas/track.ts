@@ -1,6 +1,7 @@
 // POST /v1/track: an orbit propagated over a time grid, in JSON, CSV or CCSDS OEM.
 import { z } from 'zod';
 import { TRACK_MODELS } from '../solver/track.js';
+import type { ConservationDrift } from '../solver/universal.js';
 import { DEMO_EPOCH } from './common.js';
 import { Force, modelFields } from './forces.js';
 import { TimeGrid } from './grid.js';
@@ -65,6 +66,19 @@ export const GeodeticSample = z.object({
   height: z.number().describe('Height above the WGS-84 ellipsoid, km, 6 decimals'),
 });
 
+/** Drift of the two-body integrals across a track's inertial samples (for perturbed models it measures the perturbation, not an error). */
+export const TrackDiagnostics = z.object({
+  energyRelativeDrift: z.number().describe('max |E_k - E_0| / |E_0| of the specific (two-body) energy across the samples'),
+  energyDriftVsPotential: z.number().describe('max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0'),
+  angularMomentumRelativeDrift: z.number().describe('max |h_k - h_0| / |h_0| (vector) across the samples'),
+});
+
+export const diagnosticsOf = (drift: ConservationDrift): z.infer<typeof TrackDiagnostics> => ({
+  energyRelativeDrift: drift.energy,
+  energyDriftVsPotential: drift.energyVsPotential,
+  angularMomentumRelativeDrift: drift.angularMomentumVector,
+});
+
 export const TrackSample = z.union([StateSample, GeodeticSample]);
 
 export const TrackAnswer = z.object({
@@ -75,10 +89,6 @@ export const TrackAnswer = z.object({
   centralBody: z.object({ name: z.string(), gm: z.number().describe('km^3/s^2 used'), radius: z.number().nullable() }),
   object: z.object({ name: z.string(), id: z.string() }),
   sampleCount: z.number().int(),
-  diagnostics: z.object({
-    energyRelativeDrift: z.number().describe('max |E_k - E_0| / |E_0| of the specific energy across the samples'),
-    energyDriftVsPotential: z.number().describe('max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0'),
-    angularMomentumRelativeDrift: z.number().describe('max |h_k - h_0| / |h_0| (vector) across the samples'),
-  }),
+  diagnostics: TrackDiagnostics,
   samples: z.array(TrackSample),
 });

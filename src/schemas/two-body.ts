@@ -1,5 +1,6 @@
 // POST /v1/two-body: request and answer schemas, and the mapping from the solver's reduction
 // (masses as GM = G m, integrals times G) to the API (kg, kg km^2/s^2, kg km^2/s, degrees, ISO epochs).
+import { TrackDiagnostics } from './track.js';
 import { z } from 'zod';
 import type { CentralBody } from '../solver/bodies.js';
 import {
@@ -122,11 +123,6 @@ const AngularMomentum = z
   })
   .describe('Total angular momentum about the barycentre, kg km^2/s (1 kg km^2/s = 1e6 kg m^2/s)');
 
-export const TrackDiagnostics = z.object({
-  energyRelativeDrift: z.number().describe('max |E_k - E_0| / |E_0| of the relative orbit\'s specific energy across the samples'),
-  energyDriftVsPotential: z.number().describe('max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0'),
-  angularMomentumRelativeDrift: z.number().describe('max |h_k - h_0| / |h_0| (vector) of the relative motion across the samples'),
-});
 
 export const BarycentricSample = z.object({
   epoch: EpochOut,
