@@ -21,7 +21,7 @@ const KM_S_PER_AU_DAY = AU_KM / SECONDS_PER_DAY;
 
 export type ThirdBody = 'sun' | 'moon';
 
-export interface BodyState {
+export interface ThirdBodyState {
   /** Geocentric position, km, J2000 equator (EQJ ~ GCRF). */
   readonly r: Vec3;
   /** Geocentric velocity, km/s. */
@@ -29,7 +29,7 @@ export interface BodyState {
 }
 
 /** Geocentric state of the Sun or the Moon at a TT epoch (s since J2000), straight from astronomy-engine. */
-export function thirdBodyState(body: ThirdBody, tt: number): BodyState {
+export function thirdBodyState(body: ThirdBody, tt: number): ThirdBodyState {
   const time = AstroTime.FromTerrestrialTime(tt / SECONDS_PER_DAY);
   // The Sun as seen from the Earth is minus the Earth's heliocentric state.
   const s = body === 'sun' ? HelioState(Body.Earth, time) : GeoMoonState(time);
@@ -56,8 +56,8 @@ export function ephemerisCache(body: ThirdBody, originTT: number, spacing = EPHE
   if (!(Number.isFinite(originTT) && spacing > 0 && Number.isFinite(spacing))) {
     throw new RangeError(`ephemerisCache needs a finite origin and a positive spacing, got ${originTT}, ${spacing}`);
   }
-  const nodes = new Map<number, BodyState>();
-  const node = (k: number): BodyState => {
+  const nodes = new Map<number, ThirdBodyState>();
+  const node = (k: number): ThirdBodyState => {
     let n = nodes.get(k);
     if (!n) {
       n = thirdBodyState(body, originTT + k * spacing);
