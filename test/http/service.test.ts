@@ -18,7 +18,7 @@ describe('service endpoints', () => {
   it('GET /openapi.json lists every public route with its schemas', async () => {
     const doc = (await app.inject({ url: '/openapi.json' })).json();
     expect(doc.openapi).toBe('3.1.0');
-    for (const path of ['/healthz', '/readyz', '/v1/bodies', '/v1/orbit', '/v1/two-body', '/v1/central-force', '/v1/track', '/v1/passes', '/v1/results/{scenarioHash}']) {
+    for (const path of ['/healthz', '/readyz', '/v1/bodies', '/v1/orbit', '/v1/two-body', '/v1/central-force', '/v1/track', '/v1/passes', '/v1/batch', '/v1/jobs', '/v1/jobs/{id}', '/v1/jobs/{id}/results', '/v1/results/{scenarioHash}']) {
       expect(doc.paths, path).toHaveProperty([path]);
     }
     const orbit = doc.paths['/v1/orbit'].post;
