@@ -10,6 +10,33 @@ const PAIRS = Uint8Array.from({ length: 200 }, (_, i) => ZERO + (i & 1 ? (i >> 1
 const INT32_LIMIT = 2_147_483_648;
 const SCALES = Array.from({ length: 21 }, (_, i) => 10 ** i);
 
+/** Decimal digits of a non-negative int32. */
+const digitCount = (n: number): number =>
+  n < 1e4 ? (n < 100 ? (n < 10 ? 1 : 2) : n < 1000 ? 3 : 4)
+    : n < 1e6 ? (n < 1e5 ? 5 : 6) : n < 1e8 ? (n < 1e7 ? 7 : 8) : n < 1e9 ? 9 : 10;
+
+/** Writes a non-negative int32 with at least `width` digits at pos, right to left, two digits per division; returns the end. */
+function writeInt32(buf: Uint8Array, pos: number, n: number, width: number): number {
+  const end = pos + Math.max(digitCount(n), width);
+  let p = end;
+  let m = n;
+  while (m >= 100) {
+    const q = (m / 100) | 0;
+    const r = (m - q * 100) << 1;
+    buf[--p] = PAIRS[r + 1]!;
+    buf[--p] = PAIRS[r]!;
+    m = q;
+  }
+  if (m >= 10) {
+    buf[--p] = PAIRS[(m << 1) + 1]!;
+    buf[--p] = PAIRS[m << 1]!;
+  } else {
+    buf[--p] = ZERO + m;
+  }
+  while (p > pos) buf[--p] = ZERO;
+  return end;
+}
+
 export class AsciiWriter {
   readonly #chunkBytes: number;
   #buf: Buffer;
@@ -77,6 +104,10 @@ export class AsciiWriter {
 
   /** A non-negative integer below 2^53, with at least `width` digits (zero-padded); room already reserved. */
   #integer(n: number, width: number): void {
+    if (n < INT32_LIMIT) {
+      this.#pos = writeInt32(this.#buf, this.#pos, n, width);
+      return;
+    }
     const d = this.#digits;
     let k = 0;
     // Above 2^31: peel off digits in floating point until int32 arithmetic can take over.
