@@ -1,7 +1,8 @@
 // End to end: the HTTP answer of a 100,000-sample track (CSV and JSON) over a loopback socket,
-// per sample, against the common baseline loop measured in the same run. The cache is off so
-// every request is computed; the client only counts the bytes.
-import { request as httpRequest } from 'node:http';
+// per sample, against the common baseline loop measured in the same run. The server runs in this
+// process with its cache off (every request is computed); the client is a separate process that
+// only counts the bytes, so its reading does not load the server's thread.
+import { spawn } from 'node:child_process';
 import type { AddressInfo } from 'node:net';
 import { buildApp } from '../src/app.js';
 import { baselineLoop } from './baseline.js';
@@ -19,17 +20,33 @@ const scenario = (format: 'csv' | 'json') => ({
   format,
 });
 
-/** POST and drain the answer; resolves with the status and the byte count. */
-function post(port: number, body: string): Promise<{ status: number; bytes: number }> {
+// The client: POSTs the body `rounds` times and prints "<status> <bytes> <ns>" per request.
+const CLIENT = `
+const http = require('node:http');
+const [port, rounds, body] = [Number(process.argv[1]), Number(process.argv[2]), process.argv[3]];
+const once = () => new Promise((resolve, reject) => {
+  const t0 = process.hrtime.bigint();
+  const req = http.request({ host: '127.0.0.1', port, path: '/v1/track', method: 'POST', headers: { 'content-type': 'application/json' } }, (res) => {
+    let bytes = 0;
+    res.on('data', (c) => { bytes += c.length; });
+    res.on('end', () => resolve(res.statusCode + ' ' + bytes + ' ' + (process.hrtime.bigint() - t0)));
+  });
+  req.on('error', reject);
+  req.end(body);
+});
+(async () => { for (let i = 0; i < rounds; i++) console.log(await once()); })();
+`;
+
+function client(port: number, rounds: number, body: string): Promise<Array<{ status: number; bytes: number; ns: number }>> {
   return new Promise((resolve, reject) => {
-    const req = httpRequest({ host: '127.0.0.1', port, path: '/v1/track', method: 'POST', headers: { 'content-type': 'application/json' } }, (res) => {
-      let bytes = 0;
-      res.on('data', (chunk: Buffer) => { bytes += chunk.length; });
-      res.on('end', () => resolve({ status: res.statusCode ?? 0, bytes }));
-      res.on('error', reject);
-    });
-    req.on('error', reject);
-    req.end(body);
+    const child = spawn(process.execPath, ['-e', CLIENT, String(port), String(rounds), body], { stdio: ['ignore', 'pipe', 'inherit'] });
+    let out = '';
+    child.stdout.on('data', (c: Buffer) => { out += c.toString(); });
+    child.on('error', reject);
+    child.on('close', () => resolve(out.trim().split('\n').map((line) => {
+      const [status, bytes, ns] = line.split(' ').map(Number);
+      return { status: status!, bytes: bytes!, ns: ns! };
+    })));
   });
 }
 
@@ -42,22 +59,22 @@ export async function benchTrackHttp(): Promise<BenchResult[]> {
   let bytes = 0;
   let sink = 0;
   for (let r = 0; r < ROUNDS; r++) {
-    let t0 = process.hrtime.bigint();
+    const t0 = process.hrtime.bigint();
     sink += baselineLoop(BASELINE_N);
     base = Math.min(base, Number(process.hrtime.bigint() - t0) / BASELINE_N);
     for (const format of ['csv', 'json'] as const) {
-      t0 = process.hrtime.bigint();
-      const res = await post(port, JSON.stringify(scenario(format)));
-      const ns = Number(process.hrtime.bigint() - t0) / SAMPLES;
-      if (res.status !== 200) throw new Error(`track answered ${res.status}`);
-      bytes = res.bytes;
-      best[format] = Math.min(best[format]!, ns);
+      // Two requests per round: the second one is measured (the first warms the path after the baseline loop).
+      const runs = await client(port, 2, JSON.stringify(scenario(format)));
+      const last = runs[runs.length - 1]!;
+      if (last.status !== 200) throw new Error(`track answered ${last.status}`);
+      bytes = last.bytes;
+      best[format] = Math.min(best[format]!, last.ns / SAMPLES);
     }
   }
   await app.close();
   return [
     { name: 'baseline: sin + cos', opsPerSecond: 1e9 / base, ratioToBaseline: 1, note: `sink ${sink.toExponential(2)}` },
-    { name: 'HTTP track, 100k samples, CSV (per sample)', opsPerSecond: 1e9 / best.csv!, ratioToBaseline: best.csv! / base, note: `last answer ${bytes} bytes` },
+    { name: 'HTTP track, 100k samples, CSV (per sample)', opsPerSecond: 1e9 / best.csv!, ratioToBaseline: best.csv! / base, note: `last answer ${bytes} bytes; client in its own process` },
     { name: 'HTTP track, 100k samples, JSON (per sample)', opsPerSecond: 1e9 / best.json!, ratioToBaseline: best.json! / base },
   ];
 }
