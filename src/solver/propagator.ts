@@ -84,7 +84,7 @@ export function stateFunction(spec: PropagationSpec, startTT: number, stopTT: nu
   });
 }
 
-/** Cubic Hermite interpolation between nodes k and k+1 at fraction u of a step h (positions from positions and velocities; velocities by differentiation). */
+/** Cubic Hermite interpolation between nodes k and k+1 at fraction u of a step h (positions from positions and velocities; velocities by differentiation); Burden & Faires, Numerical Analysis, 9th ed., sec. 3.4 (from memory). */
 function hermite(s: Float64Array, k: number, u: number, h: number): { r: Vec3; v: Vec3 } {
   const u2 = u * u;
   const u3 = u2 * u;
