@@ -1,6 +1,6 @@
 // Kepler's-equation solves per second against the common baseline loop (one Math.sin + one
 // Math.cos per iteration), interleaved in one run with fixed iteration counts.
-import { solveKeplerElliptic, solveKeplerHyperbolic } from '../src/solver/kepler.js';
+import { solveKeplerElliptic, solveKeplerHyperbolic } from '../src/solver/conic/kepler.js';
 import { baselineLoop } from './baseline.js';
 import type { BenchResult } from './types.js';
 

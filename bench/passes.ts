@@ -3,10 +3,10 @@
 // in the same run, interleaved, fixed iteration counts, best round kept.
 // The spacecraft moves on a closed-form circular orbit (invented; no propagator file needed).
 
-import { gcrfToItrfBatch } from '../src/solver/frames.js';
-import { coarseStepFor, findPasses, type PassStation, type StateAt } from '../src/solver/passes.js';
-import { parseUtcIso } from '../src/solver/time.js';
-import type { Vec3 } from '../src/solver/vec3.js';
+import { gcrfToItrfBatch } from '../src/solver/earth/frames.js';
+import { coarseStepFor, findPasses, type PassStation, type StateAt } from '../src/solver/stations/passes.js';
+import { parseUtcIso } from '../src/solver/time/time.js';
+import type { Vec3 } from '../src/solver/core/vec3.js';
 import type { BenchResult } from './types.js';
 
 const DEG = Math.PI / 180;

@@ -4,7 +4,7 @@
 
 import { cpus } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { propagate, propagateGrid } from '../src/solver/universal.js';
+import { propagate, propagateGrid } from '../src/solver/conic/universal.js';
 import { baselineLoop } from './baseline.js';
 import type { BenchResult } from './types.js';
 

@@ -2,7 +2,7 @@
 // Answers are RFC 9457 problem details with `type` = `/problems/<code>` (served by GET /problems/{code}).
 // docs/errors.md lists the same table; test/errors.test.ts checks the two agree.
 
-import type { SolverFailureCode } from './solver/result.js';
+import type { SolverFailureCode } from './solver/core/result.js';
 
 export interface ErrorEntry {
   readonly status: number;

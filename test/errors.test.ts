@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { ERRORS, errorCodes } from '../src/errors.js';
-import { SOLVER_FAILURE_CODES } from '../src/solver/result.js';
+import { SOLVER_FAILURE_CODES } from '../src/solver/core/result.js';
 
 describe('error table', () => {
   it('docs/errors.md lists exactly the codes of src/errors.ts with the same status and title', () => {

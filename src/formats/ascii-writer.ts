@@ -1,7 +1,7 @@
 // Writes ASCII text straight into fixed-size byte chunks: numbers and epochs are turned into
 // digits once, in place, with no intermediate string per sample. The formatters of big answers
 // (CSV, OEM, JSON tracks) write through it and yield each full chunk.
-import { newUtcFields, utcSplitter, type UtcFields } from '../solver/time.js';
+import { newUtcFields, utcSplitter, type UtcFields } from '../solver/time/time.js';
 import { fixed } from './track-table.js';
 
 const ZERO = 48;

@@ -5,7 +5,7 @@
 // longitude and latitude and repeated at +180 and -180. Output is a generator of string chunks,
 // byte-for-byte deterministic for a given input.
 
-import { formatUtcIso } from '../solver/time.js';
+import { formatUtcIso } from '../solver/time/time.js';
 
 export const GEOJSON_MEDIA_TYPE = 'application/geo+json; charset=utf-8';
 

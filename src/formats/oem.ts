@@ -11,7 +11,7 @@
 //   throws a RangeError naming the first offending sample (the caller sorts before formatting).
 // - Lines end with LF; fixed-point numbers, by default 6 decimals for km and 9 for km/s.
 
-import { utcFormatter } from '../solver/time.js';
+import { utcFormatter } from '../solver/time/time.js';
 import { AsciiWriter } from './ascii-writer.js';
 import { checkDigits, firstNonIncreasing, sampleCount, type TrackTable } from './track-table.js';
 

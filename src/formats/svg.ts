@@ -2,7 +2,7 @@
 // level, turning points and circular orbits. Deterministic: same analysis, same bytes (fixed
 // layout, fixed number formatting, no ids from counters or clocks).
 
-import type { CentralForceAnalysis } from '../solver/radial.js';
+import type { CentralForceAnalysis } from '../solver/central/radial.js';
 
 export interface SvgPlotOptions {
   readonly title?: string;

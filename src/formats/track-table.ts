@@ -1,5 +1,5 @@
 // A propagated track as the formatters read it: epochs and Cartesian states in flat typed arrays
-// (no per-sample objects). Structurally the same as StateTable in src/solver/two-body.ts.
+// (no per-sample objects). Structurally the same as StateTable in src/solver/conic/two-body.ts.
 
 /** epochsTT[i]: TT seconds since J2000.0; states[6i..6i+5]: x, y, z (km), vx, vy, vz (km/s). */
 export interface TrackTable {

@@ -11,7 +11,7 @@ import type { BatchItem } from '../schemas/batch.js';
 import { DEFAULT_TRACK_SAMPLES } from '../schemas/central-force.js';
 import { epochTT } from '../schemas/common.js';
 import { TimeGrid } from '../schemas/grid.js';
-import { regularGridCount } from '../solver/grid.js';
+import { regularGridCount } from '../solver/core/grid.js';
 import type { LineOut, RunLines } from './queue.js';
 
 export interface RunnerOptions {

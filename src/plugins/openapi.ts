@@ -5,7 +5,7 @@ import swagger from '@fastify/swagger';
 import swaggerUi from '@fastify/swagger-ui';
 import type { FastifyInstance } from 'fastify';
 import { jsonSchemaTransform, jsonSchemaTransformObject } from 'fastify-type-provider-zod';
-import { SOLVER_VERSION } from '../solver/version.js';
+import { SOLVER_VERSION } from '../solver/core/version.js';
 
 export const API_DESCRIPTION = `Orbit solutions over HTTP: two-body reduction, orbital elements, apsides and period, general
 central-force motion through the effective potential, propagated tracks and ground-station passes.

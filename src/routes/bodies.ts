@@ -1,7 +1,7 @@
 // GET /v1/bodies: the built-in central bodies with their constants and published sources.
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
-import { BODIES, BODY_NAMES } from '../solver/bodies.js';
+import { BODIES, BODY_NAMES } from '../solver/bodies/bodies.js';
 import { BodyDescription, describeBody } from '../schemas/body.js';
 import { DEG_PER_RAD } from '../schemas/common.js';
 

@@ -1,7 +1,7 @@
 // Liveness and readiness. Readiness fails while the app is closing.
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
-import { SOLVER_VERSION } from '../solver/version.js';
+import { SOLVER_VERSION } from '../solver/core/version.js';
 
 const Health = z.object({ status: z.enum(['ok', 'closing']), solverVersion: z.string() });
 

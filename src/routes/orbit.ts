@@ -5,7 +5,7 @@ import { jsonAnswer } from '../plugins/answers.js';
 import { problemResponses } from '../schemas/common.js';
 import { resolveBody } from '../schemas/body.js';
 import { OrbitAnswer, OrbitRequest, orbitSolverInput, toOrbitAnswer } from '../schemas/orbit.js';
-import { solveOrbit } from '../solver/orbit.js';
+import { solveOrbit } from '../solver/conic/orbit.js';
 
 const orbit: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/orbit', {

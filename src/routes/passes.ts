@@ -6,10 +6,10 @@ import { DEG_PER_RAD, RAD_PER_DEG, epochTT, problemResponses } from '../schemas/
 import { resolveBody } from '../schemas/body.js';
 import { initialState } from '../schemas/initial-state.js';
 import { PassesAnswer, PassesRequest } from '../schemas/passes.js';
-import type { Pass } from '../solver/passes.js';
-import { formatUtcIso } from '../solver/time.js';
-import { dopplerShift } from '../solver/topocentric.js';
-import { propagateTrack } from '../solver/track.js';
+import type { Pass } from '../solver/stations/passes.js';
+import { formatUtcIso } from '../solver/time/time.js';
+import { dopplerShift } from '../solver/stations/topocentric.js';
+import { propagateTrack } from '../solver/propagation/track.js';
 
 const passes: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/passes', {

@@ -10,11 +10,11 @@ import { firstUnprintable, PRINTABLE_LIMIT } from '../formats/track-table.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../schemas/body.js';
 import { DEG_PER_RAD, problemResponses } from '../schemas/common.js';
-import type { CentralBody } from '../solver/bodies.js';
+import type { CentralBody } from '../solver/bodies/bodies.js';
 import { initialState } from '../schemas/initial-state.js';
 import { gridEpochs } from '../schemas/grid.js';
 import { diagnosticsOf, TRACK_FORMATS, TrackAnswer, TrackRequest } from '../schemas/track.js';
-import type { Track } from '../solver/track.js';
+import type { Track } from '../solver/propagation/track.js';
 
 /** Increasing order without repeats (an OEM needs strictly increasing epochs). */
 function increasing(epochs: Float64Array): Float64Array {

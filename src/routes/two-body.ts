@@ -16,9 +16,9 @@ import {
   TwoBodyRequest,
   type TwoBodyTracks,
 } from '../schemas/two-body.js';
-import { solveOrbit } from '../solver/orbit.js';
-import { propagateTrack } from '../solver/track.js';
-import { bodyTracksAboutBarycentre, reduceTwoBody } from '../solver/two-body.js';
+import { solveOrbit } from '../solver/conic/orbit.js';
+import { propagateTrack } from '../solver/propagation/track.js';
+import { bodyTracksAboutBarycentre, reduceTwoBody } from '../solver/conic/two-body.js';
 
 /** The track formatter prints fixed-point numbers below this magnitude (see formats/track-table.ts). */
 

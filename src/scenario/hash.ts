@@ -3,7 +3,7 @@
 // with its defaults filled. Same scenario -> same hash, whatever the key order of the request.
 import { createHash } from 'node:crypto';
 import canonicalize from 'canonicalize';
-import { SOLVER_VERSION } from '../solver/version.js';
+import { SOLVER_VERSION } from '../solver/core/version.js';
 
 export type ScenarioKind = 'orbit' | 'two-body' | 'central-force' | 'track' | 'passes';
 

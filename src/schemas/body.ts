@@ -1,6 +1,6 @@
 // Central bodies at the API: a built-in name, or a body given by its constants.
 import { z } from 'zod';
-import { BODIES, BODY_NAMES, type CentralBody } from '../solver/bodies.js';
+import { BODIES, BODY_NAMES, type CentralBody } from '../solver/bodies/bodies.js';
 import { DEG_PER_RAD, RAD_PER_DEG } from './common.js';
 
 export const BodyName = z.enum(BODY_NAMES).describe('A built-in central body (GET /v1/bodies lists their constants and sources)');

@@ -2,10 +2,10 @@
 // the API (degrees for angles). Lengths, energies, masses and times are passed through unchanged:
 // the endpoint works in any consistent unit system.
 import { z } from 'zod';
-import { MAX_ABS_EXPONENT, MAX_TERMS, type PotentialTerm } from '../solver/potential.js';
-import { DEFAULT_SAMPLES, fromInitial, MAX_SAMPLES, type CentralForceAnalysis, type CentralForceProblem } from '../solver/radial.js';
-import { MAX_TRACK_SAMPLES, type RadialTrack } from '../solver/radial-track.js';
-import { success, type Outcome } from '../solver/result.js';
+import { MAX_ABS_EXPONENT, MAX_TERMS, type PotentialTerm } from '../solver/central/potential.js';
+import { DEFAULT_SAMPLES, fromInitial, MAX_SAMPLES, type CentralForceAnalysis, type CentralForceProblem } from '../solver/central/radial.js';
+import { MAX_TRACK_SAMPLES, type RadialTrack } from '../solver/central/radial-track.js';
+import { success, type Outcome } from '../solver/core/result.js';
 import { DEG_PER_RAD, ScenarioHash } from './common.js';
 
 const UNITS_NOTE = 'Any consistent unit system: the numbers are used as given (no km or degree conversion), so lengths, masses, times and energies must all come from one system.';

@@ -1,6 +1,6 @@
 // Shared request/answer pieces. Units at the API: km, km/s, s, degrees, kg, km^3/s^2.
 import { z } from 'zod';
-import { parseUtcIso } from '../solver/time.js';
+import { parseUtcIso } from '../solver/time/time.js';
 
 export const DEMO_EPOCH = '2026-12-01T00:00:00Z';
 

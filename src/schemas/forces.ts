@@ -1,6 +1,6 @@
 // Propagation model and forces at the API (shared by /v1/track and /v1/passes).
 import { z } from 'zod';
-import { MODELS } from '../solver/propagator.js';
+import { MODELS } from '../solver/propagation/propagator.js';
 
 export const Force = z
   .discriminatedUnion('kind', [

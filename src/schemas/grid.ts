@@ -1,7 +1,7 @@
 // Time grids at the API: a regular grid (start, stop, step) or a list of epochs.
 import { z } from 'zod';
 import { ProblemError } from '../errors.js';
-import { regularGrid, regularGridCount } from '../solver/grid.js';
+import { regularGrid, regularGridCount } from '../solver/core/grid.js';
 import { Epoch, epochTT as tt } from './common.js';
 
 export const TimeGrid = z

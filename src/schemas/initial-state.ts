@@ -1,9 +1,9 @@
 // The initial Cartesian state of a request's orbit (state given, or elements converted).
 import type { z } from 'zod';
-import type { CentralBody } from '../solver/bodies.js';
-import { elementsToState } from '../solver/elements.js';
-import { failure, success, type Outcome } from '../solver/result.js';
-import type { Vec3 } from '../solver/vec3.js';
+import type { CentralBody } from '../solver/bodies/bodies.js';
+import { elementsToState } from '../solver/conic/elements.js';
+import { failure, success, type Outcome } from '../solver/core/result.js';
+import type { Vec3 } from '../solver/core/vec3.js';
 import { orbitSolverInput, type ElementsInput, type StateInput } from './orbit.js';
 
 export function initialState(

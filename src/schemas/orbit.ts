@@ -1,10 +1,10 @@
 // POST /v1/orbit: request and answer schemas, and the mapping from solver units (radians) to the API (degrees, ISO epochs).
 import { z } from 'zod';
-import type { OrbitSolution } from '../solver/orbit.js';
-import { orbitTypeOf, type ElementsInput as SolverElementsInput } from '../solver/elements.js';
-import type { CentralBody } from '../solver/bodies.js';
-import { END_OF_SUPPORTED_RANGE_TT, formatUtcIso } from '../solver/time.js';
-import type { Vec3 as SolverVec3 } from '../solver/vec3.js';
+import type { OrbitSolution } from '../solver/conic/orbit.js';
+import { orbitTypeOf, type ElementsInput as SolverElementsInput } from '../solver/conic/elements.js';
+import type { CentralBody } from '../solver/bodies/bodies.js';
+import { END_OF_SUPPORTED_RANGE_TT, formatUtcIso } from '../solver/time/time.js';
+import type { Vec3 as SolverVec3 } from '../solver/core/vec3.js';
 import { CentralBodyInput, BodySummary, describeBody } from './body.js';
 import { DEG_PER_RAD, DEMO_EPOCH, Epoch, EpochOut, epochTT, MAX_POSITION_KM, PositionKm, RAD_PER_DEG, ScenarioHash, Vec3, VelocityKmS } from './common.js';
 

@@ -1,7 +1,7 @@
 // POST /v1/passes: ground-station passes of one spacecraft over a window.
 import { z } from 'zod';
-import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTING_STEP_S } from '../solver/passes.js';
-import { TRACK_MODELS } from '../solver/track.js';
+import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTING_STEP_S } from '../solver/stations/passes.js';
+import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { DEMO_EPOCH, Epoch, EpochOut } from './common.js';
 import { modelFields } from './forces.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';

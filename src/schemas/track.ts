@@ -1,7 +1,7 @@
 // POST /v1/track: an orbit propagated over a time grid, in JSON, CSV or CCSDS OEM.
 import { z } from 'zod';
-import { TRACK_MODELS } from '../solver/track.js';
-import type { ConservationDrift } from '../solver/universal.js';
+import { TRACK_MODELS } from '../solver/propagation/track.js';
+import type { ConservationDrift } from '../solver/conic/universal.js';
 import { DEMO_EPOCH } from './common.js';
 import { Force, modelFields } from './forces.js';
 import { TimeGrid } from './grid.js';

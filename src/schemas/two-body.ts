@@ -2,19 +2,19 @@
 // (masses as GM = G m, integrals times G) to the API (kg, kg km^2/s^2, kg km^2/s, degrees, ISO epochs).
 import { TrackDiagnostics } from './track.js';
 import { z } from 'zod';
-import type { CentralBody } from '../solver/bodies.js';
+import type { CentralBody } from '../solver/bodies/bodies.js';
 import {
   GRAVITATIONAL_CONSTANT_KM3_PER_KG_S2,
   GRAVITATIONAL_CONSTANT_RELATIVE_UNCERTAINTY,
   GRAVITATIONAL_CONSTANT_SOURCE,
   gmFromMass,
   massFromGm,
-} from '../solver/constants.js';
-import { relativeDifference } from '../solver/math.js';
-import type { OrbitSolution } from '../solver/orbit.js';
-import type { BodyState, TwoBodyReduction } from '../solver/two-body.js';
-import { formatUtcIso } from '../solver/time.js';
-import { norm, sub, type Vec3 as SolverVec3 } from '../solver/vec3.js';
+} from '../solver/core/constants.js';
+import { relativeDifference } from '../solver/core/math.js';
+import type { OrbitSolution } from '../solver/conic/orbit.js';
+import type { BodyState, TwoBodyReduction } from '../solver/conic/two-body.js';
+import { formatUtcIso } from '../solver/time/time.js';
+import { norm, sub, type Vec3 as SolverVec3 } from '../solver/core/vec3.js';
 import { DEMO_EPOCH, Epoch, EpochOut, ScenarioHash, Vec3 } from './common.js';
 import { TimeGrid } from './grid.js';
 import { OrbitAnswer, toOrbitAnswer } from './orbit.js';

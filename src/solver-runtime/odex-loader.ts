@@ -1,4 +1,4 @@
-// Loads odex (CommonJS, ships its .ts sources) for src/solver/ode.ts.
+// Loads odex (CommonJS, ships its .ts sources) for src/solver/numerics/ode.ts.
 // A static `import 'odex'` (or 'odex/src/odex.js') makes tsc resolve the package's own odex.ts,
 // which fails this project's strict checks; createRequire keeps tsc out of the package and works
 // the same under node, tsx and vitest. It lives outside src/solver because the solver does not

@@ -1,5 +1,5 @@
 // Hand-written types for the parts of odex 2.0.4 (Hairer & Wanner's ODEX, Gragg-Bulirsch-Stoer
-// extrapolation) that src/solver/ode.ts uses. The package ships raw .ts that does not pass this
+// extrapolation) that src/solver/numerics/ode.ts uses. The package ships raw .ts that does not pass this
 // project's strict settings, so it is loaded at run time by src/solver-runtime/odex-loader.ts and
 // typed here instead of through its own sources.
 

@@ -6,14 +6,14 @@
 // whose bulk is Float64Array buffers that are transferred, not copied (toWire / fromWire).
 // Imports the solver only.
 
-import { gcrfToItrfBatch } from '../solver/frames.js';
-import { geodeticBatch } from '../solver/geodetic.js';
-import { findPasses, type Pass, type PassSearchOptions, type PassSearchResult, type PassStation, type PointingSample } from '../solver/passes.js';
-import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest } from '../solver/radial-track.js';
-import { analyseCentralForce, type AnalysisOptions, type CentralForceAnalysis, type CentralForceProblem, type PotentialSample } from '../solver/radial.js';
-import { success, type Outcome } from '../solver/result.js';
-import { propagateTrack, type Track, type TrackInput } from '../solver/track.js';
-import { stateFunction, type PropagationSpec } from '../solver/propagator.js';
+import { gcrfToItrfBatch } from '../solver/earth/frames.js';
+import { geodeticBatch } from '../solver/earth/geodetic.js';
+import { findPasses, type Pass, type PassSearchOptions, type PassSearchResult, type PassStation, type PointingSample } from '../solver/stations/passes.js';
+import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest } from '../solver/central/radial-track.js';
+import { analyseCentralForce, type AnalysisOptions, type CentralForceAnalysis, type CentralForceProblem, type PotentialSample } from '../solver/central/radial.js';
+import { success, type Outcome } from '../solver/core/result.js';
+import { propagateTrack, type Track, type TrackInput } from '../solver/propagation/track.js';
+import { stateFunction, type PropagationSpec } from '../solver/propagation/propagator.js';
 
 // Size thresholds: below them a job runs inline (a few ms to a few tens of ms, measured on the
 // two-core development machine), at or above them in a worker thread.

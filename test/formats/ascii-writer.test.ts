@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { AsciiWriter } from '../../src/formats/ascii-writer.js';
 import { fixed } from '../../src/formats/track-table.js';
-import { formatUtcIso, parseUtcIso } from '../../src/solver/time.js';
+import { formatUtcIso, parseUtcIso } from '../../src/solver/time/time.js';
 
 const written = (write: (w: AsciiWriter) => void, digits = 3): string => {
   const w = new AsciiWriter(digits, 128);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { CSV_HEADER, csvChunks } from '../../src/formats/csv.js';
 import { fixed, type TrackTable } from '../../src/formats/track-table.js';
-import { parseUtcIso } from '../../src/solver/time.js';
+import { parseUtcIso } from '../../src/solver/time/time.js';
 import { expectClose } from '../helpers/approx.js';
 
 /** An invented track: n samples a minute apart from 2026-12-01T00:00:00Z, smooth made-up numbers. */

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { groundTrackGeoJson, splitAtAntimeridian, type GroundTrackSample } from '../../src/formats/geojson.js';
-import { parseUtcIso } from '../../src/solver/time.js';
+import { parseUtcIso } from '../../src/solver/time/time.js';
 
 const T0 = (() => {
   const r = parseUtcIso('2026-12-01T00:00:00Z');

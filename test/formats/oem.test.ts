@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { oemChunks, type OemMeta } from '../../src/formats/oem.js';
 import type { TrackTable } from '../../src/formats/track-table.js';
-import { parseUtcIso } from '../../src/solver/time.js';
-import { propagateGrid } from '../../src/solver/universal.js';
+import { parseUtcIso } from '../../src/solver/time/time.js';
+import { propagateGrid } from '../../src/solver/conic/universal.js';
 import { expectClose } from '../helpers/approx.js';
 import { parseOemKvn } from '../helpers/oem-kvn.js';
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { analyseCentralForce, type CentralForceAnalysis } from '../../src/solver/radial.js';
+import { analyseCentralForce, type CentralForceAnalysis } from '../../src/solver/central/radial.js';
 import { effectivePotentialSvg, formatTick, formatValue } from '../../src/formats/svg.js';
-import type { PotentialTerm } from '../../src/solver/potential.js';
+import type { PotentialTerm } from '../../src/solver/central/potential.js';
 
 function analysis(terms: PotentialTerm[], angularMomentum: number, energy: number): CentralForceAnalysis {
   const r = analyseCentralForce({ mass: 1, terms, angularMomentum, energy });

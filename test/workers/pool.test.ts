@@ -1,14 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BODIES } from '../../src/solver/bodies.js';
-import { gcrfToItrfBatch } from '../../src/solver/frames.js';
-import { geodeticBatch } from '../../src/solver/geodetic.js';
-import { findPasses, type PassStation } from '../../src/solver/passes.js';
-import { radialTrack } from '../../src/solver/radial-track.js';
-import { analyseCentralForce, type CentralForceProblem } from '../../src/solver/radial.js';
-import { parseUtcIso } from '../../src/solver/time.js';
-import { propagateTrack } from '../../src/solver/track.js';
-import { propagate } from '../../src/solver/universal.js';
-import type { Vec3 } from '../../src/solver/vec3.js';
+import { BODIES } from '../../src/solver/bodies/bodies.js';
+import { gcrfToItrfBatch } from '../../src/solver/earth/frames.js';
+import { geodeticBatch } from '../../src/solver/earth/geodetic.js';
+import { findPasses, type PassStation } from '../../src/solver/stations/passes.js';
+import { radialTrack } from '../../src/solver/central/radial-track.js';
+import { analyseCentralForce, type CentralForceProblem } from '../../src/solver/central/radial.js';
+import { parseUtcIso } from '../../src/solver/time/time.js';
+import { propagateTrack } from '../../src/solver/propagation/track.js';
+import { propagate } from '../../src/solver/conic/universal.js';
+import type { Vec3 } from '../../src/solver/core/vec3.js';
 import {
   INLINE_PASS_STATIONS,
   INLINE_PASS_WINDOW_S,

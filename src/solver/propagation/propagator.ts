@@ -1,0 +1,112 @@
+// One entry to every propagation model: states at many epochs, or a state function for searches.
+//   two-body    exact Keplerian motion (universal variables)
+//   j2-secular  Keplerian motion with the secular J2 drift of node, periapsis and mean anomaly
+//   numerical   integrated two-body gravity plus chosen forces (J2, drag, Sun, Moon, radiation pressure)
+
+import type { CentralBody } from '../bodies/bodies.js';
+import { j2SecularPropagator } from './j2-secular.js';
+import { propagateNumerical } from './numerical.js';
+import type { Force } from './perturbations.js';
+import { failure, success, type Outcome } from '../core/result.js';
+import { propagate, propagateGrid } from '../conic/universal.js';
+import type { Vec3 } from '../core/vec3.js';
+
+export const MODELS = ['two-body', 'j2-secular', 'numerical'] as const;
+export type Model = (typeof MODELS)[number];
+
+export interface PropagationSpec {
+  readonly body: CentralBody;
+  readonly model: Model;
+  /** Forces of the numerical model (ignored by the others). */
+  readonly forces?: readonly Force[];
+  /** Initial state (GCRF, km, km/s) at epochTT. */
+  readonly r0: Vec3;
+  readonly v0: Vec3;
+  readonly epochTT: number;
+  /** numerical: propagate below the body radius instead of failing with 'impact'. */
+  readonly passThroughBody?: boolean;
+}
+
+export type StateFunction = (tt: number) => Outcome<{ r: Vec3; v: Vec3 }>;
+
+/** States (x, y, z, vx, vy, vz per sample) at the epochs, in their order. */
+export function statesAt(spec: PropagationSpec, epochsTT: Float64Array): Outcome<Float64Array> {
+  const { body, r0, v0, epochTT } = spec;
+  switch (spec.model) {
+    case 'two-body': {
+      const dt = new Float64Array(epochsTT.length); // a plain loop: TypedArray.map is several times slower here
+      for (let k = 0; k < dt.length; k++) dt[k] = epochsTT[k]! - epochTT;
+      const out = new Float64Array(6 * epochsTT.length);
+      const done = propagateGrid(r0, v0, body.gm, dt, out);
+      return done.ok ? success(out) : done;
+    }
+    case 'j2-secular': {
+      const at = j2SecularPropagator(body, r0, v0, epochTT);
+      if (!at.ok) return at;
+      const out = new Float64Array(6 * epochsTT.length);
+      for (let k = 0; k < epochsTT.length; k++) {
+        const s = at.value(epochsTT[k]!);
+        if (!s.ok) return s;
+        out.set(s.value.r, 6 * k);
+        out.set(s.value.v, 6 * k + 3);
+      }
+      return success(out);
+    }
+    case 'numerical': {
+      const run = propagateNumerical({ body, forces: spec.forces ?? [], r0, v0, epochTT, epochsTT, passThroughBody: spec.passThroughBody ?? false });
+      return run.ok ? success(run.value.states) : run;
+    }
+  }
+}
+
+/** Spacing of the numerical model's interpolation nodes, s: cubic Hermite error below 1 m for Earth orbits (h^4/384 |x''''|; common practice, no source). */
+export const INTERPOLATION_NODE_SPACING_S = 30;
+
+/**
+ * A state at any epoch of [startTT, stopTT], for searches that ask many times (pass search).
+ * Analytic models answer directly; the numerical model is integrated once onto nodes every
+ * INTERPOLATION_NODE_SPACING_S and interpolated by cubic Hermite polynomials in position and velocity.
+ */
+export function stateFunction(spec: PropagationSpec, startTT: number, stopTT: number): Outcome<StateFunction> {
+  const { body, r0, v0, epochTT } = spec;
+  if (spec.model === 'two-body') return success((tt) => propagate(r0, v0, body.gm, tt - epochTT));
+  if (spec.model === 'j2-secular') return j2SecularPropagator(body, r0, v0, epochTT);
+  const count = Math.max(2, Math.ceil((stopTT - startTT) / INTERPOLATION_NODE_SPACING_S) + 1);
+  const h = (stopTT - startTT) / (count - 1);
+  const nodes = Float64Array.from({ length: count }, (_, k) => startTT + k * h);
+  const states = statesAt(spec, nodes);
+  if (!states.ok) return states;
+  const s = states.value;
+  return success((tt) => {
+    if (!(tt >= startTT - 1e-6 && tt <= stopTT + 1e-6)) return failure('invalid-parameter', `epoch outside the interpolated span [${startTT}, ${stopTT}] TT s`);
+    const k = Math.min(count - 2, Math.max(0, Math.floor((tt - startTT) / h)));
+    return success(hermite(s, k, (tt - nodes[k]!) / h, h));
+  });
+}
+
+/** Cubic Hermite interpolation between nodes k and k+1 at fraction u of a step h (positions from positions and velocities; velocities by differentiation); Burden & Faires, Numerical Analysis, 9th ed., sec. 3.4 (from memory). */
+function hermite(s: Float64Array, k: number, u: number, h: number): { r: Vec3; v: Vec3 } {
+  const u2 = u * u;
+  const u3 = u2 * u;
+  const h00 = 2 * u3 - 3 * u2 + 1;
+  const h10 = u3 - 2 * u2 + u;
+  const h01 = -2 * u3 + 3 * u2;
+  const h11 = u3 - u2;
+  const d00 = (6 * u2 - 6 * u) / h;
+  const d10 = 3 * u2 - 4 * u + 1;
+  const d01 = (-6 * u2 + 6 * u) / h;
+  const d11 = 3 * u2 - 2 * u;
+  const a = 6 * k;
+  const b = 6 * (k + 1);
+  const r = [0, 0, 0];
+  const v = [0, 0, 0];
+  for (let c = 0; c < 3; c++) {
+    const p0 = s[a + c]!;
+    const m0 = s[a + 3 + c]!;
+    const p1 = s[b + c]!;
+    const m1 = s[b + 3 + c]!;
+    r[c] = h00 * p0 + h10 * h * m0 + h01 * p1 + h11 * h * m1;
+    v[c] = d00 * p0 + d10 * m0 + d01 * p1 + d11 * m1;
+  }
+  return { r: r as unknown as Vec3, v: v as unknown as Vec3 };
+}

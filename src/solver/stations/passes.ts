@@ -1,0 +1,545 @@
+// Ground-station pass search: when is a spacecraft above each station's horizon mask?
+//
+// 1. Coarse scan. The spacecraft's Earth-fixed state is computed once per coarse step and shared
+//    by all stations. Step argument: the direction of the spacecraft seen from the Earth's centre
+//    turns, relative to the Earth, at most w = h / rp^2 + omegaEarth (fastest at periapsis).
+//    Elevation falls as the central angle psi between station and spacecraft grows, so an
+//    elevation maximum (psi near a minimum) and the next minimum (psi near a maximum) are at least
+//    pi / w apart. With step = pi / (8 w) (333 s at 500 km altitude; 10 s to 600 s) every step
+//    holds at most one extremum of elevation. A pass shorter
+//    than a step (a grazing one, max elevation just above the limit) has negative
+//    "elevation - limit" at both ends of its step, but the elevation rate changes sign from + to -
+//    there: each such step is searched for its maximum, so grazing passes are not missed.
+// 2. Prefilter. A station at radius R sees the spacecraft at radius r above geocentric elevation e
+//    only when psi <= acos(R/r cos e) - e (plane triangle centre-station-spacecraft; common
+//    practice, no source). psi and r change at bounded rates (1.5 x the two-body bounds) over a
+//    step, so most steps are ruled out with two dot products and no look angles.
+// 3. Refinement. AOS/LOS: bracketed root of "elevation - limit" (Illinois regula falsi with a
+//    bisection safeguard; Dowell & Jarratt, BIT 11 (1971) 168, from memory) to 1e-3 s. TCA (time
+//    of maximum elevation inside the pass): golden-section search (Kiefer 1953; Press et al.,
+//    Numerical Recipes 3rd ed. sec. 10.2) to 1e-2 s.
+// 4. Masks. The limit is piecewise linear in azimuth, so "elevation - limit" has kinks. The
+//    coarse scan runs on its smooth envelope "elevation - lowest limit"; inside each envelope
+//    interval a fine scan (steps of at most 10 s and 0.5 deg of azimuth or elevation) finds where
+//    the spacecraft is above the mask itself. A mask notch narrower than 0.5 deg of azimuth can
+//    hide a sub-second window.
+// Limits: orbits whose Earth-fixed track loops (near the apoapsis of high orbits) may show two
+// elevation extrema within one step; a visibility shorter than a step that begins and ends with
+// the same elevation trend can then be missed. Passes already up at the window start or still up
+// at its end are clipped to the window and flagged.
+
+import { EARTH_ROTATION_RATE_RAD_S, gcrfToItrfTabled, orientationTable, type FrameOptions, type OrientationTable, type StateVectors } from '../earth/frames.js';
+import { createHorizonMask, horizonLimit, horizonLimitSlope, isFlatMask, type HorizonMask, type MaskPoint } from './horizon-mask.js';
+import { DEG } from '../core/math.js';
+import { failure, success, type Failure, type Outcome } from '../core/result.js';
+import { dopplerFactor, lookAngles, stationFromGeodetic, type LookAngles, type Station } from './topocentric.js';
+import { cross, dot, norm, type Vec3 } from '../core/vec3.js';
+
+/** Longest pass-search window, s (31 days). */
+export const MAX_PASS_WINDOW_S = 31 * 86_400;
+/** Most stations in one search. */
+export const MAX_PASS_STATIONS = 100;
+/** Most pointing samples over all passes of one search. */
+export const MAX_POINTING_SAMPLES = 500_000;
+/** Smallest pointing step, s. */
+export const MIN_POINTING_STEP_S = 0.1;
+
+const MAX_COARSE_STEP_S = 600;
+const MIN_COARSE_STEP_S = 10;
+const ROOT_TOLERANCE_S = 1e-3;
+const PEAK_TOLERANCE_S = 1e-2;
+const FINE_MAX_STEP_S = 10;
+const FINE_MIN_STEP_S = 0.01;
+const FINE_ANGLE_STEP = 0.5 * DEG;
+/** Earth GM used only to size the coarse step, km^3/s^2 (NIMA TR8350.2 Table 3.1 / IERS 2010 value). */
+const EARTH_GM_KM3_S2 = 398_600.4418;
+/** Safety factor on the rate bounds of the prefilter (perturbed orbits drift from the osculating bound). */
+const RATE_MARGIN = 1.5;
+/** Added to the two-body bound on the radial speed, km/s. */
+const RADIAL_SPEED_FLOOR = 0.05;
+
+export interface GcrfState {
+  readonly r: Vec3;
+  readonly v: Vec3;
+}
+/** Propagator: GCRF state (km, km/s) at a TT epoch; may report an expected failure (impact...). */
+export type StateAt = (tt: number) => GcrfState | Outcome<GcrfState>;
+/** Optional batch propagator: 6 numbers (r, v) per epoch. */
+export type StateBatch = (epochs: Float64Array) => Float64Array | Outcome<Float64Array>;
+
+export interface PassStation {
+  /** Unique within one search. */
+  readonly id: string;
+  /** Geodetic latitude, longitude (rad) and height (km, -10 to 100) on WGS-84. */
+  readonly latitude: number;
+  readonly longitude: number;
+  readonly height: number;
+  /** rad. */
+  readonly minElevation: number;
+  readonly mask?: readonly MaskPoint[];
+}
+
+export interface PassSearchOptions extends FrameOptions {
+  /** Pointing track step, s; no pointing track when absent. */
+  readonly pointingStepS?: number;
+  /** GM used to size the coarse step (default Earth's), km^3/s^2. */
+  readonly gm?: number;
+}
+
+export interface PassSearch {
+  readonly stateAt: StateAt;
+  readonly stateBatch?: StateBatch;
+  readonly startTT: number;
+  readonly stopTT: number;
+  readonly stations: readonly PassStation[];
+  readonly options?: PassSearchOptions;
+}
+
+export interface PointingSample {
+  readonly tt: number;
+  readonly azimuth: number;
+  readonly elevation: number;
+  readonly range: number;
+  readonly rangeRate: number;
+  readonly dopplerFactor: number;
+}
+
+export interface Pass {
+  readonly station: string;
+  /** TT seconds since J2000. */
+  readonly aos: number;
+  readonly los: number;
+  /** Time of maximum elevation within [aos, los]. */
+  readonly tca: number;
+  readonly duration: number;
+  /** rad. */
+  readonly maxElevation: number;
+  readonly azimuthAos: number;
+  readonly azimuthTca: number;
+  readonly azimuthLos: number;
+  /** km. */
+  readonly rangeTca: number;
+  readonly startsBeforeWindow: boolean;
+  readonly endsAfterWindow: boolean;
+  readonly pointing?: readonly PointingSample[];
+}
+
+export interface PassSearchResult {
+  readonly passes: readonly Pass[];
+  readonly coarseStepS: number;
+  /** Propagator calls made (coarse track, refinement and pointing). */
+  readonly evaluations: number;
+}
+
+/** Thrown inside the search when the propagator reports a failure; caught in findPasses. */
+class PropagationStopped {
+  constructor(readonly failure: Failure) {}
+}
+
+function unwrap<T>(x: T | Outcome<T>, what: string): T {
+  if (typeof x === 'object' && x !== null && 'ok' in x) {
+    if (!x.ok) throw new PropagationStopped(x);
+    return x.value;
+  }
+  if (x === undefined || x === null) throw new TypeError(`propagator returned nothing for ${what}`);
+  return x as T;
+}
+
+/**
+ * Coarse step (s) and the rate bounds behind it, from an osculating state: periapsis radius from
+ * the specific angular momentum and eccentricity (Vallado 4th ed. Alg. 9, from memory).
+ */
+export function coarseStepFor(r: Vec3, v: Vec3, gm = EARTH_GM_KM3_S2): RateBounds & { stepS: number } {
+  const rMag = norm(r);
+  const h = norm(cross(r, v));
+  const energy = dot(v, v) / 2 - gm / rMag;
+  const e = Math.sqrt(Math.max(0, 1 + (2 * energy * h * h) / (gm * gm)));
+  const rp = h > 0 ? (h * h) / gm / (1 + e) : rMag;
+  // Turn rate of the spacecraft direction relative to the Earth: at most h / rp^2 + omegaEarth.
+  const turnRate = (h > 0 ? h / (rp * rp) : norm(v) / rMag) + EARTH_ROTATION_RATE_RAD_S;
+  const stepS = Math.min(MAX_COARSE_STEP_S, Math.max(MIN_COARSE_STEP_S, Math.PI / (8 * turnRate)));
+  // Radial speed |dr/dt| = (gm / h) e |sin(nu)| <= gm e / h (Vallado 4th ed. sec. 2.3, from memory);
+  // the constant term covers perturbations of near-circular orbits (J2: a few m/s).
+  const radialSpeedMax = h > 0 ? RATE_MARGIN * ((gm * e) / h) + RADIAL_SPEED_FLOOR : norm(v);
+  return { stepS, psiDotMax: RATE_MARGIN * turnRate, radialSpeedMax };
+}
+
+/** Upper bounds on the Earth-fixed turn rate of the spacecraft direction (rad/s) and on |dr/dt| (km/s). */
+interface RateBounds {
+  readonly psiDotMax: number;
+  readonly radialSpeedMax: number;
+}
+
+interface Prepared {
+  readonly id: string;
+  readonly index: number;
+  readonly station: Station;
+  readonly mask: HorizonMask;
+  readonly flat: boolean;
+  readonly unit: Vec3;
+  readonly radius: number;
+  /** Lowest limit minus the geodetic/geocentric vertical deflection: a geocentric elevation bound. */
+  readonly geocentricLow: number;
+}
+
+function prepareStations(stations: readonly PassStation[]): Outcome<Prepared[]> {
+  const seen = new Set<string>();
+  const out: Prepared[] = [];
+  for (const [index, s] of stations.entries()) {
+    if (typeof s.id !== 'string' || s.id === '' || seen.has(s.id)) {
+      return failure('invalid-parameter', `station ${index}: id must be a non-empty string used once (got "${s.id}")`);
+    }
+    seen.add(s.id);
+    if (!(Math.abs(s.latitude) <= Math.PI / 2) || !Number.isFinite(s.longitude) || !(s.height >= -10 && s.height <= 100)) {
+      return failure('invalid-parameter', `station "${s.id}": latitude must lie in [-90, 90] deg, longitude be finite, height in [-10, 100] km`);
+    }
+    const mask = createHorizonMask(s.mask ?? [], s.minElevation);
+    if (!mask.ok) return failure(mask.code, `station "${s.id}": ${mask.message}`);
+    const station = stationFromGeodetic(s.latitude, s.longitude, s.height);
+    const radius = norm(station.position);
+    const unit: Vec3 = [station.position[0] / radius, station.position[1] / radius, station.position[2] / radius];
+    const deflection = Math.acos(Math.min(1, dot(unit, station.up)));
+    out.push({ id: s.id, index, station, mask: mask.value, flat: isFlatMask(mask.value), unit, radius, geocentricLow: mask.value.lowest - deflection - 1e-6 });
+  }
+  return success(out);
+}
+
+/** Shared state of one search: the orientation table, the propagator and a call counter. */
+interface Context {
+  readonly table: OrientationTable;
+  readonly stateAt: StateAt;
+  readonly startTT: number;
+  readonly stopTT: number;
+  calls: number;
+}
+
+function earthFixedAt(ctx: Context, tt: number): StateVectors {
+  ctx.calls++;
+  const s = unwrap(ctx.stateAt(tt), `epoch ${tt}`);
+  if (![...s.r, ...s.v].every(Number.isFinite)) {
+    throw new PropagationStopped(failure('invalid-parameter', `the propagator returned a non-finite state at TT ${tt} s`));
+  }
+  return gcrfToItrfTabled(ctx.table, tt, s.r, s.v);
+}
+
+/** The coarse Earth-fixed track: times and 6 numbers per sample. */
+interface Track {
+  readonly times: Float64Array;
+  readonly states: Float64Array;
+}
+
+function coarseTrack(ctx: Context, batch: StateBatch | undefined, stepS: number): Track {
+  const count = Math.ceil((ctx.stopTT - ctx.startTT) / stepS) + 1;
+  const times = new Float64Array(count);
+  for (let k = 0; k < count; k++) times[k] = Math.min(ctx.startTT + k * stepS, ctx.stopTT);
+  const states = new Float64Array(6 * count);
+  const gcrf = batch ? unwrap(batch(times), 'the coarse track') : undefined;
+  if (gcrf && gcrf.length !== 6 * count) throw new TypeError('stateBatch must return 6 numbers per epoch');
+  for (let k = 0; k < count; k++) {
+    const tt = times[k]!;
+    let s: StateVectors;
+    if (gcrf) {
+      ctx.calls++;
+      const o = 6 * k;
+      s = gcrfToItrfTabled(ctx.table, tt, [gcrf[o]!, gcrf[o + 1]!, gcrf[o + 2]!], [gcrf[o + 3]!, gcrf[o + 4]!, gcrf[o + 5]!]);
+    } else {
+      s = earthFixedAt(ctx, tt);
+    }
+    states.set(s.r, 6 * k);
+    states.set(s.v, 6 * k + 3);
+  }
+  return { times, states };
+}
+
+const trackR = (t: Track, k: number): Vec3 => [t.states[6 * k]!, t.states[6 * k + 1]!, t.states[6 * k + 2]!];
+const trackV = (t: Track, k: number): Vec3 => [t.states[6 * k + 3]!, t.states[6 * k + 4]!, t.states[6 * k + 5]!];
+
+/** Bracketed root of fn on [a, b] (fa, fb of opposite sign); Illinois regula falsi with bisection safeguard. */
+function bracketedRoot(fn: (t: number) => number, a: number, b: number, fa: number, fb: number): number {
+  let side = 0;
+  for (let i = 0; i < 100 && Math.abs(b - a) > ROOT_TOLERANCE_S; i++) {
+    const width = Math.abs(b - a);
+    let x = (a * fb - b * fa) / (fb - fa);
+    if (!Number.isFinite(x) || side === 2) x = (a + b) / 2;
+    // Keep the trial at least tol/2 inside the bracket so that it collapses once the root is close.
+    const lo = Math.min(a, b) + ROOT_TOLERANCE_S / 2;
+    const hi = Math.max(a, b) - ROOT_TOLERANCE_S / 2;
+    x = Math.min(Math.max(x, lo), hi);
+    const fx = fn(x);
+    if (fx > 0 === fb > 0) {
+      b = x;
+      fb = fx;
+      if (side === -1) fa /= 2; // Illinois: halve the stale end
+      side = -1;
+    } else {
+      a = x;
+      fa = fx;
+      if (side === 1) fb /= 2;
+      side = 1;
+    }
+    if (Math.abs(b - a) > 0.75 * width) side = 2; // slow progress: bisect next
+  }
+  return (a + b) / 2;
+}
+
+const GOLDEN = (Math.sqrt(5) - 1) / 2;
+
+/** Maximum of fn on [a, b] by golden-section search (Press et al., Numerical Recipes 3rd ed. sec. 10.2). */
+function goldenMax(fn: (t: number) => number, a: number, b: number): { t: number; value: number } {
+  let x1 = b - GOLDEN * (b - a);
+  let x2 = a + GOLDEN * (b - a);
+  let f1 = fn(x1);
+  let f2 = fn(x2);
+  while (b - a > PEAK_TOLERANCE_S) {
+    if (f1 < f2) {
+      a = x1;
+      x1 = x2;
+      f1 = f2;
+      x2 = a + GOLDEN * (b - a);
+      f2 = fn(x2);
+    } else {
+      b = x2;
+      x2 = x1;
+      f2 = f1;
+      x1 = b - GOLDEN * (b - a);
+      f1 = fn(x1);
+    }
+  }
+  // Interior points only: callers compare with the ends themselves where an edge can win.
+  return f1 >= f2 ? { t: x1, value: f1 } : { t: x2, value: f2 };
+}
+
+/** An interval where some function of the look angles is positive. */
+interface Interval {
+  readonly start: number;
+  readonly stop: number;
+  readonly startsBefore: boolean;
+  readonly endsAfter: boolean;
+}
+
+/**
+ * Intervals where margin(look) > 0, from look angles at sample times (`sample(k)`), an exact
+ * evaluator for refinement, and `ruledOut(k)`: true when step k cannot hold any visibility.
+ */
+function positiveIntervals(
+  times: ArrayLike<number>,
+  sample: (k: number) => LookAngles,
+  ruledOut: (k: number) => boolean,
+  lookAtTime: (t: number) => LookAngles,
+  margin: (l: LookAngles) => number,
+  marginRate: (l: LookAngles) => number,
+  edges: { startsBefore: boolean; endsAfter: boolean },
+): Interval[] {
+  const out: Interval[] = [];
+  const fn = (t: number): number => margin(lookAtTime(t));
+  const count = times.length;
+  let open: { start: number; startsBefore: boolean } | undefined;
+  for (let k = 0; k + 1 < count; k++) {
+    if (!open && ruledOut(k)) continue;
+    const la = sample(k);
+    const lb = sample(k + 1);
+    const ta = times[k]!;
+    const tb = times[k + 1]!;
+    const fa = margin(la);
+    const fb = margin(lb);
+    if (k === 0 && fa > 0) open = { start: ta, startsBefore: edges.startsBefore };
+    if (fa > 0 && fb <= 0) {
+      const stop = bracketedRoot(fn, ta, tb, fa, fb);
+      out.push({ start: open?.start ?? ta, stop, startsBefore: open?.startsBefore ?? false, endsAfter: false });
+      open = undefined;
+    } else if (fa <= 0 && fb > 0) {
+      open = { start: bracketedRoot(fn, ta, tb, fa, fb), startsBefore: false };
+    } else if (fa <= 0 && fb <= 0 && marginRate(la) > 0 && marginRate(lb) < 0) {
+      const peak = goldenMax(fn, ta, tb); // a maximum between two samples: a grazing pass?
+      if (peak.value > 0) {
+        const start = bracketedRoot(fn, ta, peak.t, fa, peak.value);
+        out.push({ start, stop: bracketedRoot(fn, peak.t, tb, peak.value, fb), startsBefore: false, endsAfter: false });
+      }
+    }
+  }
+  if (open) out.push({ start: open.start, stop: times[count - 1]!, startsBefore: open.startsBefore, endsAfter: edges.endsAfter });
+  return out;
+}
+
+/** Fine sample times across [a, b]: steps of at most 10 s and 0.5 deg of azimuth or elevation. */
+function fineSamples(a: number, b: number, lookAtTime: (t: number) => LookAngles): { times: number[]; looks: LookAngles[] } {
+  const times = [a];
+  const looks = [lookAtTime(a)];
+  let t = a;
+  while (t < b) {
+    const l = looks[looks.length - 1]!;
+    const rate = Math.max(Math.abs(l.azimuthRate), Math.abs(l.elevationRate), 1e-12);
+    let dt = Math.min(FINE_MAX_STEP_S, Math.max(FINE_MIN_STEP_S, FINE_ANGLE_STEP / rate));
+    if (b - (t + dt) < FINE_MIN_STEP_S) dt = b - t;
+    t += dt;
+    times.push(t);
+    looks.push(lookAtTime(t));
+  }
+  return { times, looks };
+}
+
+function searchStation(ctx: Context, st: Prepared, track: Track, bounds: RateBounds): Interval[] {
+  const count = track.times.length;
+  const cache = new Array<LookAngles | undefined>(count);
+  const sample = (k: number): LookAngles => (cache[k] ??= lookAngles(st.station, trackR(track, k), trackV(track, k)));
+  const lookAtTime = (t: number): LookAngles => {
+    const s = earthFixedAt(ctx, t);
+    return lookAngles(st.station, s.r, s.v);
+  };
+  const low = st.mask.lowest;
+  const envelope = positiveIntervals(
+    track.times,
+    sample,
+    (k) => !mayBeVisible(st, track, k, bounds),
+    lookAtTime,
+    (l) => l.elevation - low,
+    (l) => l.elevationRate,
+    { startsBefore: true, endsAfter: true },
+  );
+  if (st.flat) return envelope;
+  const mask = st.mask;
+  const out: Interval[] = [];
+  for (const iv of envelope) {
+    const fine = fineSamples(iv.start, iv.stop, lookAtTime);
+    const inside = positiveIntervals(
+      fine.times,
+      (k) => fine.looks[k]!,
+      () => false,
+      lookAtTime,
+      (l) => l.elevation - horizonLimit(mask, l.azimuth),
+      (l) => l.elevationRate - horizonLimitSlope(mask, l.azimuth) * l.azimuthRate,
+      iv,
+    );
+    out.push(...inside);
+  }
+  return out;
+}
+
+/**
+ * Prefilter: false when the station cannot see the spacecraft anywhere in step k. Uses lower
+ * bounds on the central angle and upper bounds on the radius over the step (Lipschitz bounds
+ * from psiDotMax and radialSpeedMax).
+ */
+function mayBeVisible(st: Prepared, track: Track, k: number, bounds: RateBounds): boolean {
+  const ra = trackR(track, k);
+  const rb = trackR(track, k + 1);
+  const na = norm(ra);
+  const nb = norm(rb);
+  const dt = track.times[k + 1]! - track.times[k]!;
+  const psiA = Math.acos(Math.min(1, Math.max(-1, dot(ra, st.unit) / na)));
+  const psiB = Math.acos(Math.min(1, Math.max(-1, dot(rb, st.unit) / nb)));
+  const psiLow = (psiA + psiB - bounds.psiDotMax * dt) / 2;
+  const rHigh = (na + nb + bounds.radialSpeedMax * dt) / 2;
+  const e = st.geocentricLow;
+  const c = (st.radius / rHigh) * Math.cos(e);
+  if (!(c < 1)) return true;
+  const psiVisible = Math.acos(c) - e; // cos(e + psi) = (R / r) cos e
+  return psiLow <= psiVisible;
+}
+
+/** Bracket of the highest elevation in [a, b]: around the best coarse sample inside (long passes may hold several maxima). */
+function peakBracket(st: Prepared, track: Track, a: number, b: number): [number, number] {
+  const { times } = track;
+  let best = -1;
+  let bestEl = -Infinity;
+  const first = Math.max(0, Math.floor((a - times[0]!) / (times[1]! - times[0]!)));
+  for (let k = first; k < times.length && times[k]! < b; k++) {
+    if (times[k]! <= a) continue;
+    const el = lookAngles(st.station, trackR(track, k), trackV(track, k)).elevation;
+    if (el > bestEl) {
+      bestEl = el;
+      best = k;
+    }
+  }
+  if (best < 0) return [a, b];
+  return [Math.max(a, times[best - 1] ?? a), Math.min(b, times[best + 1] ?? b)];
+}
+
+function describe(ctx: Context, st: Prepared, track: Track, iv: Interval, pointingStepS: number | undefined): Pass {
+  const lookAt = (t: number): LookAngles => {
+    const s = earthFixedAt(ctx, t);
+    return lookAngles(st.station, s.r, s.v);
+  };
+  const aos = lookAt(iv.start);
+  const los = lookAt(iv.stop);
+  const [a, b] = peakBracket(st, track, iv.start, iv.stop);
+  let tca = b - a > PEAK_TOLERANCE_S ? goldenMax((t) => lookAt(t).elevation, a, b).t : a;
+  let top = lookAt(tca);
+  for (const [t, l] of [[iv.start, aos], [iv.stop, los]] as const) {
+    if (l.elevation > top.elevation) {
+      tca = t;
+      top = l;
+    }
+  }
+  const pass: Pass = {
+    station: st.id,
+    aos: iv.start,
+    los: iv.stop,
+    tca,
+    duration: iv.stop - iv.start,
+    maxElevation: top.elevation,
+    azimuthAos: aos.azimuth,
+    azimuthTca: top.azimuth,
+    azimuthLos: los.azimuth,
+    rangeTca: top.range,
+    startsBeforeWindow: iv.startsBefore,
+    endsAfterWindow: iv.endsAfter,
+  };
+  if (pointingStepS === undefined) return pass;
+  const pointing: PointingSample[] = [];
+  for (let i = 0; ; i++) {
+    const t = Math.min(iv.start + i * pointingStepS, iv.stop);
+    const l = t === iv.start ? aos : t === iv.stop ? los : lookAt(t);
+    pointing.push({ tt: t, azimuth: l.azimuth, elevation: l.elevation, range: l.range, rangeRate: l.rangeRate, dopplerFactor: dopplerFactor(l.rangeRate) });
+    if (t >= iv.stop) break;
+  }
+  return { ...pass, pointing };
+}
+
+/** All passes of one spacecraft over the stations in [startTT, stopTT], in time order (then station order). */
+export function findPasses(search: PassSearch): Outcome<PassSearchResult> {
+  const { startTT, stopTT, stations } = search;
+  const options = search.options ?? {};
+  if (!Number.isFinite(startTT) || !Number.isFinite(stopTT) || !(stopTT > startTT)) {
+    return failure('invalid-parameter', 'the pass window needs finite start and stop epochs with stop after start');
+  }
+  if (stopTT - startTT > MAX_PASS_WINDOW_S) {
+    return failure('window-too-long', `the pass window lasts ${((stopTT - startTT) / 86_400).toFixed(3)} days; the limit is ${MAX_PASS_WINDOW_S / 86_400} days`);
+  }
+  if (stations.length > MAX_PASS_STATIONS) {
+    return failure('too-many-stations', `${stations.length} stations given; the limit is ${MAX_PASS_STATIONS}`);
+  }
+  const step = options.pointingStepS;
+  if (step !== undefined && !(step >= MIN_POINTING_STEP_S && Number.isFinite(step))) {
+    return failure('invalid-parameter', `pointing step ${step} s: it must be at least ${MIN_POINTING_STEP_S} s`);
+  }
+  const prepared = prepareStations(stations);
+  if (!prepared.ok) return prepared;
+  const ctx: Context = { table: orientationTable(startTT, stopTT, options), stateAt: search.stateAt, startTT, stopTT, calls: 0 };
+  try {
+    const first = gcrfStateAt(ctx, startTT);
+    const bounds = coarseStepFor(first.r, first.v, options.gm);
+    const track = coarseTrack(ctx, search.stateBatch, bounds.stepS);
+    const found: Array<{ st: Prepared; iv: Interval }> = [];
+    for (const st of prepared.value) {
+      for (const iv of searchStation(ctx, st, track, bounds)) found.push({ st, iv });
+    }
+    found.sort((x, y) => x.iv.start - y.iv.start || x.st.index - y.st.index);
+    if (step !== undefined) {
+      const samples = found.reduce((n, { iv }) => n + Math.ceil((iv.stop - iv.start) / step) + 1, 0);
+      if (samples > MAX_POINTING_SAMPLES) {
+        return failure('invalid-parameter', `the pointing tracks would hold ${samples} samples; the limit is ${MAX_POINTING_SAMPLES}: use a longer pointing step`);
+      }
+    }
+    const passes = found.map(({ st, iv }) => describe(ctx, st, track, iv, step));
+    return success({ passes, coarseStepS: bounds.stepS, evaluations: ctx.calls });
+  } catch (e) {
+    if (e instanceof PropagationStopped) return e.failure;
+    throw e;
+  }
+}
+
+function gcrfStateAt(ctx: Context, tt: number): GcrfState {
+  ctx.calls++;
+  return unwrap(ctx.stateAt(tt), `epoch ${tt}`);
+}

@@ -1,0 +1,64 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { formatUtcIso, julianDateTT, parseUtcIso, taiMinusUtc, dayNumber, civilDate } from '../../../src/solver/time/time.js';
+import { expectClose } from '../../helpers/approx.js';
+
+const tt = (s: string): number => {
+  const r = parseUtcIso(s);
+  if (!r.ok) throw new Error(r.message);
+  return r.value;
+};
+
+describe('time scales', () => {
+  it('J2000.0 is 2000-01-01T11:58:55.816 UTC (TT - UTC = 64.184 s in 2000; IERS Conventions 2010 sec. 10.1, from memory)', () => {
+    expectClose(tt('2000-01-01T11:58:55.816Z'), 0, 1e-9, 'tt');
+    expect(formatUtcIso(0)).toBe('2000-01-01T11:58:55.816Z');
+  });
+
+  it('TAI - UTC is 37 s from 2017-01-01 and 36 s the day before (IERS Bulletin C 52)', () => {
+    expect(taiMinusUtc(dayNumber(2017, 1, 1))).toBe(37);
+    expect(taiMinusUtc(dayNumber(2016, 12, 31))).toBe(36);
+    expect(taiMinusUtc(dayNumber(1972, 1, 1))).toBe(10);
+  });
+
+  it('the leap second 2016-12-31T23:59:60 exists and lasts one second of TT', () => {
+    const before = tt('2016-12-31T23:59:59Z');
+    const leap = tt('2016-12-31T23:59:60.5Z');
+    const after = tt('2017-01-01T00:00:00Z');
+    expectClose(leap - before, 1.5, 1e-9, 'into leap');
+    expectClose(after - before, 2, 1e-9, 'across leap');
+    expect(formatUtcIso(leap)).toBe('2016-12-31T23:59:60.500Z');
+    expect(formatUtcIso(after)).toBe('2017-01-01T00:00:00.000Z');
+  });
+
+  it('Julian date of 1996-10-26T14:20:00 UTC is 2450383.09722222 UTC (Vallado, Fundamentals of Astrodynamics and Applications, 4th ed., Example 3-4, from memory)', () => {
+    // JD(TT) = JD(UTC) + (TAI-UTC + 32.184)/86400 with TAI-UTC = 30 s in 1996.
+    const jdTT = julianDateTT(tt('1996-10-26T14:20:00Z'));
+    expectClose(jdTT - (30 + 32.184) / 86_400, 2_450_383.097_222_22, 1e-8, 'JD UTC');
+  });
+
+  it('refuses timestamps that are not dates', () => {
+    for (const bad of ['2026-02-30T00:00:00Z', '2026-13-01T00:00:00Z', '2026-12-01T24:00:00Z', '2026-12-01T00:00:60Z', 'yesterday', '2026-12-01T00:00:00']) {
+      const r = parseUtcIso(bad);
+      expect(r.ok, bad).toBe(false);
+      if (!r.ok) expect(r.code).toBe('invalid-epoch');
+    }
+    const old = parseUtcIso('1969-07-20T20:17:00Z');
+    expect(old.ok).toBe(false);
+    if (!old.ok) expect(old.code).toBe('epoch-out-of-range');
+  });
+
+  it('civilDate inverts dayNumber (round trip over 1972-2199)', () => {
+    fc.assert(fc.property(fc.integer({ min: dayNumber(1972, 1, 1), max: dayNumber(2199, 12, 31) }), (d) => {
+      const c = civilDate(d);
+      return dayNumber(c.year, c.month, c.day) === d;
+    }));
+  });
+
+  it('format then parse returns the epoch to the printed precision', () => {
+    fc.assert(fc.property(fc.double({ min: -8e8, max: 3e9, noNaN: true }), (t) => {
+      const back = tt(formatUtcIso(t, 6));
+      return Math.abs(back - t) <= 5.1e-7;
+    }));
+  });
+});
