@@ -68,6 +68,7 @@ export class MemoryJobQueue implements JobQueue {
       startedAt: null,
       finishedAt: null,
       error: null,
+      owner: job.owner ?? null,
     };
     this.#jobs.set(id, { record, items: job.items, lines: [], touchedMs: this.#now() });
     this.#waiting.push(id);

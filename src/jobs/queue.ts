@@ -21,11 +21,15 @@ export interface JobRecord {
   readonly finishedAt: string | null;
   /** Why a failed job failed. */
   readonly error: string | null;
+  /** Who submitted the job (an opaque caller id, e.g. the API key's id); null when the service is open. Only that caller may read the job. */
+  readonly owner: string | null;
 }
 
 export interface NewJob {
   readonly label?: string | undefined;
   readonly items: readonly BatchItem[];
+  /** The submitting caller (opaque; stored as given and returned in JobRecord.owner). Absent or null: open service. */
+  readonly owner?: string | null | undefined;
 }
 
 /** One NDJSON line of a batch (ending with a newline) and whether it carries a problem. */

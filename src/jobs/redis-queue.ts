@@ -3,7 +3,8 @@
 //
 // Keys, all under the prefix P (JOB_KEY_PREFIX):
 //   P queue                 list of job ids waiting (LPUSH in, taken from the right: first in, first out)
-//   P job:{id}              hash: status, counts, timestamps, attempts, owner (the worker attempt running it)
+//   P job:{id}              hash: status, counts, timestamps, attempts, owner (the worker attempt running it),
+//                           submitter (JobRecord.owner: the caller that submitted the job; absent when open)
 //   P job:{id}:items        the items, JSON (deleted once the job finishes)
 //   P job:{id}:lines        list of the NDJSON lines written so far, in input order
 //   P workers               set of worker ids
@@ -125,6 +126,7 @@ function toRecord(id: string, h: Record<string, string>): JobRecord {
     startedAt: orNull(h.startedAt),
     finishedAt: orNull(h.finishedAt),
     error: orNull(h.error),
+    owner: orNull(h.submitter),
   };
 }
 
@@ -158,11 +160,12 @@ export class RedisJobQueue implements JobQueue {
     const id = randomUUID();
     const record: JobRecord = {
       id, label: job.label ?? null, status: 'queued', items: job.items.length, done: 0, failed: 0, attempts: 0,
-      createdAt: new Date().toISOString(), startedAt: null, finishedAt: null, error: null,
+      createdAt: new Date().toISOString(), startedAt: null, finishedAt: null, error: null, owner: job.owner ?? null,
     };
     const k = this.#keys;
     const fields: Record<string, string | number> = { status: 'queued', items: record.items, done: 0, failed: 0, attempts: 0, createdAt: record.createdAt };
     if (record.label !== null) fields.label = record.label;
+    if (record.owner !== null) fields.submitter = record.owner;
     try {
       const results = await this.#redis.multi()
         .hset(k.job(id), fields)

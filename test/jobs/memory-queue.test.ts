@@ -97,4 +97,14 @@ describe('MemoryJobQueue', () => {
     expect(await queue.get('__proto__')).toBeUndefined();
     expect(() => new MemoryJobQueue(gatedRunner().run, { maxKept: 0, ttlS: 60 })).toThrow(RangeError);
   });
+
+  it('keeps the submitting caller as the job\'s owner (null when open)', async () => {
+    const queue = new MemoryJobQueue(gatedRunner().run, { maxKept: 10, ttlS: 60 });
+    const mine = await queue.enqueue({ items: items(1), owner: 'key-a' });
+    const open = await queue.enqueue({ items: items(1) });
+    expect(mine.owner).toBe('key-a');
+    expect((await queue.get(mine.id))?.owner).toBe('key-a');
+    expect((await queue.get(open.id))?.owner).toBeNull();
+    await queue.close();
+  });
 });

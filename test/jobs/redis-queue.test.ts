@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { Redis } from 'ioredis';
 import type { LineOut, RunLines } from '../../src/jobs/queue.js';
-import { RedisJobWorker, type RedisWorkerOptions } from '../../src/jobs/redis-queue.js';
+import { RedisJobQueue, RedisJobWorker, type RedisWorkerOptions } from '../../src/jobs/redis-queue.js';
 import { appRunner } from '../../src/jobs/runner.js';
 import { JobAnswer } from '../../src/schemas/batch.js';
 import { Problem } from '../../src/schemas/common.js';
@@ -189,6 +189,22 @@ describe.skipIf(!available)('Redis job queue (real Redis at 127.0.0.1:6379)', ()
     void next.run();
     await until('job done', async () => (await status(id)).status === 'done');
     expect(parseLines((await apiA.inject({ url: `/v1/jobs/${id}/results` })).rawPayload).map((l) => l.index)).toEqual([0, 1, 2, 3, 4, 5]);
+    await teardown();
+  });
+
+  it('keeps the submitting caller as the job\'s owner, apart from the worker attempt that runs it', async () => {
+    await replicas();
+    const queue = new RedisJobQueue(REDIS_URL, { prefix, ttlS: 600 });
+    const mine = await queue.enqueue({ items: ITEMS.slice(0, 1) as never, owner: 'key-a' });
+    const open = await queue.enqueue({ items: ITEMS.slice(0, 1) as never });
+    expect(mine.owner).toBe('key-a');
+    expect((await queue.get(mine.id))?.owner).toBe('key-a');
+    expect((await queue.get(open.id))?.owner).toBeNull();
+    const w = worker(appRunner(solver));
+    void w.run();
+    await until('both done', async () => (await queue.get(mine.id))?.status === 'done' && (await queue.get(open.id))?.status === 'done');
+    expect((await queue.get(mine.id))?.owner).toBe('key-a');
+    await queue.close();
     await teardown();
   });
 
