@@ -1,5 +1,6 @@
 // A propagated track as the formatters read it: epochs and Cartesian states in flat typed arrays
 // (no per-sample objects). Structurally the same as StateTable in src/solver/conic/two-body.ts.
+import { ProblemError } from '../errors.js';
 
 /** epochsTT[i]: TT seconds since J2000.0; states[6i..6i+5]: x, y, z (km), vx, vy, vz (km/s). */
 export interface TrackTable {
@@ -75,4 +76,12 @@ export const PRINTABLE_LIMIT = 1e21;
 export function firstUnprintable(values: Float64Array): number {
   for (let i = 0; i < values.length; i++) if (!(Math.abs(values[i]!) < PRINTABLE_LIMIT)) return i;
   return -1;
+}
+
+/** Refuses (422 limit-exceeded) a table with a value fixed notation cannot print; call before streaming. */
+export function assertPrintable(values: Float64Array): void {
+  const bad = firstUnprintable(values);
+  if (bad >= 0) {
+    throw new ProblemError('limit-exceeded', `sample ${Math.floor(bad / 6)} reaches ${values[bad]} km or km/s; tracks print values below ${PRINTABLE_LIMIT} in magnitude`);
+  }
 }

@@ -9,7 +9,7 @@ import type { Config } from '../config.js';
 import { ERRORS, problemType, type ErrorCode } from '../errors.js';
 import type { BatchItem } from '../schemas/batch.js';
 import { DEFAULT_TRACK_SAMPLES } from '../schemas/central-force.js';
-import { epochTT } from '../schemas/common.js';
+import { epochTT } from '../api/epoch.js';
 import { TimeGrid } from '../schemas/grid.js';
 import { regularGridCount } from '../solver/core/grid.js';
 import type { LineOut, RunLines } from './queue.js';

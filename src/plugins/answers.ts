@@ -4,6 +4,7 @@ import { Readable } from 'node:stream';
 import fp from 'fastify-plugin';
 import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import type { AnswerCache, CachedAnswer } from '../cache/types.js';
+import type { Product } from '../formats/product.js';
 import { scenarioHash, type ScenarioKind } from '../scenario/hash.js';
 
 export interface AnswerService {
@@ -30,10 +31,8 @@ export interface AnswerService {
   sendStored(request: FastifyRequest, reply: FastifyReply, hash: string, answer: CachedAnswer, cacheState: 'hit' | 'miss'): FastifyReply;
 }
 
-export interface StreamedAnswer {
-  readonly contentType: string;
-  readonly chunks: Iterable<string | Buffer>;
-}
+/** A streamed answer is a formatter's product: a media type and its chunks. */
+export type StreamedAnswer = Product;
 
 declare module 'fastify' {
   interface FastifyInstance {

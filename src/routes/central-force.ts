@@ -6,15 +6,9 @@ import { ProblemError, solverProblem } from '../errors.js';
 import { effectivePotentialSvg } from '../formats/svg.js';
 import { jsonAnswer } from '../plugins/answers.js';
 import { chooseFormat } from '../plugins/negotiate.js';
-import {
-  CENTRAL_FORCE_FORMATS,
-  CentralForceAnswer,
-  CentralForceRequest,
-  centralForceProblem,
-  firstNonFinite,
-  SVG_MEDIA_TYPE,
-  toCentralForceAnswer,
-} from '../schemas/central-force.js';
+import { centralForceProblem, toCentralForceAnswer } from '../api/central-force.js';
+import { firstNonFinite } from '../api/finite.js';
+import { CENTRAL_FORCE_FORMATS, CentralForceAnswer, CentralForceRequest, SVG_MEDIA_TYPE } from '../schemas/central-force.js';
 import { problemResponses } from '../schemas/common.js';
 
 const OVERFLOW = 'the numbers overflow double precision (or lose all meaning) for this input: rescale the units';

@@ -3,8 +3,9 @@ import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { solverProblem } from '../errors.js';
 import { jsonAnswer } from '../plugins/answers.js';
 import { problemResponses } from '../schemas/common.js';
-import { resolveBody } from '../schemas/body.js';
-import { OrbitAnswer, OrbitRequest, orbitSolverInput, toOrbitAnswer } from '../schemas/orbit.js';
+import { resolveBody } from '../api/body.js';
+import { orbitSolverInput, toOrbitAnswer } from '../api/orbit.js';
+import { OrbitAnswer, OrbitRequest } from '../schemas/orbit.js';
 import { solveOrbit } from '../solver/conic/orbit.js';
 
 const orbit: FastifyPluginAsyncZod = async (app) => {

@@ -1,54 +1,21 @@
-// POST /v1/track: an orbit propagated over a time grid; JSON, CSV or CCSDS OEM, streamed.
+// POST /v1/track: an orbit propagated over a time grid; JSON, CSV, CCSDS OEM or GeoJSON, streamed.
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
-import { ProblemError, solverProblem } from '../errors.js';
-import { columnCsvChunks, csvChunks, CSV_MEDIA_TYPE } from '../formats/csv.js';
-import { GEOJSON_MEDIA_TYPE, groundTrackGeoJson } from '../formats/geojson.js';
-import { oemChunks, OEM_MEDIA_TYPE } from '../formats/oem.js';
-import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
-import { firstUnprintable, PRINTABLE_LIMIT } from '../formats/track-table.js';
+import { solverProblem } from '../errors.js';
+import { epochsForFormat, TRACK_FORMATS, trackNeeds, trackProduct } from '../formats/track-output.js';
 import { chooseFormat } from '../plugins/negotiate.js';
-import { resolveBody } from '../schemas/body.js';
-import { DEG_PER_RAD, problemResponses } from '../schemas/common.js';
-import type { CentralBody } from '../solver/bodies/bodies.js';
-import { initialState } from '../schemas/initial-state.js';
-import { gridEpochs } from '../schemas/grid.js';
-import { diagnosticsOf, TRACK_FORMATS, TrackAnswer, TrackRequest } from '../schemas/track.js';
-import type { Track } from '../solver/propagation/track.js';
-
-/** Increasing order without repeats (an OEM needs strictly increasing epochs). */
-function increasing(epochs: Float64Array): Float64Array {
-  const sorted = Float64Array.from(epochs).sort();
-  let n = 0;
-  for (let i = 0; i < sorted.length; i++) if (i === 0 || sorted[i]! > sorted[n - 1]!) sorted[n++] = sorted[i]!;
-  return sorted.subarray(0, n);
-}
-
-const GEODETIC_CSV = [
-  { header: 'latitude_deg', decimals: 7 },
-  { header: 'longitude_deg', decimals: 7 },
-  { header: 'height_km', decimals: 6 },
-];
-const GEODETIC_FIELDS = [
-  { key: 'latitude', from: 0, count: 1, decimals: 7 },
-  { key: 'longitude', from: 1, count: 1, decimals: 7 },
-  { key: 'height', from: 2, count: 1, decimals: 6 },
-];
-
-/** WGS-84 latitude, longitude (rad -> deg, in place) and height (km): radians to degrees at the edge. */
-function geodeticDegrees(g: Float64Array): Float64Array {
-  for (let i = 0; i < g.length; i += 3) {
-    g[i] = g[i]! * DEG_PER_RAD;
-    g[i + 1] = g[i + 1]! * DEG_PER_RAD;
-  }
-  return g;
-}
+import { resolveBody } from '../api/body.js';
+import { gridEpochs } from '../api/grid.js';
+import { initialState } from '../api/orbit.js';
+import { trackJob, trackProductInput } from '../api/track.js';
+import { problemResponses } from '../schemas/common.js';
+import { TrackAnswer, TrackRequest } from '../schemas/track.js';
 
 const track: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/track', {
     schema: {
       tags: ['orbits'],
-      summary: 'Propagate an orbit over a time grid (JSON, CSV or CCSDS OEM)',
+      summary: 'Propagate an orbit over a time grid (JSON, CSV, CCSDS OEM or GeoJSON)',
       description: 'Samples the orbit at each epoch of the grid with the chosen model and reports conservation diagnostics. ' +
         `Answers stream; at most MAX_TRACK_SAMPLES samples (default 100000), beyond that a 422 names the maximum. ` +
         'Accuracy degrades with the propagation span and the model chosen: two-body ignores every perturbation.',
@@ -69,76 +36,17 @@ const track: FastifyPluginAsyncZod = async (app) => {
   }, async (request, reply) => {
     const req = request.body;
     const format = chooseFormat(request, req.format, TRACK_FORMATS);
-    const earthOnly = req.frame !== 'gcrf' || format === 'geojson';
-    if (earthOnly && req.centralBody !== 'earth') {
-      throw new ProblemError('unsupported-frame', `frame ${req.frame}${format === 'geojson' ? ' and GeoJSON' : ''} need the built-in centralBody "earth"`);
-    }
-    if (format === 'oem' && req.frame === 'geodetic') {
-      throw new ProblemError('unsupported-frame', 'an OEM carries Cartesian states: choose frame gcrf or itrf');
-    }
-    const head = (hash: string, body: CentralBody, inertial: Track) => ({
-      scenarioHash: hash,
-      model: req.model,
-      forces: req.forces,
-      frame: req.frame,
-      centralBody: { name: body.name, gm: body.gm, radius: body.radius ?? null },
-      object: req.object,
-      sampleCount: inertial.epochsTT.length,
-      // Conservation is checked on the inertial states, whatever the output frame.
-      diagnostics: diagnosticsOf(inertial.drift),
-    });
+    const needs = trackNeeds(format, req.frame, req.centralBody === 'earth');
     return app.answers.respondStream(request, reply, 'track', { ...req, format }, async (hash) => {
       const body = resolveBody(req.centralBody);
       const start = initialState(body, req);
       if (!start.ok) throw solverProblem(start);
-      let grid = gridEpochs(req.grid, app.config.MAX_TRACK_SAMPLES);
-      if (format === 'oem') grid = increasing(grid);
-      const earthFixed = req.frame !== 'gcrf' || format === 'geojson';
-      const wantGeodetic = req.frame === 'geodetic' || format === 'geojson';
+      const epochs = epochsForFormat(format, gridEpochs(req.grid, app.config.MAX_TRACK_SAMPLES));
       // Propagation and frame conversion run on a worker thread for long grids (the grid's buffer
-      // moves there and comes back as inertial.epochsTT); formatting stays here, in chunks.
-      const result = await app.pool.solve({
-        kind: 'track',
-        input: { body, model: req.model, forces: req.forces, r0: start.value.r, v0: start.value.v, epochTT: start.value.epochTT, epochsTT: grid, passThroughBody: req.passThroughBody },
-        earthFixed: earthFixed ? { dut1: req.ut1MinusUtc } : null,
-        geodetic: wantGeodetic,
-      });
+      // moves there and comes back); formatting stays here, in chunks.
+      const result = await app.pool.solve(trackJob(req, body, start.value, epochs, needs));
       if (!result.ok) throw solverProblem(result);
-      const inertial: Track = result.value.track;
-      const epochsTT = inertial.epochsTT;
-      const states = result.value.earthFixed ?? inertial.states;
-      const table = { epochsTT, states };
-      const bad = firstUnprintable(states);
-      if (bad >= 0) throw new ProblemError('limit-exceeded', `sample ${Math.floor(bad / 6)} reaches ${states[bad]} km or km/s; tracks print values below ${PRINTABLE_LIMIT} in magnitude`);
-      if (wantGeodetic) {
-        const geodetic = geodeticDegrees(result.value.geodetic!);
-        if (format === 'geojson') {
-          const samples = Array.from(epochsTT, (t, i) => ({ tt: t, latitudeDeg: geodetic[3 * i]!, longitudeDeg: geodetic[3 * i + 1]!, heightKm: geodetic[3 * i + 2]! }));
-          return { contentType: GEOJSON_MEDIA_TYPE, chunks: groundTrackGeoJson(samples, { name: req.object.name, includeHeight: true }) };
-        }
-        if (format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: columnCsvChunks(epochsTT, geodetic, GEODETIC_CSV) };
-        return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(head(hash, body, inertial), epochsTT, geodetic, GEODETIC_FIELDS) };
-      }
-      if (format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: csvChunks(table) };
-      if (format === 'oem') {
-        return {
-          contentType: OEM_MEDIA_TYPE,
-          chunks: oemChunks(table, {
-            creationEpochTT: start.value.epochTT,
-            originator: 'apsides',
-            objectName: req.object.name,
-            objectId: req.object.id,
-            centerName: body.name.toUpperCase(),
-            refFrame: req.frame === 'itrf' ? 'ITRF' : 'GCRF',
-            comments: [
-              `model ${req.model}, GM ${body.gm} km**3/s**2; scenario ${hash}`,
-              ...(req.frame === 'itrf' ? [`Earth-fixed: IAU precession-nutation and Earth rotation, polar motion neglected, UT1-UTC ${req.ut1MinusUtc} s`] : []),
-              'CREATION_DATE is the epoch of the initial state, so that one scenario always gives the same bytes',
-            ],
-          }),
-        };
-      }
-      return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(head(hash, body, inertial), epochsTT, states, STATE_FIELDS) };
+      return trackProduct(trackProductInput(req, format, hash, body, start.value.epochTT, result.value));
     });
   });
 };

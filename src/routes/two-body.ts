@@ -1,26 +1,19 @@
 // POST /v1/two-body: two bodies -> barycentre, relative orbit, each body's orbit about the
 // barycentre and the integrals; optionally both tracks about the barycentre (streamed JSON).
-import { diagnosticsOf } from '../schemas/track.js';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { ProblemError, solverProblem } from '../errors.js';
 import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
-import { firstUnprintable, PRINTABLE_LIMIT, type TrackTable } from '../formats/track-table.js';
-import { epochTT as toEpochTT, problemResponses } from '../schemas/common.js';
-import { gridEpochs } from '../schemas/grid.js';
-import {
-  relativeCentralBody,
-  toTwoBodyAnswer,
-  trackNames,
-  twoBodySolverInput,
-  TwoBodyAnswer,
-  TwoBodyRequest,
-  type TwoBodyTracks,
-} from '../schemas/two-body.js';
+import { assertPrintable, type TrackTable } from '../formats/track-table.js';
+import { epochTT as toEpochTT } from '../api/epoch.js';
+import { firstNonFinite } from '../api/finite.js';
+import { gridEpochs } from '../api/grid.js';
+import { diagnosticsOf } from '../api/track.js';
+import { relativeCentralBody, toTwoBodyAnswer, trackNames, twoBodySolverInput } from '../api/two-body.js';
+import { problemResponses } from '../schemas/common.js';
+import { TwoBodyAnswer, TwoBodyRequest, type TwoBodyTracks } from '../schemas/two-body.js';
 import { solveOrbit } from '../solver/conic/orbit.js';
 import { propagateTrack } from '../solver/propagation/track.js';
 import { bodyTracksAboutBarycentre, reduceTwoBody } from '../solver/conic/two-body.js';
-
-/** The track formatter prints fixed-point numbers below this magnitude (see formats/track-table.ts). */
 
 interface Tracks {
   readonly head: Omit<TwoBodyTracks, 'bodies'>;
@@ -44,20 +37,8 @@ function* answerChunks(head: Omit<TwoBodyAnswer, 'tracks'>, tracks: Tracks | nul
 
 /** JSON would print a non-finite number as null: refuse such a scenario before anything is sent. */
 function assertFinite(value: unknown, path: string): void {
-  if (typeof value === 'number') {
-    if (!Number.isFinite(value)) throw new ProblemError('invalid-parameter', `the scenario overflows double-precision arithmetic (${path} is ${value}); bring the masses, separation or speeds closer to each other`);
-  } else if (Array.isArray(value)) {
-    value.forEach((v, i) => assertFinite(v, `${path}.${i}`));
-  } else if (value !== null && typeof value === 'object') {
-    for (const [k, v] of Object.entries(value)) assertFinite(v, `${path}.${k}`);
-  }
-}
-
-function assertPrintable(table: TrackTable): void {
-  const bad = firstUnprintable(table.states);
-  if (bad >= 0) {
-    throw new ProblemError('limit-exceeded', `a track sample reaches ${table.states[bad]} (km or km/s); tracks print values below ${PRINTABLE_LIMIT} in magnitude`);
-  }
+  const bad = firstNonFinite(value, path);
+  if (bad !== null) throw new ProblemError('invalid-parameter', `the scenario overflows double-precision arithmetic (${bad} is not finite); bring the masses, separation or speeds closer to each other`);
 }
 
 const twoBody: FastifyPluginAsyncZod = async (app) => {
@@ -91,8 +72,8 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
         const relative = propagateTrack({ body: relativeBody, model: 'two-body', r0: red.relative.r, v0: red.relative.v, epochTT, epochsTT });
         if (!relative.ok) throw solverProblem(relative);
         const { body1, body2 } = bodyTracksAboutBarycentre(red, relative.value);
-        assertPrintable(body1);
-        assertPrintable(body2);
+        assertPrintable(body1.states);
+        assertPrintable(body2.states);
         const { drift } = relative.value;
         tracks = {
           head: {

@@ -5,7 +5,9 @@ import { createHash } from 'node:crypto';
 import canonicalize from 'canonicalize';
 import { SOLVER_VERSION } from '../solver/core/version.js';
 
-export type ScenarioKind = 'orbit' | 'two-body' | 'central-force' | 'track' | 'passes';
+/** Every kind of scenario the service solves: one per solving endpoint (POST /v1/<kind>), also the kinds of batch items. */
+export const SCENARIO_KINDS = ['orbit', 'two-body', 'central-force', 'track', 'passes'] as const;
+export type ScenarioKind = (typeof SCENARIO_KINDS)[number];
 
 export function canonicalJson(value: unknown): string {
   const text = canonicalize(value);
@@ -17,4 +19,3 @@ export function scenarioHash(kind: ScenarioKind, scenario: unknown): string {
   return createHash('sha256').update(canonicalJson({ kind, solverVersion: SOLVER_VERSION, scenario })).digest('hex');
 }
 
-export const SCENARIO_HASH_PATTERN = /^[0-9a-f]{64}$/;

@@ -2,10 +2,11 @@
 // one line per item in input order. Each item's request is validated by its own endpoint when it
 // runs, so one bad item becomes that line's problem and never spoils the others.
 import { z } from 'zod';
+import { SCENARIO_KINDS, type ScenarioKind } from '../scenario/hash.js';
 import { DEMO_EPOCH, Problem, ScenarioHash } from './common.js';
 
-export const BATCH_KINDS = ['orbit', 'two-body', 'central-force', 'track', 'passes'] as const;
-export type BatchKind = (typeof BATCH_KINDS)[number];
+export const BATCH_KINDS = SCENARIO_KINDS;
+export type BatchKind = ScenarioKind;
 
 export const NDJSON_MEDIA_TYPE = 'application/x-ndjson';
 

@@ -1,7 +1,6 @@
-// Central bodies at the API: a built-in name, or a body given by its constants.
+// Central bodies at the API: a built-in name, or a body given by its constants (mapping: src/api/body.ts).
 import { z } from 'zod';
-import { BODIES, BODY_NAMES, type CentralBody } from '../solver/bodies/bodies.js';
-import { DEG_PER_RAD, RAD_PER_DEG } from './common.js';
+import { BODY_NAMES } from '../solver/bodies/bodies.js';
 
 export const BodyName = z.enum(BODY_NAMES).describe('A built-in central body (GET /v1/bodies lists their constants and sources)');
 
@@ -23,20 +22,6 @@ export const CentralBodyInput = z
   .describe('The central body: a built-in name (default "earth") or an object with gm and optionally radius, j2, rotationRate, flattening');
 export type CentralBodyInput = z.output<typeof CentralBodyInput>;
 
-/** The solver's body for a request's centralBody (degrees -> radians at the edge). */
-export function resolveBody(input: CentralBodyInput): CentralBody {
-  if (typeof input === 'string') return BODIES[input];
-  return {
-    name: input.name,
-    gm: input.gm,
-    ...(input.radius !== undefined ? { radius: input.radius } : {}),
-    ...(input.j2 !== undefined ? { j2: input.j2 } : {}),
-    ...(input.rotationRate !== undefined ? { rotationRate: input.rotationRate * RAD_PER_DEG } : {}),
-    ...(input.flattening !== undefined ? { flattening: input.flattening } : {}),
-    sources: { gm: 'given in the request' },
-  };
-}
-
 export const BodySummary = z.object({
   name: z.string(),
   gm: z.number().describe('GM, km^3/s^2'),
@@ -50,14 +35,7 @@ export const BodyDescription = BodySummary.extend({
   heliocentricMeanMotion: z.number().nullable().describe('Mean motion about the Sun, deg/day (sun-synchronous test)'),
   sources: z.record(z.string(), z.string()).describe('Published source of each value, by field name'),
 });
+export type BodySummary = z.infer<typeof BodySummary>;
 
-export function describeBody(body: CentralBody): z.infer<typeof BodySummary> {
-  return {
-    name: body.name,
-    gm: body.gm,
-    radius: body.radius ?? null,
-    j2: body.j2 ?? null,
-    rotationRate: body.rotationRate !== undefined ? body.rotationRate * DEG_PER_RAD : null,
-    flattening: body.flattening ?? null,
-  };
-}
+export const BodiesAnswer = z.object({ bodies: z.array(BodyDescription) });
+export type BodiesAnswer = z.infer<typeof BodiesAnswer>;

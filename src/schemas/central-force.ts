@@ -1,12 +1,11 @@
-// POST /v1/central-force: request and answer schemas, and the mapping from the solver (radians) to
-// the API (degrees for angles). Lengths, energies, masses and times are passed through unchanged:
+// POST /v1/central-force: request and answer schemas (the mapping to and from the solver is in
+// src/api/central-force.ts). Lengths, energies, masses and times are passed through unchanged:
 // the endpoint works in any consistent unit system.
 import { z } from 'zod';
-import { MAX_ABS_EXPONENT, MAX_TERMS, type PotentialTerm } from '../solver/central/potential.js';
-import { DEFAULT_SAMPLES, fromInitial, MAX_SAMPLES, type CentralForceAnalysis, type CentralForceProblem } from '../solver/central/radial.js';
-import { MAX_TRACK_SAMPLES, type RadialTrack } from '../solver/central/radial-track.js';
-import { success, type Outcome } from '../solver/core/result.js';
-import { DEG_PER_RAD, ScenarioHash } from './common.js';
+import { MAX_ABS_EXPONENT, MAX_TERMS } from '../solver/central/potential.js';
+import { DEFAULT_SAMPLES, MAX_SAMPLES } from '../solver/central/radial.js';
+import { MAX_TRACK_SAMPLES } from '../solver/central/radial-track.js';
+import { ScenarioHash } from './common.js';
 
 const UNITS_NOTE = 'Any consistent unit system: the numbers are used as given (no km or degree conversion), so lengths, masses, times and energies must all come from one system.';
 
@@ -220,80 +219,3 @@ export const CentralForceAnswer = z.object({
   track: RadialTrackOut.nullable().describe('r(t), phi(t) when the request asked for a track, else null'),
 });
 export type CentralForceAnswer = z.infer<typeof CentralForceAnswer>;
-
-/** The solver's problem for a validated request: the constants given, or those of the initial state. */
-export function centralForceProblem(req: CentralForceRequest): Outcome<CentralForceProblem> {
-  const terms: PotentialTerm[] = req.potential.terms;
-  if (req.initial) return fromInitial(req.mass, terms, req.initial);
-  return success({ mass: req.mass, terms, angularMomentum: req.angularMomentum!, energy: req.energy! });
-}
-
-const deg = (rad: number): number => rad * DEG_PER_RAD;
-const degOrNull = (rad: number | null): number | null => (rad === null ? null : deg(rad));
-
-/** Solver analysis (and track) -> API answer: radians -> degrees; every other number as it is. */
-export function toCentralForceAnswer(
-  a: CentralForceAnalysis,
-  track: { start: 'initial' | 'periapsis' | 'apoapsis'; value: RadialTrack } | null,
-  units: { radius: string; energy: string },
-  scenarioHash: string,
-): CentralForceAnswer {
-  return {
-    scenarioHash,
-    mass: a.mass,
-    angularMomentum: a.angularMomentum,
-    energy: a.energy,
-    units: { radius: units.radius, energy: units.energy },
-    effectivePotential: a.effectivePotential.map((s) => ({ r: s.r, u: s.u, uEff: s.uEff })),
-    sampleSpacing: a.sampleSpacing,
-    turningPoints: [...a.turningPoints],
-    circularOrbits: a.circularOrbits.map((c) => ({
-      radius: c.radius,
-      energy: c.energy,
-      stable: c.stable,
-      radialFrequency: c.radialFrequency,
-      angularFrequency: c.angularFrequency,
-      frequencyRatio: c.frequencyRatio,
-      apsidalAngle: degOrNull(c.apsidalAngle),
-    })),
-    allowedRegions: a.allowedRegions.map((g) => ({ inner: g.inner, outer: g.outer, innerEnd: g.innerEnd, outerEnd: g.outerEnd, motion: g.motion })),
-    analysedRegion: a.regionIndex,
-    motion: a.motion,
-    rectilinear: a.rectilinear,
-    periapsis: a.periapsis,
-    apoapsis: a.apoapsis,
-    radialPeriod: a.radialPeriod,
-    apsidalAngle: degOrNull(a.apsidalAngle),
-    precessionPerOrbit: degOrNull(a.precessionPerOrbit),
-    track: track === null
-      ? null
-      : {
-        start: track.start,
-        sampleCount: track.value.t.length,
-        energy: track.value.energy,
-        energyDrift: track.value.energyDrift,
-        energyDriftRelative: track.value.energyDriftRelative,
-        reachedCentre: track.value.reachedCentre,
-        samples: track.value.t.map((t, i) => ({ t, r: track.value.r[i]!, rDot: track.value.rDot[i]!, phi: deg(track.value.phi[i]!) })),
-      },
-  };
-}
-
-/** The first non-finite number in a JSON-bound value, by its path (JSON would turn it into null), else null. */
-export function firstNonFinite(value: unknown, path = 'answer'): string | null {
-  if (typeof value === 'number') return Number.isFinite(value) ? null : path;
-  if (Array.isArray(value)) {
-    for (let i = 0; i < value.length; i++) {
-      const hit = firstNonFinite(value[i], `${path}[${i}]`);
-      if (hit !== null) return hit;
-    }
-    return null;
-  }
-  if (value !== null && typeof value === 'object') {
-    for (const [k, v] of Object.entries(value)) {
-      const hit = firstNonFinite(v, `${path}.${k}`);
-      if (hit !== null) return hit;
-    }
-  }
-  return null;
-}

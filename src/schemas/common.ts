@@ -25,13 +25,6 @@ export const Epoch = z
   .describe('Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table')
   .meta({ example: DEMO_EPOCH });
 
-/** TT seconds since J2000 of an epoch the Epoch schema has already validated. */
-export function epochTT(iso: string): number {
-  const parsed = parseUtcIso(iso);
-  if (!parsed.ok) throw new Error(`epoch "${iso}" passed the schema but does not parse`); // programmer error
-  return parsed.value;
-}
-
 /** Epoch as the answers give it: ISO 8601 UTC with milliseconds. */
 export const EpochOut = z.string().describe('ISO 8601 UTC timestamp with milliseconds').meta({ example: '2026-12-01T00:00:00.000Z' });
 
@@ -58,7 +51,3 @@ export const problemResponses = {
   400: Problem.describe('Malformed JSON or a body that does not match the schema'),
   422: Problem.describe('Valid JSON describing a physically impossible or unsolvable scenario'),
 } as const;
-
-/** Degrees <-> radians at the edge. */
-export const DEG_PER_RAD = 180 / Math.PI;
-export const RAD_PER_DEG = Math.PI / 180;

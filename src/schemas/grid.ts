@@ -1,8 +1,6 @@
 // Time grids at the API: a regular grid (start, stop, step) or a list of epochs.
 import { z } from 'zod';
-import { ProblemError } from '../errors.js';
-import { regularGrid, regularGridCount } from '../solver/core/grid.js';
-import { Epoch, epochTT as tt } from './common.js';
+import { Epoch } from './common.js';
 
 export const TimeGrid = z
   .object({
@@ -23,16 +21,3 @@ export const TimeGrid = z
   .describe('The sample epochs: a regular grid (start, stop, step) or a list (times)');
 
 export type TimeGrid = z.output<typeof TimeGrid>;
-
-/** The sample epochs of a validated grid, refusing more than `max` before allocating anything. */
-export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
-  if (grid.times) {
-    if (grid.times.length > max) throw new ProblemError('too-many-samples', `${grid.times.length} times asked; the maximum is ${max} samples`);
-    return Float64Array.from(grid.times, tt);
-  }
-  const [start, stop] = [tt(grid.start!), tt(grid.stop!)];
-  const count = regularGridCount(start, stop, grid.step!);
-  if (count > max) throw new ProblemError('too-many-samples', `the grid has ${count} samples; the maximum is ${max} (use a longer step or a shorter span)`);
-  return regularGrid(start, stop, grid.step!);
-}
-

@@ -1,14 +1,7 @@
-// POST /v1/orbit: request and answer schemas, and the mapping from solver units (radians) to the API (degrees, ISO epochs).
+// POST /v1/orbit: request and answer schemas (the mapping to and from the solver is in src/api/orbit.ts).
 import { z } from 'zod';
-import type { OrbitSolution } from '../solver/conic/orbit.js';
-import { orbitTypeOf, type ElementsInput as SolverElementsInput } from '../solver/conic/elements.js';
-import type { CentralBody } from '../solver/bodies/bodies.js';
-import { END_OF_SUPPORTED_RANGE_TT, formatUtcIso } from '../solver/time/time.js';
-import type { Vec3 as SolverVec3 } from '../solver/core/vec3.js';
-import { CentralBodyInput, BodySummary, describeBody } from './body.js';
-import { DEG_PER_RAD, DEMO_EPOCH, Epoch, EpochOut, epochTT, MAX_POSITION_KM, PositionKm, RAD_PER_DEG, ScenarioHash, Vec3, VelocityKmS } from './common.js';
-
-const SECONDS_PER_DAY = 86_400;
+import { CentralBodyInput, BodySummary } from './body.js';
+import { DEMO_EPOCH, Epoch, EpochOut, MAX_POSITION_KM, PositionKm, ScenarioHash, Vec3, VelocityKmS } from './common.js';
 
 export const StateInput = z
   .object({
@@ -49,6 +42,12 @@ export const orbitFields = {
   state: StateInput.optional(),
   elements: ElementsInput.optional(),
 };
+
+/** The orbit fields of a validated request, as the edge layer (src/api/orbit.ts) reads them. */
+export interface OrbitInputFields {
+  readonly state?: z.output<typeof StateInput> | undefined;
+  readonly elements?: z.output<typeof ElementsInput> | undefined;
+}
 
 export function requireOneOrbitInput(req: { state?: unknown; elements?: unknown }, ctx: z.RefinementCtx): void {
   if ((req.state === undefined) === (req.elements === undefined)) {
@@ -120,87 +119,3 @@ export const OrbitAnswer = z.object({
   j2: J2Rates.nullable().describe('J2 secular rates (null when the body has no J2 or the orbit is unbound)'),
 });
 export type OrbitAnswer = z.infer<typeof OrbitAnswer>;
-
-/** The solver's input for a validated request (degrees -> radians). */
-export function orbitSolverInput(req: { state?: z.output<typeof StateInput>; elements?: z.output<typeof ElementsInput> }): { epochTT: number; input: { r: SolverVec3; v: SolverVec3 } | { elements: SolverElementsInput } } {
-  if (req.state) return { epochTT: epochTT(req.state.epoch), input: { r: req.state.position, v: req.state.velocity } };
-  const el = req.elements!;
-  return {
-    epochTT: epochTT(el.epoch),
-    input: {
-      elements: {
-        ...(el.semiMajorAxis !== undefined ? { semiMajorAxis: el.semiMajorAxis } : {}),
-        ...(el.semiLatusRectum !== undefined ? { semiLatusRectum: el.semiLatusRectum } : {}),
-        eccentricity: el.eccentricity,
-        inclination: el.inclination * RAD_PER_DEG,
-        raan: el.raan * RAD_PER_DEG,
-        argPeriapsis: el.argPeriapsis * RAD_PER_DEG,
-        ...(el.trueAnomaly !== undefined ? { trueAnomaly: el.trueAnomaly * RAD_PER_DEG } : {}),
-        // The parabolic mean anomaly is dimensionless: no degree conversion.
-        ...(el.meanAnomaly !== undefined ? { meanAnomaly: orbitTypeOf(el.eccentricity) === 'parabolic' ? el.meanAnomaly : el.meanAnomaly * RAD_PER_DEG } : {}),
-      },
-    },
-  };
-}
-
-const deg = (rad: number): number => rad * DEG_PER_RAD;
-const degPerDay = (radPerS: number): number => radPerS * DEG_PER_RAD * SECONDS_PER_DAY;
-
-/** Solver solution -> API answer (radians -> degrees, seconds-after-epoch -> ISO epochs). */
-export function toOrbitAnswer(s: OrbitSolution, body: CentralBody, epochTT: number, scenarioHash: string): OrbitAnswer {
-  // A passage beyond the supported calendar (after 2199) is reported as null, like one that does not exist.
-  const passage = (seconds: number | null): string | null =>
-    seconds === null || !(epochTT + seconds < END_OF_SUPPORTED_RANGE_TT) ? null : formatUtcIso(epochTT + seconds);
-  const apsis = (a: OrbitSolution['apsides']['periapsis']) => ({
-    radius: a.radius,
-    altitude: a.altitude,
-    speed: a.speed,
-    nextPassage: passage(a.secondsToNextPassage),
-  });
-  const e = s.elements;
-  // Parabolic anomalies and mean motion are dimensionless (per second): reported as they are.
-  const parabolic = e.orbitType === 'parabolic';
-  const anomaly = (x: number): number => (parabolic ? x : deg(x));
-  return {
-    scenarioHash,
-    centralBody: describeBody(body),
-    epoch: formatUtcIso(epochTT),
-    orbitType: e.orbitType,
-    state: { frame: 'gcrf', position: [...s.position], velocity: [...s.velocity] },
-    elements: {
-      semiMajorAxis: e.semiMajorAxis,
-      eccentricity: e.eccentricity,
-      inclination: deg(e.inclination),
-      raan: deg(e.raan),
-      argPeriapsis: deg(e.argPeriapsis),
-      trueAnomaly: deg(e.trueAnomaly),
-      eccentricAnomaly: anomaly(e.eccentricAnomaly),
-      meanAnomaly: anomaly(e.meanAnomaly),
-      semiLatusRectum: e.semiLatusRectum,
-      argumentOfLatitude: deg(e.argLatitude),
-      trueLongitude: deg(e.trueLongitude),
-      longitudeOfPeriapsis: deg(e.longitudeOfPeriapsis),
-      raanDefined: e.raanDefined,
-      argPeriapsisDefined: e.argPeriapsisDefined,
-    },
-    apsides: { periapsis: apsis(s.apsides.periapsis), apoapsis: s.apsides.apoapsis ? apsis(s.apsides.apoapsis) : null },
-    period: s.periodS,
-    meanMotion: anomaly(s.meanMotion),
-    specificEnergy: s.specificEnergy,
-    specificAngularMomentum: { vector: [...s.specificAngularMomentum], magnitude: s.specificAngularMomentumMagnitude },
-    eccentricityVector: [...s.eccentricityVector],
-    flightPathAngle: deg(s.flightPathAngle),
-    radius: s.radius,
-    speed: s.speed,
-    intersectsBody: body.radius === undefined ? null : s.apsides.periapsis.radius < body.radius,
-    j2: s.j2
-      ? {
-        raanRate: degPerDay(s.j2.raanRate),
-        argPeriapsisRate: degPerDay(s.j2.argPeriapsisRate),
-        meanAnomalyRate: degPerDay(s.j2.meanAnomalyRate),
-        sunSynchronous: s.j2.sunSynchronous,
-        sunSynchronousInclination: s.j2.sunSynchronousInclination === null ? null : deg(s.j2.sunSynchronousInclination),
-      }
-      : null,
-  };
-}

@@ -24,6 +24,7 @@ export const GroundStation = z
       .describe('Elevation limit by azimuth for terrain and buildings: linear between points, wrapping at 360; never below minElevation'),
   })
   .strict();
+export type GroundStation = z.output<typeof GroundStation>;
 
 export const PassesRequest = z
   .object({

@@ -1,20 +1,12 @@
-// POST /v1/track: an orbit propagated over a time grid, in JSON, CSV or CCSDS OEM.
+// POST /v1/track: an orbit propagated over a time grid, in JSON, CSV, CCSDS OEM or GeoJSON (mapping: src/api/track.ts).
 import { z } from 'zod';
+import { TRACK_FORMATS, TRACK_FRAMES, type TrackFormat } from '../formats/track-output.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
-import type { ConservationDrift } from '../solver/conic/universal.js';
 import { DEMO_EPOCH } from './common.js';
 import { Force, modelFields } from './forces.js';
 import { TimeGrid } from './grid.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
-export const TRACK_FORMATS = [
-  ['json', 'application/json'],
-  ['csv', 'text/csv'],
-  ['oem', 'text/plain'],
-  ['geojson', 'application/geo+json'],
-] as const;
-export type TrackFormat = (typeof TRACK_FORMATS)[number][0];
-export const TRACK_FRAMES = ['gcrf', 'itrf', 'geodetic'] as const;
 
 export const ObjectLabel = z
   .object({
@@ -73,11 +65,7 @@ export const TrackDiagnostics = z.object({
   angularMomentumRelativeDrift: z.number().describe('max |h_k - h_0| / |h_0| (vector) across the samples'),
 });
 
-export const diagnosticsOf = (drift: ConservationDrift): z.infer<typeof TrackDiagnostics> => ({
-  energyRelativeDrift: drift.energy,
-  energyDriftVsPotential: drift.energyVsPotential,
-  angularMomentumRelativeDrift: drift.angularMomentumVector,
-});
+export type TrackDiagnostics = z.infer<typeof TrackDiagnostics>;
 
 export const TrackSample = z.union([StateSample, GeodeticSample]);
 

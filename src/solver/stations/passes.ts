@@ -111,7 +111,7 @@ export interface Pass {
   readonly los: number;
   /** Time of maximum elevation within [aos, los]. */
   readonly tca: number;
-  readonly duration: number;
+  readonly durationS: number;
   /** rad. */
   readonly maxElevation: number;
   readonly azimuthAos: number;
@@ -476,7 +476,7 @@ function describe(ctx: Context, st: Prepared, track: Track, iv: Interval, pointi
     aos: iv.start,
     los: iv.stop,
     tca,
-    duration: iv.stop - iv.start,
+    durationS: iv.stop - iv.start,
     maxElevation: top.elevation,
     azimuthAos: aos.azimuth,
     azimuthTca: top.azimuth,

@@ -124,7 +124,7 @@ describe('findPasses', () => {
     checkAgainstBruteForce(orbit, STATIONS, T0, T0 + DAY, passes, 2);
     for (let i = 1; i < passes.length; i++) expect(passes[i]!.aos).toBeGreaterThanOrEqual(passes[i - 1]!.aos); // time order
     for (const p of passes) {
-      expectClose(p.duration, p.los - p.aos, 1e-9, 'duration');
+      expectClose(p.durationS, p.los - p.aos, 1e-9, 'duration');
       expect(p.tca).toBeGreaterThanOrEqual(p.aos);
       expect(p.tca).toBeLessThanOrEqual(p.los);
     }
@@ -135,7 +135,7 @@ describe('findPasses', () => {
     const stations = [station('steep-1', 35, 139, 45), station('steep-2', -12, 20, 60), station('steep-3', 70, -40, 50)];
     const passes = search(orbit, stations, T0, T0 + DAY);
     expect(passes.length).toBeGreaterThanOrEqual(3);
-    for (const p of passes) expect(p.duration).toBeLessThan(240);
+    for (const p of passes) expect(p.durationS).toBeLessThan(240);
     checkAgainstBruteForce(orbit, stations, T0, T0 + DAY, passes, 2);
   });
 
@@ -201,7 +201,7 @@ describe('findPasses', () => {
     const justBelow = near(search(orbit, [{ ...base, minElevation: top - 0.002 * DEG }], T0, T0 + DAY / 2));
     expect(justBelow).toHaveLength(1);
     expectClose(justBelow[0]!.maxElevation / DEG, top / DEG, 1e-4, 'max elevation deg');
-    expect(justBelow[0]!.duration).toBeLessThan(60);
+    expect(justBelow[0]!.durationS).toBeLessThan(60);
 
     const justAbove = near(search(orbit, [{ ...base, minElevation: top + 0.002 * DEG }], T0, T0 + DAY / 2));
     expect(justAbove).toHaveLength(0);
@@ -265,7 +265,7 @@ describe('findPasses', () => {
       const track = p.pointing!;
       expect(track[0]!.tt).toBe(p.aos);
       expect(track[track.length - 1]!.tt).toBe(p.los);
-      expect(track.length).toBe(Math.ceil(p.duration / 10) + 1);
+      expect(track.length).toBe(Math.ceil(p.durationS / 10) + 1);
       for (const s of track) {
         expect(s.elevation).toBeGreaterThanOrEqual(limit(s.azimuth) - 0.01 * DEG);
         expectClose(s.dopplerFactor, 1 - s.rangeRate / 299_792.458, 1e-15, 'Doppler factor');

@@ -1,0 +1,17 @@
+// Time grids: the API's grid (ISO epochs, step in s) -> the solver's TT epochs.
+import { ProblemError } from '../errors.js';
+import { regularGrid, regularGridCount } from '../solver/core/grid.js';
+import type { TimeGrid } from '../schemas/grid.js';
+import { epochTT } from './epoch.js';
+
+/** The sample epochs of a validated grid, refusing more than `max` before allocating anything. */
+export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
+  if (grid.times) {
+    if (grid.times.length > max) throw new ProblemError('too-many-samples', `${grid.times.length} times asked; the maximum is ${max} samples`);
+    return Float64Array.from(grid.times, epochTT);
+  }
+  const [start, stop] = [epochTT(grid.start!), epochTT(grid.stop!)];
+  const count = regularGridCount(start, stop, grid.step!);
+  if (count > max) throw new ProblemError('too-many-samples', `the grid has ${count} samples; the maximum is ${max} (use a longer step or a shorter span)`);
+  return regularGrid(start, stop, grid.step!);
+}

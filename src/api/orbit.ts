@@ -1,0 +1,109 @@
+// Orbits between the API and the solver: a request's state or elements -> the solver's input
+// (degrees -> radians, ISO -> TT), and the solver's solution -> the /v1/orbit answer.
+import type { CentralBody } from '../solver/bodies/bodies.js';
+import { elementsToState, orbitTypeOf, type ElementsInput as SolverElementsInput } from '../solver/conic/elements.js';
+import type { OrbitSolution } from '../solver/conic/orbit.js';
+import { DEG, RAD, SECONDS_PER_DAY } from '../solver/core/math.js';
+import { failure, success, type Outcome } from '../solver/core/result.js';
+import type { Vec3 } from '../solver/core/vec3.js';
+import { END_OF_SUPPORTED_RANGE_TT, formatUtcIso } from '../solver/time/time.js';
+import type { OrbitAnswer, OrbitInputFields } from '../schemas/orbit.js';
+import { describeBody } from './body.js';
+import { epochTT } from './epoch.js';
+
+export type SolverOrbitInput = { r: Vec3; v: Vec3 } | { elements: SolverElementsInput };
+
+/** The solver's input for a validated request (degrees -> radians). */
+export function orbitSolverInput(req: OrbitInputFields): { epochTT: number; input: SolverOrbitInput } {
+  if (req.state) return { epochTT: epochTT(req.state.epoch), input: { r: req.state.position, v: req.state.velocity } };
+  const el = req.elements!;
+  return {
+    epochTT: epochTT(el.epoch),
+    input: {
+      elements: {
+        ...(el.semiMajorAxis !== undefined ? { semiMajorAxis: el.semiMajorAxis } : {}),
+        ...(el.semiLatusRectum !== undefined ? { semiLatusRectum: el.semiLatusRectum } : {}),
+        eccentricity: el.eccentricity,
+        inclination: el.inclination * DEG,
+        raan: el.raan * DEG,
+        argPeriapsis: el.argPeriapsis * DEG,
+        ...(el.trueAnomaly !== undefined ? { trueAnomaly: el.trueAnomaly * DEG } : {}),
+        // The parabolic mean anomaly is dimensionless: no degree conversion.
+        ...(el.meanAnomaly !== undefined ? { meanAnomaly: orbitTypeOf(el.eccentricity) === 'parabolic' ? el.meanAnomaly : el.meanAnomaly * DEG } : {}),
+      },
+    },
+  };
+}
+
+/** The initial Cartesian state of a request's orbit (state given, or elements converted). */
+export function initialState(body: CentralBody, req: OrbitInputFields): Outcome<{ r: Vec3; v: Vec3; epochTT: number }> {
+  const { epochTT: epoch, input } = orbitSolverInput(req);
+  if ('r' in input) {
+    if (input.r.every((x) => x === 0)) return failure('zero-position', 'the position vector is zero');
+    return success({ r: input.r, v: input.v, epochTT: epoch });
+  }
+  const state = elementsToState(input.elements, body.gm);
+  return state.ok ? success({ r: state.value.r, v: state.value.v, epochTT: epoch }) : state;
+}
+
+const deg = (rad: number): number => rad * RAD;
+const degPerDay = (radPerS: number): number => radPerS * RAD * SECONDS_PER_DAY;
+
+/** Solver solution -> API answer (radians -> degrees, seconds-after-epoch -> ISO epochs). */
+export function toOrbitAnswer(s: OrbitSolution, body: CentralBody, epoch: number, scenarioHash: string): OrbitAnswer {
+  // A passage beyond the supported calendar (after 2199) is reported as null, like one that does not exist.
+  const passage = (seconds: number | null): string | null =>
+    seconds === null || !(epoch + seconds < END_OF_SUPPORTED_RANGE_TT) ? null : formatUtcIso(epoch + seconds);
+  const apsis = (a: OrbitSolution['apsides']['periapsis']) => ({
+    radius: a.radius,
+    altitude: a.altitude,
+    speed: a.speed,
+    nextPassage: passage(a.secondsToNextPassage),
+  });
+  const e = s.elements;
+  // Parabolic anomalies and mean motion are dimensionless (per second): reported as they are.
+  const parabolic = e.orbitType === 'parabolic';
+  const anomaly = (x: number): number => (parabolic ? x : deg(x));
+  return {
+    scenarioHash,
+    centralBody: describeBody(body),
+    epoch: formatUtcIso(epoch),
+    orbitType: e.orbitType,
+    state: { frame: 'gcrf', position: [...s.position], velocity: [...s.velocity] },
+    elements: {
+      semiMajorAxis: e.semiMajorAxis,
+      eccentricity: e.eccentricity,
+      inclination: deg(e.inclination),
+      raan: deg(e.raan),
+      argPeriapsis: deg(e.argPeriapsis),
+      trueAnomaly: deg(e.trueAnomaly),
+      eccentricAnomaly: anomaly(e.eccentricAnomaly),
+      meanAnomaly: anomaly(e.meanAnomaly),
+      semiLatusRectum: e.semiLatusRectum,
+      argumentOfLatitude: deg(e.argLatitude),
+      trueLongitude: deg(e.trueLongitude),
+      longitudeOfPeriapsis: deg(e.longitudeOfPeriapsis),
+      raanDefined: e.raanDefined,
+      argPeriapsisDefined: e.argPeriapsisDefined,
+    },
+    apsides: { periapsis: apsis(s.apsides.periapsis), apoapsis: s.apsides.apoapsis ? apsis(s.apsides.apoapsis) : null },
+    period: s.periodS,
+    meanMotion: anomaly(s.meanMotion),
+    specificEnergy: s.specificEnergy,
+    specificAngularMomentum: { vector: [...s.specificAngularMomentum], magnitude: s.specificAngularMomentumMagnitude },
+    eccentricityVector: [...s.eccentricityVector],
+    flightPathAngle: deg(s.flightPathAngle),
+    radius: s.radius,
+    speed: s.speed,
+    intersectsBody: body.radius === undefined ? null : s.apsides.periapsis.radius < body.radius,
+    j2: s.j2
+      ? {
+        raanRate: degPerDay(s.j2.raanRate),
+        argPeriapsisRate: degPerDay(s.j2.argPeriapsisRate),
+        meanAnomalyRate: degPerDay(s.j2.meanAnomalyRate),
+        sunSynchronous: s.j2.sunSynchronous,
+        sunSynchronousInclination: s.j2.sunSynchronousInclination === null ? null : deg(s.j2.sunSynchronousInclination),
+      }
+      : null,
+  };
+}

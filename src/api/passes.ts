@@ -1,0 +1,86 @@
+// Passes between the API and the solver: stations (degrees) -> the solver's stations (radians),
+// and the solver's passes (TT seconds, radians) -> the answer (ISO epochs, degrees).
+import { ProblemError, solverProblem } from '../errors.js';
+import type { CentralBody } from '../solver/bodies/bodies.js';
+import { DEG, RAD } from '../solver/core/math.js';
+import type { Vec3 } from '../solver/core/vec3.js';
+import { propagateTrack } from '../solver/propagation/track.js';
+import type { Pass, PassSearchResult, PassStation } from '../solver/stations/passes.js';
+import { dopplerShift } from '../solver/stations/topocentric.js';
+import { formatUtcIso } from '../solver/time/time.js';
+import type { GroundStation, PassesAnswer, PassesRequest } from '../schemas/passes.js';
+import type { PassesJob } from '../workers/jobs.js';
+import { epochTT } from './epoch.js';
+
+/** A request's station for the pass search (degrees -> radians). */
+export const stationForSearch = (s: GroundStation): PassStation => ({
+  id: s.id,
+  latitude: s.latitude * DEG,
+  longitude: s.longitude * DEG,
+  height: s.altitude,
+  minElevation: s.minElevation * DEG,
+  ...(s.horizonMask ? { mask: s.horizonMask.map((p) => ({ azimuth: p.azimuth * DEG, elevation: p.elevation * DEG })) } : {}),
+});
+
+/** Solver pass (TT seconds, radians) -> API pass (ISO epochs, degrees). */
+export function toPassAnswer(p: Pass, carrierFrequencyHz: number | undefined): PassesAnswer['passes'][number] {
+  const deg = (rad: number) => rad * RAD;
+  return {
+    station: p.station,
+    aos: formatUtcIso(p.aos),
+    tca: formatUtcIso(p.tca),
+    los: formatUtcIso(p.los),
+    duration: p.durationS,
+    maxElevation: deg(p.maxElevation),
+    azimuthAos: deg(p.azimuthAos),
+    azimuthTca: deg(p.azimuthTca),
+    azimuthLos: deg(p.azimuthLos),
+    rangeTca: p.rangeTca,
+    startsBeforeWindow: p.startsBeforeWindow,
+    endsAfterWindow: p.endsAfterWindow,
+    ...(p.pointing
+      ? {
+        pointing: p.pointing.map((s) => ({
+          epoch: formatUtcIso(s.tt),
+          azimuth: deg(s.azimuth),
+          elevation: deg(s.elevation),
+          range: s.range,
+          rangeRate: s.rangeRate,
+          dopplerFactor: s.dopplerFactor,
+          dopplerShift: carrierFrequencyHz === undefined ? null : dopplerShift(carrierFrequencyHz, s.rangeRate),
+        })),
+      }
+      : {}),
+  };
+}
+
+/** The worker job of a validated pass request; refuses a reversed window and (analytic models) a trajectory that meets the body within it. */
+export function passSearchJob(req: PassesRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }): PassesJob {
+  const [startTT, stopTT] = [epochTT(req.window.start), epochTT(req.window.stop)];
+  if (!(stopTT > startTT)) throw new ProblemError('validation-failed', 'the window stop must be after its start', { errors: [{ path: 'body.window.stop', message: 'must be after start' }] });
+  const spec = { body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT };
+  // The same surface check as /v1/track over the whole window (the numerical model checks while it integrates).
+  if (req.model !== 'numerical') {
+    const surface = propagateTrack({ ...spec, epochsTT: Float64Array.of(startTT, stopTT) });
+    if (!surface.ok) throw solverProblem(surface);
+  }
+  return {
+    kind: 'passes',
+    spec,
+    startTT,
+    stopTT,
+    stations: req.stations.map(stationForSearch),
+    options: { dut1: req.ut1MinusUtc, gm: body.gm, ...(req.pointing ? { pointingStepS: req.pointing.step } : {}) },
+  };
+}
+
+/** The /v1/passes answer for a finished search. */
+export function toPassesAnswer(req: PassesRequest, hash: string, found: PassSearchResult): PassesAnswer {
+  return {
+    scenarioHash: hash,
+    model: req.model,
+    window: { start: formatUtcIso(epochTT(req.window.start)), stop: formatUtcIso(epochTT(req.window.stop)) },
+    coarseStep: found.coarseStepS,
+    passes: found.passes.map((p) => toPassAnswer(p, req.pointing?.carrierFrequency)),
+  };
+}

@@ -1,0 +1,68 @@
+// Tracks between the API and the solver: the request -> the worker job, and the job's result ->
+// the product's inputs (the answer head, degrees for geodetic coordinates, OEM metadata).
+import type { CentralBody } from '../solver/bodies/bodies.js';
+import type { ConservationDrift } from '../solver/conic/universal.js';
+import { RAD } from '../solver/core/math.js';
+import type { Vec3 } from '../solver/core/vec3.js';
+import type { Track } from '../solver/propagation/track.js';
+import type { TrackDiagnostics, TrackRequest } from '../schemas/track.js';
+import type { TrackNeeds, TrackFormat, TrackProductInput } from '../formats/track-output.js';
+import type { TrackJob, TrackJobResult } from '../workers/jobs.js';
+
+export const diagnosticsOf = (drift: ConservationDrift): TrackDiagnostics => ({
+  energyRelativeDrift: drift.energy,
+  energyDriftVsPotential: drift.energyVsPotential,
+  angularMomentumRelativeDrift: drift.angularMomentumVector,
+});
+
+/** The worker job of a validated track request (its grid buffer moves to the worker). */
+export function trackJob(req: TrackRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, epochsTT: Float64Array, needs: TrackNeeds): TrackJob {
+  return {
+    kind: 'track',
+    input: { body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT, epochsTT, passThroughBody: req.passThroughBody },
+    earthFixed: needs.earthFixed ? { dut1: req.ut1MinusUtc } : null,
+    geodetic: needs.geodetic,
+  };
+}
+
+/** WGS-84 latitude, longitude (rad -> deg, in place) and height (km): radians to degrees at the edge. */
+function geodeticDegrees(g: Float64Array): Float64Array {
+  for (let i = 0; i < g.length; i += 3) {
+    g[i] = g[i]! * RAD;
+    g[i + 1] = g[i + 1]! * RAD;
+  }
+  return g;
+}
+
+/** The product's inputs for a solved track job. */
+export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: string, body: CentralBody, initialEpochTT: number, result: TrackJobResult): TrackProductInput {
+  const inertial: Track = result.track;
+  return {
+    format,
+    frame: req.frame,
+    epochsTT: inertial.epochsTT,
+    states: result.earthFixed ?? inertial.states,
+    geodeticDeg: result.geodetic ? geodeticDegrees(result.geodetic) : null,
+    head: {
+      scenarioHash: hash,
+      model: req.model,
+      forces: req.forces,
+      frame: req.frame,
+      centralBody: { name: body.name, gm: body.gm, radius: body.radius ?? null },
+      object: req.object,
+      sampleCount: inertial.epochsTT.length,
+      // Conservation is checked on the inertial states, whatever the output frame.
+      diagnostics: diagnosticsOf(inertial.drift),
+    },
+    object: req.object,
+    oem: {
+      creationEpochTT: initialEpochTT,
+      centerName: body.name.toUpperCase(),
+      comments: [
+        `model ${req.model}, GM ${body.gm} km**3/s**2; scenario ${hash}`,
+        ...(req.frame === 'itrf' ? [`Earth-fixed: IAU precession-nutation and Earth rotation, polar motion neglected, UT1-UTC ${req.ut1MinusUtc} s`] : []),
+        'CREATION_DATE is the epoch of the initial state, so that one scenario always gives the same bytes',
+      ],
+    },
+  };
+}

@@ -1,0 +1,107 @@
+// The choice (format, frame) -> a track product: which coordinates a format needs, the sample
+// order it needs, and the formatter with its columns. Routes call this and nothing else to format.
+import { ProblemError } from '../errors.js';
+import { columnCsvChunks, csvChunks, CSV_MEDIA_TYPE } from './csv.js';
+import { GEOJSON_MEDIA_TYPE, groundTrackGeoJson } from './geojson.js';
+import { oemChunks, OEM_MEDIA_TYPE } from './oem.js';
+import type { Product } from './product.js';
+import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from './track-json.js';
+import { assertPrintable } from './track-table.js';
+
+export const TRACK_FORMATS = [
+  ['json', 'application/json'],
+  ['csv', 'text/csv'],
+  ['oem', 'text/plain'],
+  ['geojson', 'application/geo+json'],
+] as const;
+export type TrackFormat = (typeof TRACK_FORMATS)[number][0];
+export const TRACK_FRAMES = ['gcrf', 'itrf', 'geodetic'] as const;
+export type TrackFrame = (typeof TRACK_FRAMES)[number];
+
+/** What the states must be converted to before formatting. */
+export interface TrackNeeds {
+  /** Earth-fixed (ITRF) states: frame itrf or geodetic, or a GeoJSON ground track. */
+  readonly earthFixed: boolean;
+  /** WGS-84 latitude, longitude, height: frame geodetic, or a GeoJSON ground track. */
+  readonly geodetic: boolean;
+}
+
+/** The conversions a (format, frame) needs; refuses the combinations no format can carry. */
+export function trackNeeds(format: TrackFormat, frame: TrackFrame, builtInEarth: boolean): TrackNeeds {
+  const needs = { earthFixed: frame !== 'gcrf' || format === 'geojson', geodetic: frame === 'geodetic' || format === 'geojson' };
+  if (needs.earthFixed && !builtInEarth) {
+    throw new ProblemError('unsupported-frame', `frame ${frame}${format === 'geojson' ? ' and GeoJSON' : ''} need the built-in centralBody "earth"`);
+  }
+  if (format === 'oem' && frame === 'geodetic') {
+    throw new ProblemError('unsupported-frame', 'an OEM carries Cartesian states: choose frame gcrf or itrf');
+  }
+  return needs;
+}
+
+/** The sample epochs a format can carry: an OEM needs strictly increasing epochs (sorted, repeats dropped). */
+export function epochsForFormat(format: TrackFormat, epochsTT: Float64Array): Float64Array {
+  if (format !== 'oem') return epochsTT;
+  const sorted = Float64Array.from(epochsTT).sort();
+  let n = 0;
+  for (let i = 0; i < sorted.length; i++) if (i === 0 || sorted[i]! > sorted[n - 1]!) sorted[n++] = sorted[i]!;
+  return sorted.subarray(0, n);
+}
+
+const GEODETIC_CSV = [
+  { header: 'latitude_deg', decimals: 7 },
+  { header: 'longitude_deg', decimals: 7 },
+  { header: 'height_km', decimals: 6 },
+];
+const GEODETIC_FIELDS = [
+  { key: 'latitude', from: 0, count: 1, decimals: 7 },
+  { key: 'longitude', from: 1, count: 1, decimals: 7 },
+  { key: 'height', from: 2, count: 1, decimals: 6 },
+];
+
+export interface TrackProductInput {
+  readonly format: TrackFormat;
+  readonly frame: TrackFrame;
+  readonly epochsTT: Float64Array;
+  /** Cartesian states in the output frame (gcrf or itrf), 6 per sample. */
+  readonly states: Float64Array;
+  /** Latitude and longitude in degrees, height in km, 3 per sample, when the needs asked for them. */
+  readonly geodeticDeg: Float64Array | null;
+  /** The JSON answer's fields before its samples. */
+  readonly head: Record<string, unknown>;
+  readonly object: { readonly name: string; readonly id: string };
+  /** OEM header and metadata that only the caller knows. */
+  readonly oem: { readonly creationEpochTT: number; readonly centerName: string; readonly comments: readonly string[] };
+}
+
+/** The track in its format; refuses (422) states that cannot be printed before anything is streamed. */
+export function trackProduct(t: TrackProductInput): Product {
+  assertPrintable(t.states);
+  const geodetic = t.frame === 'geodetic' || t.format === 'geojson';
+  if (geodetic) {
+    const g = t.geodeticDeg;
+    if (g === null) throw new Error('a geodetic track product needs geodetic coordinates'); // programmer error
+    if (t.format === 'geojson') {
+      const samples = Array.from(t.epochsTT, (tt, i) => ({ tt, latitudeDeg: g[3 * i]!, longitudeDeg: g[3 * i + 1]!, heightKm: g[3 * i + 2]! }));
+      return { contentType: GEOJSON_MEDIA_TYPE, chunks: groundTrackGeoJson(samples, { name: t.object.name, includeHeight: true }) };
+    }
+    if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: columnCsvChunks(t.epochsTT, g, GEODETIC_CSV) };
+    return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(t.head, t.epochsTT, g, GEODETIC_FIELDS) };
+  }
+  const table = { epochsTT: t.epochsTT, states: t.states };
+  if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: csvChunks(table) };
+  if (t.format === 'oem') {
+    return {
+      contentType: OEM_MEDIA_TYPE,
+      chunks: oemChunks(table, {
+        creationEpochTT: t.oem.creationEpochTT,
+        originator: 'apsides',
+        objectName: t.object.name,
+        objectId: t.object.id,
+        centerName: t.oem.centerName,
+        refFrame: t.frame === 'itrf' ? 'ITRF' : 'GCRF',
+        comments: t.oem.comments,
+      }),
+    };
+  }
+  return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(t.head, t.epochsTT, t.states, STATE_FIELDS) };
+}
