@@ -11,7 +11,7 @@ export function resolveBody(input: CentralBodyInput): CentralBody {
     gm: input.gm,
     ...(input.radius !== undefined ? { radius: input.radius } : {}),
     ...(input.j2 !== undefined ? { j2: input.j2 } : {}),
-    ...(input.rotationRate !== undefined ? { rotationRate: input.rotationRate * DEG } : {}),
+    ...(input.rotationRate !== undefined ? { rotationRateRadS: input.rotationRate * DEG } : {}),
     ...(input.flattening !== undefined ? { flattening: input.flattening } : {}),
     sources: { gm: 'given in the request' },
   };
@@ -24,7 +24,7 @@ export function describeBody(body: CentralBody): BodySummary {
     gm: body.gm,
     radius: body.radius ?? null,
     j2: body.j2 ?? null,
-    rotationRate: body.rotationRate !== undefined ? body.rotationRate * RAD : null,
+    rotationRate: body.rotationRateRadS !== undefined ? body.rotationRateRadS * RAD : null,
     flattening: body.flattening ?? null,
   };
 }
@@ -36,7 +36,7 @@ export function bodiesAnswer(): BodiesAnswer {
       const body = BODIES[name];
       return {
         ...describeBody(body),
-        heliocentricMeanMotion: body.heliocentricMeanMotion !== undefined ? body.heliocentricMeanMotion * RAD * SECONDS_PER_DAY : null,
+        heliocentricMeanMotion: body.heliocentricMeanMotionRadS !== undefined ? body.heliocentricMeanMotionRadS * RAD * SECONDS_PER_DAY : null,
         sources: { ...body.sources },
       };
     }),

@@ -98,9 +98,9 @@ export function toOrbitAnswer(s: OrbitSolution, body: CentralBody, epoch: number
     intersectsBody: body.radius === undefined ? null : s.apsides.periapsis.radius < body.radius,
     j2: s.j2
       ? {
-        raanRate: degPerDay(s.j2.raanRate),
-        argPeriapsisRate: degPerDay(s.j2.argPeriapsisRate),
-        meanAnomalyRate: degPerDay(s.j2.meanAnomalyRate),
+        raanRate: degPerDay(s.j2.raanRateRadS),
+        argPeriapsisRate: degPerDay(s.j2.argPeriapsisRateRadS),
+        meanAnomalyRate: degPerDay(s.j2.meanAnomalyRateRadS),
         sunSynchronous: s.j2.sunSynchronous,
         sunSynchronousInclination: s.j2.sunSynchronousInclination === null ? null : deg(s.j2.sunSynchronousInclination),
       }

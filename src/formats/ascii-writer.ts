@@ -2,13 +2,12 @@
 // digits once, in place, with no intermediate string per sample. The formatters of big answers
 // (CSV, OEM, JSON tracks) write through it and yield each full chunk.
 import { newUtcFields, utcSplitter, type UtcFields } from '../solver/time/time.js';
-import { fixed } from './track-table.js';
+import { fixed, scaledForFixed, SCALES } from './track-table.js';
 
 const ZERO = 48;
 /** "00".."99" as byte pairs: two digits per division. */
 const PAIRS = Uint8Array.from({ length: 200 }, (_, i) => ZERO + (i & 1 ? (i >> 1) % 10 : Math.floor((i >> 1) / 10)));
 const INT32_LIMIT = 2_147_483_648;
-const SCALES = Array.from({ length: 21 }, (_, i) => 10 ** i);
 
 /** Decimal digits of a non-negative int32. */
 const digitCount = (n: number): number =>
@@ -41,7 +40,6 @@ export class AsciiWriter {
   readonly #chunkBytes: number;
   #buf: Buffer;
   #pos = 0;
-  readonly #digits = new Uint8Array(24);
   readonly #split: (tt: number, out: UtcFields) => void;
   readonly #fields = newUtcFields();
   readonly #fractionDigits: number;
@@ -108,53 +106,26 @@ export class AsciiWriter {
       this.#pos = writeInt32(this.#buf, this.#pos, n, width);
       return;
     }
-    const d = this.#digits;
-    let k = 0;
-    // Above 2^31: peel off digits in floating point until int32 arithmetic can take over.
-    while (n >= INT32_LIMIT) {
-      const q = Math.floor(n / 10);
-      d[k++] = ZERO + (n - q * 10);
-      n = q;
-    }
-    let m = n | 0;
-    while (m >= 100) {
-      const q = (m / 100) | 0;
-      const r = (m - q * 100) << 1;
-      d[k++] = PAIRS[r + 1]!;
-      d[k++] = PAIRS[r]!;
-      m = q;
-    }
-    if (m >= 10) {
-      d[k++] = PAIRS[(m << 1) + 1]!;
-      d[k++] = PAIRS[m << 1]!;
-    } else {
-      d[k++] = ZERO + m;
-    }
-    while (k < width) d[k++] = ZERO;
-    const buf = this.#buf;
-    let pos = this.#pos;
-    while (k > 0) buf[pos++] = d[--k]!;
-    this.#pos = pos;
+    // Above 2^31: the leading digits and the last nine, each an int32 (n < 2^53 < 1e16, all exact).
+    const high = Math.floor(n / 1e9);
+    this.#pos = writeInt32(this.#buf, this.#pos, high, Math.max(width - 9, 1));
+    this.#pos = writeInt32(this.#buf, this.#pos, n - high * 1e9, 9);
   }
 
   /** The same text as fixed(value, decimals) from track-table.ts. */
   fixed(value: number, decimals: number): this {
+    const scaled = scaledForFixed(value, decimals);
+    if (scaled < 0) return this.text(fixed(value, decimals));
+    this.#room(40);
+    if (value < 0 && scaled !== 0) this.#buf[this.#pos++] = 45;
     const scale = SCALES[decimals]!;
-    const magnitude = Math.abs(value) * scale;
-    // Same fast path and tie guard as fixed(); anything else goes through it.
-    if (magnitude < 9e15 && Math.abs(magnitude - Math.floor(magnitude) - 0.5) > 1e-6) {
-      this.#room(40);
-      const scaled = Math.round(magnitude);
-      if (value < 0 && scaled !== 0) this.#buf[this.#pos++] = 45;
-      const whole = Math.floor(scaled / scale);
-      this.#integer(whole, 1);
-      if (decimals > 0) {
-        this.#buf[this.#pos++] = 46;
-        this.#integer(scaled - whole * scale, decimals);
-      }
-      return this;
+    const whole = Math.floor(scaled / scale);
+    this.#integer(whole, 1);
+    if (decimals > 0) {
+      this.#buf[this.#pos++] = 46;
+      this.#integer(scaled - whole * scale, decimals);
     }
-    return this.text(fixed(value, decimals));
+    return this;
   }
 
   /** An epoch as ISO 8601 UTC, with or without the trailing Z. */

@@ -8,22 +8,6 @@ export interface TrackTable {
   readonly states: Float64Array;
 }
 
-export interface TrackColumn {
-  /** Name of the component: x, y, z, vx, vy, vz. */
-  readonly name: string;
-  readonly unit: 'km' | 'km/s';
-}
-
-/** The six numbers of each sample, in order. */
-export const STATE_COLUMNS: readonly TrackColumn[] = [
-  { name: 'x', unit: 'km' },
-  { name: 'y', unit: 'km' },
-  { name: 'z', unit: 'km' },
-  { name: 'vx', unit: 'km/s' },
-  { name: 'vy', unit: 'km/s' },
-  { name: 'vz', unit: 'km/s' },
-];
-
 /** Number of samples; throws when the states array does not hold exactly 6 numbers per epoch. */
 export function sampleCount(table: TrackTable): number {
   const n = table.epochsTT.length;
@@ -40,21 +24,30 @@ export function firstNonIncreasing(epochsTT: Float64Array): number {
 }
 
 const ZEROS = Array.from({ length: 21 }, (_, i) => '0'.repeat(i));
-const SCALES = Array.from({ length: 21 }, (_, i) => 10 ** i);
+/** 10^0 .. 10^20. */
+export const SCALES = Array.from({ length: 21 }, (_, i) => 10 ** i);
+
+/**
+ * |value| * 10^decimals rounded to an integer, when integer arithmetic gives the exact fixed-point
+ * digits: the product is below 9e15 (exact in a double) and not within 1e-6 of a rounding tie
+ * (where the product may have rounded across it). Otherwise -1: let toFixed decide from the exact value.
+ */
+export function scaledForFixed(value: number, decimals: number): number {
+  const magnitude = Math.abs(value) * SCALES[decimals]!;
+  return magnitude < 9e15 && Math.abs(magnitude - Math.floor(magnitude) - 0.5) > 1e-6 ? Math.round(magnitude) : -1;
+}
 
 /**
  * A number in fixed notation with `decimals` digits; a value that rounds to zero prints without a
  * minus sign ("0.000000", not "-0.000000"). Non-finite values and |value| >= 1e21 throw.
- * Integer arithmetic while |value| * 10^decimals < 9e15 (exact in a double) and not within 1e-6 of
- * a rounding tie; toFixed (exact decimal rounding) otherwise. Same text as toFixed.
+ * Integer arithmetic where scaledForFixed allows it, toFixed (exact decimal rounding) otherwise.
+ * Same text as toFixed.
  */
 export function fixed(value: number, decimals: number): string {
-  const scale = SCALES[decimals]!;
-  const magnitude = Math.abs(value) * scale;
-  // Near a tie the product magnitude may have rounded across it: let toFixed decide from the exact value.
-  if (magnitude < 9e15 && Math.abs(magnitude - Math.floor(magnitude) - 0.5) > 1e-6) {
-    const scaled = Math.round(magnitude);
+  const scaled = scaledForFixed(value, decimals);
+  if (scaled >= 0) {
     if (decimals === 0) return (value < 0 && scaled !== 0 ? '-' : '') + scaled;
+    const scale = SCALES[decimals]!;
     const whole = Math.floor(scaled / scale);
     const fraction = String(scaled - whole * scale);
     return (value < 0 && scaled !== 0 ? '-' : '') + whole + '.' + ZEROS[decimals - fraction.length] + fraction;

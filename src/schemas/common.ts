@@ -1,5 +1,6 @@
 // Shared request/answer pieces. Units at the API: km, km/s, s, degrees, kg, km^3/s^2.
 import { z } from 'zod';
+import { SPEED_OF_LIGHT_KM_S } from '../solver/core/constants.js';
 import { parseUtcIso } from '../solver/time/time.js';
 
 export const DEMO_EPOCH = '2026-12-01T00:00:00Z';
@@ -9,7 +10,7 @@ export const Vec3 = z.tuple([z.number(), z.number(), z.number()]);
 /** Largest position component accepted, km (~6700 AU): every propagated number then stays printable (< 1e21) over 1972-2199. */
 export const MAX_POSITION_KM = 1e12;
 /** Largest velocity component accepted: the speed of light, km/s (SI Brochure, 9th ed.). */
-export const MAX_SPEED_KM_S = 299_792.458;
+export const MAX_SPEED_KM_S = SPEED_OF_LIGHT_KM_S;
 const bounded = (limit: number) => z.number().min(-limit).max(limit);
 export const PositionKm = z.tuple([bounded(MAX_POSITION_KM), bounded(MAX_POSITION_KM), bounded(MAX_POSITION_KM)])
   .describe(`Position [x, y, z] in km, each component within +-${MAX_POSITION_KM}`);

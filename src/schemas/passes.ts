@@ -1,5 +1,6 @@
 // POST /v1/passes: ground-station passes of one spacecraft over a window.
 import { z } from 'zod';
+import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTING_STEP_S } from '../solver/stations/passes.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { DEMO_EPOCH, Epoch, EpochOut } from './common.js';
@@ -30,7 +31,7 @@ export const PassesRequest = z
   .object({
     ...orbitFields,
     ...modelFields,
-    window: z.object({ start: Epoch, stop: Epoch }).strict().describe(`Search window (ISO 8601 UTC), stop after start, at most ${MAX_PASS_WINDOW_S / 86_400} days`),
+    window: z.object({ start: Epoch, stop: Epoch }).strict().describe(`Search window (ISO 8601 UTC), stop after start, at most ${MAX_PASS_WINDOW_S / SECONDS_PER_DAY} days`),
     stations: z.array(GroundStation).min(1).max(MAX_PASS_STATIONS).describe(`Ground stations, 1 to ${MAX_PASS_STATIONS}`),
     pointing: z
       .object({

@@ -1,6 +1,7 @@
 // POST /v1/two-body: request and answer schemas (the mapping to and from the solver is in src/api/two-body.ts).
 import { TrackDiagnostics } from './track.js';
 import { z } from 'zod';
+import { SPEED_OF_LIGHT_KM_S } from '../solver/core/constants.js';
 import { DEMO_EPOCH, Epoch, EpochOut, ScenarioHash, Vec3 } from './common.js';
 import { TimeGrid } from './grid.js';
 import { OrbitAnswer } from './orbit.js';
@@ -13,7 +14,7 @@ export const GM_MIN_KM3_S2 = 1e-49;
 export const GM_MAX_KM3_S2 = 1e30;
 export const POSITION_LIMIT_KM = 1e18;
 /** Speed of light, km/s (exact by the definition of the metre; SI Brochure, 9th ed., 2019): a Newtonian model is meaningless beyond it. */
-export const VELOCITY_LIMIT_KM_S = 299_792.458;
+export const VELOCITY_LIMIT_KM_S = SPEED_OF_LIGHT_KM_S;
 
 const coordinate = z.number().min(-POSITION_LIMIT_KM).max(POSITION_LIMIT_KM);
 const velocityComponent = z.number().min(-VELOCITY_LIMIT_KM_S).max(VELOCITY_LIMIT_KM_S);

@@ -11,6 +11,7 @@ import { geodeticBatch } from '../solver/earth/geodetic.js';
 import { findPasses, type Pass, type PassSearchOptions, type PassSearchResult, type PassStation, type PointingSample } from '../solver/stations/passes.js';
 import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest } from '../solver/central/radial-track.js';
 import { analyseCentralForce, type AnalysisOptions, type CentralForceAnalysis, type CentralForceProblem, type PotentialSample } from '../solver/central/radial.js';
+import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { success, type Outcome } from '../solver/core/result.js';
 import { propagateTrack, type Track, type TrackInput } from '../solver/propagation/track.js';
 import { stateFunction, type PropagationSpec } from '../solver/propagation/propagator.js';
@@ -27,7 +28,7 @@ export const INLINE_TRACK_SAMPLES = 2000;
  */
 export const INLINE_TWO_BODY_SAMPLES = 200_000;
 /** Pass searches run inline when the window is at most this long, s ... */
-export const INLINE_PASS_WINDOW_S = 86_400;
+export const INLINE_PASS_WINDOW_S = SECONDS_PER_DAY;
 /** ... with at most this many stations and no pointing track (1 day x 4 stations: ~20-35 ms). */
 export const INLINE_PASS_STATIONS = 4;
 // Central-force analyses without a track run inline (10 000 potential samples: ~10 ms); any track

@@ -9,9 +9,9 @@ export interface CentralBody {
   readonly gm: number; // km^3/s^2
   readonly radius?: number; // km, mean equatorial; also the reference radius of j2
   readonly j2?: number;
-  readonly rotationRate?: number; // rad/s, sidereal; negative for retrograde spin
+  readonly rotationRateRadS?: number; // rad/s, sidereal; negative for retrograde spin
   readonly flattening?: number;
-  readonly heliocentricMeanMotion?: number; // rad/s, the body's mean motion about the Sun
+  readonly heliocentricMeanMotionRadS?: number; // rad/s, the body's mean motion about the Sun
   readonly sources: Readonly<Record<string, string>>; // field name -> source text
 }
 
@@ -38,7 +38,7 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     gm: 132_712_440_041.279_419,
     radius: 695_700,
     j2: 2.2e-7,
-    rotationRate: spin(14.184_4),
+    rotationRateRadS: spin(14.184_4),
     flattening: 0,
     sources: {
       gm: `${DE440}, from memory`,
@@ -53,9 +53,9 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     gm: 22_031.868_551,
     radius: 2_440.53,
     j2: 50.3e-6,
-    rotationRate: spin(6.138_510_8),
+    rotationRateRadS: spin(6.138_510_8),
     flattening: flat(2_440.53, 2_438.26),
-    heliocentricMeanMotion: perDays(87.969),
+    heliocentricMeanMotionRadS: perDays(87.969),
     sources: {
       gm: `${DE440}, from memory`,
       radius: `${WGCCRE}, equatorial radius 2440.53 km, from memory`,
@@ -70,9 +70,9 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     gm: 324_858.592,
     radius: 6_051.8,
     j2: 4.458e-6,
-    rotationRate: spin(-1.481_368_8),
+    rotationRateRadS: spin(-1.481_368_8),
     flattening: 0,
-    heliocentricMeanMotion: perDays(224.701),
+    heliocentricMeanMotionRadS: perDays(224.701),
     sources: {
       gm: `${DE440}, from memory`,
       radius: `${WGCCRE}, radius 6051.8 km (sphere), from memory`,
@@ -89,9 +89,9 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     // J2 = -C20 = -sqrt(2n + 1) * normalised C20, n = 2, m = 0 (Vallado 4th ed. sec. 8.6.1, from memory);
     // EGM-96 normalised C20 = -0.484165371736e-3.
     j2: Math.sqrt(5) * 0.484_165_371_736e-3,
-    rotationRate: 7.292_115e-5,
+    rotationRateRadS: 7.292_115e-5,
     flattening: 1 / 298.257_223_563,
-    heliocentricMeanMotion: perDays(365.242_2),
+    heliocentricMeanMotionRadS: perDays(365.242_2),
     sources: {
       gm: 'WGS-84 / EGM-96, GM = 398600.4418 km^3/s^2 (NIMA TR8350.2, 3rd ed., defining parameters, table 3.1 from memory)',
       radius: 'WGS-84 semi-major axis a = 6378.137 km (NIMA TR8350.2, 3rd ed., defining parameters)',
@@ -102,13 +102,13 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     },
   },
   moon: {
-    // No heliocentricMeanMotion: the lunar spin axis precesses in 18.6 years (Cassini state), so a
+    // No heliocentricMeanMotionRadS: the lunar spin axis precesses in 18.6 years (Cassini state), so a
     // fixed-frame J2 node rate does not hold a lunar orbit at a fixed Sun angle.
     name: 'moon',
     gm: 4_902.800_118,
     radius: 1_738.1,
     j2: 202.7e-6,
-    rotationRate: spin(13.176_358_15),
+    rotationRateRadS: spin(13.176_358_15),
     flattening: flat(1_738.1, 1_736.0),
     sources: {
       gm: `${DE440}, from memory`,
@@ -123,9 +123,9 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     gm: 42_828.375_816,
     radius: 3_396.19,
     j2: 1_960.45e-6,
-    rotationRate: spin(350.891_982_26),
+    rotationRateRadS: spin(350.891_982_26),
     flattening: flat(3_396.19, 3_376.2),
-    heliocentricMeanMotion: perDays(686.98),
+    heliocentricMeanMotionRadS: perDays(686.98),
     sources: {
       gm: DE440_SYSTEM,
       radius: `${WGCCRE}, equatorial radius 3396.19 km, from memory`,
@@ -140,9 +140,9 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     gm: 126_712_764.1,
     radius: 71_492,
     j2: 14_736e-6,
-    rotationRate: spin(870.536),
+    rotationRateRadS: spin(870.536),
     flattening: flat(71_492, 66_854),
-    heliocentricMeanMotion: perDays(4_332.589),
+    heliocentricMeanMotionRadS: perDays(4_332.589),
     sources: {
       gm: DE440_SYSTEM,
       radius: `${WGCCRE}, 1-bar equatorial radius 71492 km`,
@@ -157,9 +157,9 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     gm: 37_940_584.841_8,
     radius: 60_268,
     j2: 16_298e-6,
-    rotationRate: spin(810.793_902_4),
+    rotationRateRadS: spin(810.793_902_4),
     flattening: flat(60_268, 54_364),
-    heliocentricMeanMotion: perDays(10_759.22),
+    heliocentricMeanMotionRadS: perDays(10_759.22),
     sources: {
       gm: DE440_SYSTEM,
       radius: `${WGCCRE}, 1-bar equatorial radius 60268 km, from memory`,
@@ -170,13 +170,13 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     },
   },
   uranus: {
-    // No heliocentricMeanMotion: with an obliquity near 98 deg the Sun moves far from the equator
+    // No heliocentricMeanMotionRadS: with an obliquity near 98 deg the Sun moves far from the equator
     // plane, so a node rate matched to the mean motion does not hold a fixed Sun angle.
     name: 'uranus',
     gm: 5_794_556.4,
     radius: 25_559,
     j2: 3_343.43e-6,
-    rotationRate: spin(-501.160_092_8),
+    rotationRateRadS: spin(-501.160_092_8),
     flattening: flat(25_559, 24_973),
     sources: {
       gm: DE440_SYSTEM,
@@ -191,9 +191,9 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     gm: 6_836_527.100_58,
     radius: 24_764,
     j2: 3_411e-6,
-    rotationRate: spin(536.312_849_2),
+    rotationRateRadS: spin(536.312_849_2),
     flattening: flat(24_764, 24_341),
-    heliocentricMeanMotion: perDays(60_189),
+    heliocentricMeanMotionRadS: perDays(60_189),
     sources: {
       gm: DE440_SYSTEM,
       radius: `${WGCCRE}, 1-bar equatorial radius 24764 km, from memory`,

@@ -5,10 +5,10 @@ import { DEG, SECONDS_PER_DAY } from '../core/math.js';
 import type { CentralBody } from '../bodies/bodies.js';
 
 export interface J2Rates {
-  readonly raanRate: number; // rad/s
-  readonly argPeriapsisRate: number; // rad/s
+  readonly raanRateRadS: number; // rad/s
+  readonly argPeriapsisRateRadS: number; // rad/s
   /** rad/s: the J2 correction ADDED to the Keplerian mean motion sqrt(mu/a^3), not the total rate. */
-  readonly meanAnomalyRate: number;
+  readonly meanAnomalyRateRadS: number;
 }
 
 /** Common factor n J2 (R/p)^2 of the three rates, n = sqrt(mu/a^3). */
@@ -33,14 +33,14 @@ export function j2SecularRates(a: number, e: number, i: number, mu: number, j2: 
   const k = j2Factor(a, e, mu, j2, radius);
   const s2 = Math.sin(i) ** 2;
   return {
-    raanRate: -1.5 * k * Math.cos(i),
-    argPeriapsisRate: 0.75 * k * (4 - 5 * s2),
-    meanAnomalyRate: 0.75 * k * Math.sqrt((1 - e) * (1 + e)) * (2 - 3 * s2),
+    raanRateRadS: -1.5 * k * Math.cos(i),
+    argPeriapsisRateRadS: 0.75 * k * (4 - 5 * s2),
+    meanAnomalyRateRadS: 0.75 * k * Math.sqrt((1 - e) * (1 + e)) * (2 - 3 * s2),
   };
 }
 
 /**
- * |raanRate - heliocentric mean motion| within this counts as sun-synchronous: 0.01 deg/day, i.e.
+ * |raanRateRadS - heliocentric mean motion| within this counts as sun-synchronous: 0.01 deg/day, i.e.
  * the orbit plane drifts 3.65 deg (about 15 min of local time) a year against the mean Sun, the
  * order of a yearly station-keeping budget (common practice, no source).
  */
@@ -53,7 +53,7 @@ export const SUN_SYNCHRONOUS_TOLERANCE = (0.01 * DEG) / SECONDS_PER_DAY;
  * (J2 too weak at this size of orbit).
  */
 export function sunSynchronousInclination(a: number, e: number, body: CentralBody): number | null {
-  const { j2, radius, heliocentricMeanMotion: nSun } = body;
+  const { j2, radius, heliocentricMeanMotionRadS: nSun } = body;
   if (j2 === undefined || radius === undefined || nSun === undefined || j2 === 0) return null;
   if (!(a > 0 && e >= 0 && e < 1 && radius > 0 && body.gm > 0) || ![a, j2, radius, body.gm].every(Number.isFinite)) return null;
   const cosI = -nSun / (1.5 * j2Factor(a, e, body.gm, j2, radius));
@@ -61,7 +61,7 @@ export function sunSynchronousInclination(a: number, e: number, body: CentralBod
 }
 
 /** True when a node rate (rad/s) matches the body's heliocentric mean motion within SUN_SYNCHRONOUS_TOLERANCE. */
-export function isSunSynchronous(raanRate: number, body: CentralBody): boolean {
-  const nSun = body.heliocentricMeanMotion;
-  return nSun !== undefined && Math.abs(raanRate - nSun) <= SUN_SYNCHRONOUS_TOLERANCE;
+export function isSunSynchronous(raanRateRadS: number, body: CentralBody): boolean {
+  const nSun = body.heliocentricMeanMotionRadS;
+  return nSun !== undefined && Math.abs(raanRateRadS - nSun) <= SUN_SYNCHRONOUS_TOLERANCE;
 }

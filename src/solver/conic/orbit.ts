@@ -29,9 +29,9 @@ export interface OrbitSolution {
   radius: number; // km, at epoch
   speed: number; // km/s, at epoch
   j2?: {
-    raanRate: number;
-    argPeriapsisRate: number;
-    meanAnomalyRate: number; // correction added to meanMotion
+    raanRateRadS: number;
+    argPeriapsisRateRadS: number;
+    meanAnomalyRateRadS: number; // correction added to meanMotion
     sunSynchronous: boolean;
     sunSynchronousInclination: number | null;
   };
@@ -104,7 +104,7 @@ export function solveOrbit(body: CentralBody, input: OrbitInput): Outcome<OrbitS
     const rates = j2SecularRates(a, e, el.inclination, mu, body.j2 as number, body.radius);
     solution.j2 = {
       ...rates,
-      sunSynchronous: isSunSynchronous(rates.raanRate, body),
+      sunSynchronous: isSunSynchronous(rates.raanRateRadS, body),
       sunSynchronousInclination: sunSynchronousInclination(a, e, body),
     };
   }

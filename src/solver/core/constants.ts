@@ -18,3 +18,6 @@ export const gmFromMass = (massKg: number): number => GRAVITATIONAL_CONSTANT_KM3
 
 /** Mass (kg) of a GM in km^3/s^2: GM / G, uncertain by G's 2.2e-5 even when GM is known far better. */
 export const massFromGm = (gmKm3PerS2: number): number => gmKm3PerS2 / GRAVITATIONAL_CONSTANT_KM3_PER_KG_S2;
+
+/** Speed of light in vacuum, km/s: exact by the definition of the metre (SI Brochure, 9th ed., 2019). */
+export const SPEED_OF_LIGHT_KM_S = 299_792.458;

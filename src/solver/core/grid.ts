@@ -20,13 +20,3 @@ export function regularGrid(startTT: number, stopTT: number, stepS: number): Flo
   return epochs;
 }
 
-/** Order of the epochs: 1 strictly increasing, -1 strictly decreasing, 0 otherwise. */
-export function monotonicity(epochs: Float64Array): 1 | -1 | 0 {
-  let up = true;
-  let down = true;
-  for (let i = 1; i < epochs.length; i++) {
-    if (!(epochs[i]! > epochs[i - 1]!)) up = false;
-    if (!(epochs[i]! < epochs[i - 1]!)) down = false;
-  }
-  return up ? 1 : down ? -1 : 0;
-}

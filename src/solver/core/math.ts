@@ -5,9 +5,6 @@ export const DEG = Math.PI / 180;
 export const RAD = 180 / Math.PI;
 export const SECONDS_PER_DAY = 86_400;
 
-export const degToRad = (deg: number): number => deg * DEG;
-export const radToDeg = (rad: number): number => rad * RAD;
-
 /** acos with its argument clamped to [-1, 1] against rounding just outside the domain. */
 export function acosClamped(x: number): number {
   return Math.acos(x > 1 ? 1 : x < -1 ? -1 : x);
@@ -38,5 +35,3 @@ export function relativeDifference(a: number, b: number): number {
   const scale = Math.max(Math.abs(a), Math.abs(b));
   return scale === 0 ? 0 : Math.abs(a - b) / scale;
 }
-
-export const isFiniteNumber = (x: number): boolean => Number.isFinite(x);

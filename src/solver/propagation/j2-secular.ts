@@ -54,16 +54,16 @@ export function j2SecularPropagator(body: CentralBody, r0: Vec3, v0: Vec3, epoch
   // Undefined angles (elements.ts conventions): on a circular orbit the anomaly is measured from the
   // node, so it takes the periapsis rate too; on an equatorial orbit the periapsis is measured from
   // the x axis, so it takes the node rate too.
-  const anomalyRate = n + rates.meanAnomalyRate + (el.argPeriapsisDefined ? 0 : rates.argPeriapsisRate);
-  const periapsisRate = el.argPeriapsisDefined ? rates.argPeriapsisRate + (el.raanDefined ? 0 : rates.raanRate) : 0;
-  const raanRate = el.raanDefined ? rates.raanRate : 0;
+  const anomalyRate = n + rates.meanAnomalyRateRadS + (el.argPeriapsisDefined ? 0 : rates.argPeriapsisRateRadS);
+  const periapsisRate = el.argPeriapsisDefined ? rates.argPeriapsisRateRadS + (el.raanDefined ? 0 : rates.raanRateRadS) : 0;
+  const raanRateRadS = el.raanDefined ? rates.raanRateRadS : 0;
   return success((tt: number) => {
     const dt = tt - epochTT;
     const state = elementsToState({
       semiMajorAxis: m.a,
       eccentricity: m.e,
       inclination: m.i,
-      raan: m.raan + raanRate * dt,
+      raan: m.raan + raanRateRadS * dt,
       argPeriapsis: m.argPeriapsis + periapsisRate * dt,
       meanAnomaly: m.meanAnomaly + anomalyRate * dt,
     }, mu);
@@ -106,8 +106,8 @@ function meanElements(body: CentralBody, r0: Vec3, v0: Vec3, a0: number, j2: num
     a += x.semiMajorAxis ?? a0;
     e += x.eccentricity;
     i += x.inclination;
-    raan += unwrap(x.raan - rough.raanRate * t, el0.raan);
-    lat += unwrap(x.argPeriapsis + x.meanAnomaly - (n0 + rough.meanAnomalyRate + rough.argPeriapsisRate) * t, lat0);
+    raan += unwrap(x.raan - rough.raanRateRadS * t, el0.raan);
+    lat += unwrap(x.argPeriapsis + x.meanAnomaly - (n0 + rough.meanAnomalyRateRadS + rough.argPeriapsisRateRadS) * t, lat0);
   }
   const count = MEAN_ELEMENT_SAMPLES;
   const meanLat = lat / count;

@@ -103,7 +103,7 @@ function perturbingTerms(input: NumericalInput, midTT: number): Term[] {
       case 'drag': {
         const radius = body.radius!;
         const flattening = body.flattening ?? 0;
-        const omega = body.rotationRate!;
+        const omega = body.rotationRateRadS!;
         const b = force.ballisticCoefficient;
         terms.push((_t, r, v) => dragAcceleration(r, v, k, omega, exponentialDensity(ellipsoidHeight(r, k, radius, flattening)), b));
         break;

@@ -17,7 +17,6 @@ export type Force =
   | { readonly kind: 'srp'; readonly areaToMass: number; readonly reflectivity: number };
 
 export type ForceKind = Force['kind'];
-export const FORCE_KINDS: readonly ForceKind[] = ['j2', 'drag', 'third-body', 'srp'];
 
 /**
  * Solar radiation pressure at 1 AU, N/m^2 (a solar flux of ~1367 W/m^2 over c); Montenbruck & Gill,
@@ -49,7 +48,7 @@ export function checkForces(body: CentralBody, forces: readonly Force[]): Failur
       case 'drag': {
         const bad = earthOnly('drag');
         if (bad) return bad;
-        if (!radiusOk || body.rotationRate === undefined || !Number.isFinite(body.rotationRate)) {
+        if (!radiusOk || body.rotationRateRadS === undefined || !Number.isFinite(body.rotationRateRadS)) {
           return failure('invalid-parameter', `force 'drag' needs the body's radius and rotation rate`);
         }
         if (!positiveFinite(force.ballisticCoefficient)) {
@@ -112,11 +111,11 @@ export function ellipsoidHeight(r: Vec3, k: Vec3, radius: number, flattening: nu
  * a = -1/2 (rho / B) |v_rel| v_rel (Vallado 4th ed. sec. 8.6.2; from memory).
  * rho in kg/m^3 and B = m / (Cd A) in kg/m^2, so rho/B is per metre: x 1000 for per km.
  */
-export function dragAcceleration(r: Vec3, v: Vec3, k: Vec3, rotationRate: number, densityKgM3: number, ballisticCoefficient: number): Vec3 {
-  // omega x r with omega = rotationRate k.
-  const wx = rotationRate * (k[1] * r[2] - k[2] * r[1]);
-  const wy = rotationRate * (k[2] * r[0] - k[0] * r[2]);
-  const wz = rotationRate * (k[0] * r[1] - k[1] * r[0]);
+export function dragAcceleration(r: Vec3, v: Vec3, k: Vec3, rotationRateRadS: number, densityKgM3: number, ballisticCoefficient: number): Vec3 {
+  // omega x r with omega = rotationRateRadS k.
+  const wx = rotationRateRadS * (k[1] * r[2] - k[2] * r[1]);
+  const wy = rotationRateRadS * (k[2] * r[0] - k[0] * r[2]);
+  const wz = rotationRateRadS * (k[0] * r[1] - k[1] * r[0]);
   const ux = v[0] - wx;
   const uy = v[1] - wy;
   const uz = v[2] - wz;

@@ -4,11 +4,10 @@
 import { isClosed, stateToElements } from '../conic/elements.js';
 import { TWO_PI } from '../core/math.js';
 import { failure, success, type Outcome } from '../core/result.js';
-import { MODELS, statesAt, type Model, type PropagationSpec } from './propagator.js';
+import { MODELS, statesAt, type PropagationSpec } from './propagator.js';
 import { conservationDrift, type ConservationDrift } from '../conic/universal.js';
 
 export const TRACK_MODELS = MODELS;
-export type TrackModel = Model;
 
 export interface TrackInput extends PropagationSpec {
   /** Sample epochs, TT seconds since J2000, any order. */

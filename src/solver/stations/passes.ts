@@ -30,13 +30,14 @@
 
 import { EARTH_ROTATION_RATE_RAD_S, gcrfToItrfTabled, orientationTable, type FrameOptions, type OrientationTable, type StateVectors } from '../earth/frames.js';
 import { createHorizonMask, horizonLimit, horizonLimitSlope, isFlatMask, type HorizonMask, type MaskPoint } from './horizon-mask.js';
-import { DEG } from '../core/math.js';
+import { BODIES } from '../bodies/bodies.js';
+import { DEG, SECONDS_PER_DAY } from '../core/math.js';
 import { failure, success, type Failure, type Outcome } from '../core/result.js';
 import { dopplerFactor, lookAngles, stationFromGeodetic, type LookAngles, type Station } from './topocentric.js';
 import { cross, dot, norm, type Vec3 } from '../core/vec3.js';
 
 /** Longest pass-search window, s (31 days). */
-export const MAX_PASS_WINDOW_S = 31 * 86_400;
+export const MAX_PASS_WINDOW_S = 31 * SECONDS_PER_DAY;
 /** Most stations in one search. */
 export const MAX_PASS_STATIONS = 100;
 /** Most pointing samples over all passes of one search. */
@@ -51,8 +52,6 @@ const PEAK_TOLERANCE_S = 1e-2;
 const FINE_MAX_STEP_S = 10;
 const FINE_MIN_STEP_S = 0.01;
 const FINE_ANGLE_STEP = 0.5 * DEG;
-/** Earth GM used only to size the coarse step, km^3/s^2 (NIMA TR8350.2 Table 3.1 / IERS 2010 value). */
-const EARTH_GM_KM3_S2 = 398_600.4418;
 /** Safety factor on the rate bounds of the prefilter (perturbed orbits drift from the osculating bound). */
 const RATE_MARGIN = 1.5;
 /** Added to the two-body bound on the radial speed, km/s. */
@@ -149,7 +148,7 @@ function unwrap<T>(x: T | Outcome<T>, what: string): T {
  * Coarse step (s) and the rate bounds behind it, from an osculating state: periapsis radius from
  * the specific angular momentum and eccentricity (Vallado 4th ed. Alg. 9, from memory).
  */
-export function coarseStepFor(r: Vec3, v: Vec3, gm = EARTH_GM_KM3_S2): RateBounds & { stepS: number } {
+export function coarseStepFor(r: Vec3, v: Vec3, gm = BODIES.earth.gm): RateBounds & { stepS: number } {
   const rMag = norm(r);
   const h = norm(cross(r, v));
   const energy = dot(v, v) / 2 - gm / rMag;
@@ -504,7 +503,7 @@ export function findPasses(search: PassSearch): Outcome<PassSearchResult> {
     return failure('invalid-parameter', 'the pass window needs finite start and stop epochs with stop after start');
   }
   if (stopTT - startTT > MAX_PASS_WINDOW_S) {
-    return failure('window-too-long', `the pass window lasts ${((stopTT - startTT) / 86_400).toFixed(3)} days; the limit is ${MAX_PASS_WINDOW_S / 86_400} days`);
+    return failure('window-too-long', `the pass window lasts ${((stopTT - startTT) / SECONDS_PER_DAY).toFixed(3)} days; the limit is ${MAX_PASS_WINDOW_S / SECONDS_PER_DAY} days`);
   }
   if (stations.length > MAX_PASS_STATIONS) {
     return failure('too-many-stations', `${stations.length} stations given; the limit is ${MAX_PASS_STATIONS}`);

@@ -5,11 +5,10 @@
 // both from memory. No atmospheric refraction, no light-time.
 
 import { geodeticToEarthFixed } from '../earth/geodetic.js';
+import { SPEED_OF_LIGHT_KM_S } from '../core/constants.js';
 import { TWO_PI } from '../core/math.js';
 import type { Vec3 } from '../core/vec3.js';
 
-/** Speed of light in vacuum, km/s (exact by the SI definition of the metre). */
-export const SPEED_OF_LIGHT_KM_S = 299_792.458;
 
 /** A station fixed to the Earth, with its ENU axes expressed in the Earth-fixed frame. */
 export interface Station {

@@ -4,13 +4,14 @@
 // UTC -> TAI by the leap-second table below; TT = TAI + 32.184 s (IAU 1991, Resolution A4).
 // UT1 = UTC + dut1, with dut1 = 0 unless the caller gives UT1-UTC.
 
+import { SECONDS_PER_DAY } from '../core/math.js';
 import { failure, success, type Outcome } from '../core/result.js';
 
 /** TT - TAI in seconds (IAU 1991 Resolution A4; IERS Conventions 2010, sec. 10.1). */
 export const TT_MINUS_TAI_S = 32.184;
 /** JD of J2000.0 (TT). */
 export const JD_J2000 = 2_451_545.0;
-const SECONDS_PER_DAY = 86_400;
+
 /** Days from 1970-01-01 to 2000-01-01. */
 const DAYS_1970_TO_2000 = 10_957;
 

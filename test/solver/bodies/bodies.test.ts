@@ -3,7 +3,11 @@ import * as Astronomy from 'astronomy-engine';
 import { BODIES, BODY_NAMES, isBodyName, type BodyName } from '../../../src/solver/bodies/bodies.js';
 import { expectClose, expectRelClose } from '../../helpers/approx.js';
 
-const NUMERIC_FIELDS = ['gm', 'radius', 'j2', 'rotationRate', 'flattening', 'heliocentricMeanMotion'] as const;
+const NUMERIC_FIELDS = ['gm', 'radius', 'j2', 'rotationRateRadS', 'flattening', 'heliocentricMeanMotionRadS'] as const;
+/** Sources are keyed by the public field names of GET /v1/bodies (units converted there, names without the unit). */
+const SOURCE_KEY: Record<(typeof NUMERIC_FIELDS)[number], string> = {
+  gm: 'gm', radius: 'radius', j2: 'j2', rotationRateRadS: 'rotationRate', flattening: 'flattening', heliocentricMeanMotionRadS: 'heliocentricMeanMotion',
+};
 const capital = (name: BodyName) => (name.charAt(0).toUpperCase() + name.slice(1)) as Astronomy.Body;
 
 describe('BODIES catalogue', () => {
@@ -18,10 +22,10 @@ describe('BODIES catalogue', () => {
     for (const name of BODY_NAMES) {
       const body = BODIES[name];
       const present = NUMERIC_FIELDS.filter((f) => body[f] !== undefined);
-      expect(Object.keys(body.sources).sort(), name).toEqual([...present].sort());
+      expect(Object.keys(body.sources).sort(), name).toEqual(present.map((f) => SOURCE_KEY[f]).sort());
       for (const f of present) {
         expect(Number.isFinite(body[f]), `${name}.${f}`).toBe(true);
-        expect((body.sources[f] ?? '').length, `${name}.${f} source`).toBeGreaterThan(10);
+        expect((body.sources[SOURCE_KEY[f]] ?? '').length, `${name}.${f} source`).toBeGreaterThan(10);
       }
       expect(body.gm).toBeGreaterThan(0);
       expect(body.radius ?? 0).toBeGreaterThan(0);
@@ -32,7 +36,7 @@ describe('BODIES catalogue', () => {
     const e = BODIES.earth;
     expect(e.gm).toBe(398_600.4418);
     expect(e.radius).toBe(6378.137);
-    expect(e.rotationRate).toBe(7.292_115e-5);
+    expect(e.rotationRateRadS).toBe(7.292_115e-5);
     expectClose(1 / (e.flattening ?? 0), 298.257_223_563, 1e-9, '1/f');
     expectRelClose(e.j2 ?? 0, 1.082_626_68e-3, 1e-8, 'J2');
   });
@@ -57,12 +61,12 @@ describe('BODIES catalogue', () => {
   it('heliocentric mean motions agree with the orbital periods of astronomy-engine (PlanetOrbitalPeriod); Earth uses the tropical year, 20.4 min shorter than the sidereal', () => {
     for (const name of ['mercury', 'venus', 'mars', 'jupiter', 'saturn', 'neptune'] as const) {
       const n = (2 * Math.PI) / (Astronomy.PlanetOrbitalPeriod(capital(name)) * 86_400);
-      expectRelClose(BODIES[name].heliocentricMeanMotion ?? 0, n, 1e-9, `${name} n`);
+      expectRelClose(BODIES[name].heliocentricMeanMotionRadS ?? 0, n, 1e-9, `${name} n`);
     }
-    const tropicalDays = (2 * Math.PI) / (BODIES.earth.heliocentricMeanMotion ?? 1) / 86_400;
+    const tropicalDays = (2 * Math.PI) / (BODIES.earth.heliocentricMeanMotionRadS ?? 1) / 86_400;
     // Sidereal minus tropical year is ~20.4 min (precession of the equinoxes; common practice, no source).
     expectClose((Astronomy.PlanetOrbitalPeriod(Astronomy.Body.Earth) - tropicalDays) * 1440, 20.4, 1.5, 'minutes');
-    for (const name of ['sun', 'moon', 'uranus'] as const) expect(BODIES[name].heliocentricMeanMotion).toBeUndefined();
+    for (const name of ['sun', 'moon', 'uranus'] as const) expect(BODIES[name].heliocentricMeanMotionRadS).toBeUndefined();
   });
 
   it('rotation rates match the sidereal rotation periods of the NASA planetary fact sheets (hours, from memory) to 0.1 %', () => {
@@ -71,7 +75,7 @@ describe('BODIES catalogue', () => {
       mars: 24.6229, jupiter: 9.925, saturn: 10.656, uranus: -17.24, neptune: 16.11,
     };
     for (const name of BODY_NAMES) {
-      const periodH = (2 * Math.PI) / (BODIES[name].rotationRate ?? Number.NaN) / 3600;
+      const periodH = (2 * Math.PI) / (BODIES[name].rotationRateRadS ?? Number.NaN) / 3600;
       expectRelClose(periodH, periodsH[name], 1e-3, `${name} rotation period h`);
     }
   });

@@ -140,7 +140,7 @@ describe('solveOrbit: state from elements, J2 block, failures', () => {
     expectVecClose(sol.velocity, state.v, 0, 'v');
     expect(sol.j2?.sunSynchronous).toBe(true);
     expectClose((sol.j2?.sunSynchronousInclination ?? 0) / DEG, 98.6, 0.05, 'sun-synchronous i (common practice, no source)');
-    expect(sol.j2?.raanRate).toBeGreaterThan(0);
+    expect(sol.j2?.raanRateRadS).toBeGreaterThan(0);
     expect(fromElements(POINT_MASS, elements).j2).toBeUndefined();
     expect(fromElements({ ...BODIES.earth, j2: undefined }, elements).j2).toBeUndefined();
   });

@@ -55,14 +55,14 @@ describe('statesAt with model j2-secular', () => {
     };
     const n = Math.sqrt(body.gm / a ** 3);
     const k = n * body.j2 * (R / (a * (1 - e * e))) ** 2;
-    const raanRate = -1.5 * k * Math.cos(51.43 * DEG) * DAY / DEG;
+    const raanRateRadS = -1.5 * k * Math.cos(51.43 * DEG) * DAY / DEG;
     const argpRate = 0.75 * k * (4 - 5 * Math.sin(51.43 * DEG) ** 2) * DAY / DEG;
-    expectClose(raanRate, -5.181, 0.002, 'printed node rate');
+    expectClose(raanRateRadS, -5.181, 0.002, 'printed node rate');
     expectClose(argpRate, 3.920, 0.002, 'printed periapsis rate');
     // The model runs on mean elements (averaged over a revolution), whose rates differ from the
     // osculating ones by O(J2): 0.05 deg over 3 days of 15 deg of node motion.
     const turn = (deg: number) => ((deg % 360) + 540) % 360 - 180;
-    expectClose(turn((at(1).raan - at(0).raan) / DEG), raanRate * days, 0.05, 'RAAN advance over 3 days');
+    expectClose(turn((at(1).raan - at(0).raan) / DEG), raanRateRadS * days, 0.05, 'RAAN advance over 3 days');
     expectClose(turn((at(1).argPeriapsis - at(0).argPeriapsis) / DEG), argpRate * days, 0.05, 'periapsis advance over 3 days');
   });
 

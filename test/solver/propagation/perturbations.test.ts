@@ -129,7 +129,7 @@ describe('dragAcceleration(r, v, k, omega, rho, B)', () => {
   it('equals F/m = 1/2 rho v_rel^2 Cd A / m worked in SI units, against v_rel (Vallado 4th ed. sec. 8.6.2; unit check)', () => {
     const r: Vec3 = [6778, 0, 0];
     const v: Vec3 = [0, 7.0, 3.0];
-    const omega = earth.rotationRate!;
+    const omega = earth.rotationRateRadS!;
     const rho = 3.725e-12; // kg/m^3
     const B = 80; // kg/m^2
     const vRelMs = sub(v, cross([0, 0, omega], r)).map((c) => c * 1000) as unknown as Vec3; // m/s
@@ -141,7 +141,7 @@ describe('dragAcceleration(r, v, k, omega, rho, B)', () => {
 
   it('vanishes for a body at rest in the rotating atmosphere, v = omega x r (co-rotation; common practice, no source)', () => {
     const r: Vec3 = [4000, 5000, 2000];
-    const omega = earth.rotationRate!;
+    const omega = earth.rotationRateRadS!;
     const a = dragAcceleration(r, cross([0, 0, omega], r), Z, omega, 1e-11, 50);
     expectVecClose(a, [0, 0, 0], 1e-25, 'a');
   });

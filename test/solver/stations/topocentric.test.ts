@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { AstroTime, Horizon, Observer, SiderealTime } from 'astronomy-engine';
-import { SPEED_OF_LIGHT_KM_S, dopplerFactor, dopplerShift, lookAngles, stationFromGeodetic } from '../../../src/solver/stations/topocentric.js';
+import { SPEED_OF_LIGHT_KM_S } from '../../../src/solver/core/constants.js';
+import { dopplerFactor, dopplerShift, lookAngles, stationFromGeodetic } from '../../../src/solver/stations/topocentric.js';
 import { add, combine, scale, type Vec3 } from '../../../src/solver/core/vec3.js';
 import { expectClose } from '../../helpers/approx.js';
 
