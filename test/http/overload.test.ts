@@ -45,7 +45,9 @@ async function untilActive(server: FastifyInstance, count: number, done: () => b
   }
 }
 
-describe('worker pool under load', () => {
+// Seconds of real work per test on a quiet machine; the generous timeout only guards against a hang
+// (these tests order events, they never time anything).
+describe('worker pool under load', { timeout: 180_000 }, () => {
   it('GET /healthz answers while a 100-station, 31-day pass search runs on a worker thread', async () => {
     app = await testApp({ config: { WORKER_THREADS: 1 } });
     const order: string[] = [];

@@ -14,6 +14,7 @@
 import { AstroTime, Body, GeoMoonState, HelioState } from 'astronomy-engine';
 import { SECONDS_PER_DAY } from '../core/math.js';
 import type { Vec3 } from '../core/vec3.js';
+import { cubicHermiteWeights } from '../numerics/hermite.js';
 
 /** Astronomical unit, km: IAU 2012 Resolution B2, 149 597 870 700 m exactly. */
 export const AU_KM = 149_597_870.7;
@@ -49,8 +50,7 @@ export type PositionAt = (tt: number) => Vec3;
 /**
  * A cache of one body's geocentric positions: nodes at originTT + k spacing, computed the first time
  * a neighbouring epoch is asked for and kept; between nodes the cubic Hermite polynomial through
- * the two node positions and velocities (Burden & Faires, Numerical Analysis, 9th ed., sec. 3.4;
- * from memory). Each call to ephemerisCache makes a fresh cache (no module state).
+ * the two node positions and velocities (numerics/hermite.ts). Each call to ephemerisCache makes a fresh cache (no module state).
  */
 export function ephemerisCache(body: ThirdBody, originTT: number, spacing = EPHEMERIS_NODE_SPACING_S): PositionAt {
   if (!(Number.isFinite(originTT) && spacing > 0 && Number.isFinite(spacing))) {
@@ -65,23 +65,18 @@ export function ephemerisCache(body: ThirdBody, originTT: number, spacing = EPHE
     }
     return n;
   };
+  const w = new Float64Array(8);
   return (tt: number): Vec3 => {
     const x = (tt - originTT) / spacing;
     const k = Math.floor(x);
     const s = x - k;
     const a = node(k);
     const b = node(k + 1);
-    // Cubic Hermite basis on [0, 1]; velocities scaled by the interval length.
-    const s2 = s * s;
-    const s3 = s2 * s;
-    const h00 = 2 * s3 - 3 * s2 + 1;
-    const h10 = (s3 - 2 * s2 + s) * spacing;
-    const h01 = 3 * s2 - 2 * s3;
-    const h11 = (s3 - s2) * spacing;
+    cubicHermiteWeights(s, spacing, w);
     return [
-      h00 * a.r[0] + h10 * a.v[0] + h01 * b.r[0] + h11 * b.v[0],
-      h00 * a.r[1] + h10 * a.v[1] + h01 * b.r[1] + h11 * b.v[1],
-      h00 * a.r[2] + h10 * a.v[2] + h01 * b.r[2] + h11 * b.v[2],
+      w[0]! * a.r[0] + w[1]! * a.v[0] + w[2]! * b.r[0] + w[3]! * b.v[0],
+      w[0]! * a.r[1] + w[1]! * a.v[1] + w[2]! * b.r[1] + w[3]! * b.v[1],
+      w[0]! * a.r[2] + w[1]! * a.v[2] + w[2]! * b.r[2] + w[3]! * b.v[2],
     ];
   };
 }

@@ -4,11 +4,13 @@
 
 import { TWO_PI, wrapPi } from '../core/math.js';
 import { failure, success, type Outcome } from '../core/result.js';
+import { safeguardedHalley } from '../numerics/halley.js';
 
 /** Iteration cap of the safeguarded solvers; a bisection fallback makes every step shrink the bracket. */
 export const KEPLER_MAX_ITERATIONS = 200;
 /** Relative step size at which an iteration counts as converged (a few units in the last place). */
 const STEP_TOLERANCE = 1e-15;
+const HALLEY_LIMITS = { maxIterations: KEPLER_MAX_ITERATIONS, stepTolerance: STEP_TOLERANCE };
 
 /** Odd series x^3/3! - x^5/5! + ... = x - sin x, or sinh x - x with all signs +, for |x| < 1; no digits cancel. */
 function cubicTail(x: number, hyperbolic: boolean): number {
@@ -61,7 +63,7 @@ export function solveKeplerElliptic(M: number, e: number): Outcome<number> {
   const cubic = cubicRoot((6 * (1 - e)) / e, (6 * m) / e);
   const danby = m + 0.85 * e; // Danby's starter M + 0.85 e (Danby 2nd ed. ch. 6, from memory), for M far from 0
   const start = Math.abs(residual(cubic)) < Math.abs(residual(Math.min(danby, hi))) ? cubic : Math.min(danby, hi);
-  const solved = safeguardedHalley(residual, (E) => 1 - e * Math.cos(E), (E) => e * Math.sin(E), start, lo, hi);
+  const solved = safeguardedHalley(residual, (E) => 1 - e * Math.cos(E), (E) => e * Math.sin(E), start, lo, hi, HALLEY_LIMITS);
   if (solved === null) {
     return failure('no-convergence', `Kepler's equation did not converge in ${KEPLER_MAX_ITERATIONS} iterations (M = ${M}, e = ${e})`);
   }
@@ -105,7 +107,7 @@ export function solveKeplerHyperbolic(M: number, e: number): Outcome<number> {
   const fixedPoint = Math.asinh((m + lo) / e);
   const cubic = Math.min(cubicRoot((6 * (e - 1)) / e, (6 * m) / e), hi);
   const start = Math.abs(residual(cubic)) < Math.abs(residual(fixedPoint)) ? cubic : fixedPoint;
-  const solved = safeguardedHalley(residual, (H) => e * Math.cosh(H) - 1, (H) => e * Math.sinh(H), start, lo, hi);
+  const solved = safeguardedHalley(residual, (H) => e * Math.cosh(H) - 1, (H) => e * Math.sinh(H), start, lo, hi, HALLEY_LIMITS);
   if (solved === null) {
     return failure('no-convergence', `the hyperbolic Kepler equation did not converge in ${KEPLER_MAX_ITERATIONS} iterations (M = ${M}, e = ${e})`);
   }
@@ -147,32 +149,3 @@ function cubicRoot(p: number, q: number): number {
   return Number.isFinite(s3) ? 2 * s * Math.sinh(Math.asinh(q / (2 * s3)) / 3) : q / p; // p huge: x = q / p
 }
 
-/**
- * Root of an increasing f on [lo, hi] (f(lo) <= 0 <= f(hi)) by Halley's method (Danby 2nd ed.
- * ch. 6, from memory), falling back to bisection whenever a step leaves the bracket. Null when the cap is hit.
- */
-function safeguardedHalley(
-  f: (x: number) => number,
-  df: (x: number) => number,
-  d2f: (x: number) => number,
-  start: number,
-  lo: number,
-  hi: number,
-): number | null {
-  let x = Math.min(Math.max(start, lo), hi);
-  for (let k = 0; k < KEPLER_MAX_ITERATIONS; k++) {
-    const fx = f(x);
-    if (fx === 0) return x;
-    if (fx < 0) lo = x;
-    else hi = x;
-    const d1 = df(x);
-    const step = fx / (d1 - (0.5 * fx * d2f(x)) / d1);
-    const halley = x - step;
-    // A step below the resolution of x: converged (it may touch the bracket end by rounding).
-    if (Math.abs(step) <= STEP_TOLERANCE * Math.abs(halley)) return halley;
-    const next = halley > lo && halley < hi ? halley : 0.5 * (lo + hi);
-    if (next === lo || next === hi || hi - lo <= STEP_TOLERANCE * Math.abs(next)) return next;
-    x = next;
-  }
-  return null;
-}

@@ -10,6 +10,7 @@ import type { Force } from './perturbations.js';
 import { failure, success, type Outcome } from '../core/result.js';
 import { propagate, propagateGrid } from '../conic/universal.js';
 import type { Vec3 } from '../core/vec3.js';
+import { cubicHermiteWeights } from '../numerics/hermite.js';
 
 export const MODELS = ['two-body', 'j2-secular', 'numerical'] as const;
 export type Model = (typeof MODELS)[number];
@@ -84,18 +85,10 @@ export function stateFunction(spec: PropagationSpec, startTT: number, stopTT: nu
   });
 }
 
-/** Cubic Hermite interpolation between nodes k and k+1 at fraction u of a step h (positions from positions and velocities; velocities by differentiation); Burden & Faires, Numerical Analysis, 9th ed., sec. 3.4 (from memory). */
+/** Cubic Hermite interpolation of position and velocity between nodes k and k+1 at fraction u of a step h. */
 function hermite(s: Float64Array, k: number, u: number, h: number): { r: Vec3; v: Vec3 } {
-  const u2 = u * u;
-  const u3 = u2 * u;
-  const h00 = 2 * u3 - 3 * u2 + 1;
-  const h10 = u3 - 2 * u2 + u;
-  const h01 = -2 * u3 + 3 * u2;
-  const h11 = u3 - u2;
-  const d00 = (6 * u2 - 6 * u) / h;
-  const d10 = 3 * u2 - 4 * u + 1;
-  const d01 = (-6 * u2 + 6 * u) / h;
-  const d11 = 3 * u2 - 2 * u;
+  const w = new Float64Array(8);
+  cubicHermiteWeights(u, h, w);
   const a = 6 * k;
   const b = 6 * (k + 1);
   const r = [0, 0, 0];
@@ -105,8 +98,8 @@ function hermite(s: Float64Array, k: number, u: number, h: number): { r: Vec3; v
     const m0 = s[a + 3 + c]!;
     const p1 = s[b + c]!;
     const m1 = s[b + 3 + c]!;
-    r[c] = h00 * p0 + h10 * h * m0 + h01 * p1 + h11 * h * m1;
-    v[c] = d00 * p0 + d10 * m0 + d01 * p1 + d11 * m1;
+    r[c] = w[0]! * p0 + w[1]! * m0 + w[2]! * p1 + w[3]! * m1;
+    v[c] = w[4]! * p0 + w[5]! * m0 + w[6]! * p1 + w[7]! * m1;
   }
   return { r: r as unknown as Vec3, v: v as unknown as Vec3 };
 }

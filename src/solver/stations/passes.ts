@@ -31,6 +31,8 @@
 import { EARTH_ROTATION_RATE_RAD_S, gcrfToItrfTabled, orientationTable, type FrameOptions, type OrientationTable, type StateVectors } from '../earth/frames.js';
 import { createHorizonMask, horizonLimit, horizonLimitSlope, isFlatMask, type HorizonMask, type MaskPoint } from './horizon-mask.js';
 import { BODIES } from '../bodies/bodies.js';
+import { goldenSectionMax } from '../numerics/golden-section.js';
+import { illinoisRoot } from '../numerics/illinois.js';
 import { DEG, SECONDS_PER_DAY } from '../core/math.js';
 import { failure, success, type Failure, type Outcome } from '../core/result.js';
 import { dopplerFactor, lookAngles, stationFromGeodetic, type LookAngles, type Station } from './topocentric.js';
@@ -253,60 +255,7 @@ function coarseTrack(ctx: Context, batch: StateBatch | undefined, stepS: number)
 const trackR = (t: Track, k: number): Vec3 => [t.states[6 * k]!, t.states[6 * k + 1]!, t.states[6 * k + 2]!];
 const trackV = (t: Track, k: number): Vec3 => [t.states[6 * k + 3]!, t.states[6 * k + 4]!, t.states[6 * k + 5]!];
 
-/** Bracketed root of fn on [a, b] (fa, fb of opposite sign); Illinois regula falsi with bisection safeguard. */
-function bracketedRoot(fn: (t: number) => number, a: number, b: number, fa: number, fb: number): number {
-  let side = 0;
-  for (let i = 0; i < 100 && Math.abs(b - a) > ROOT_TOLERANCE_S; i++) {
-    const width = Math.abs(b - a);
-    let x = (a * fb - b * fa) / (fb - fa);
-    if (!Number.isFinite(x) || side === 2) x = (a + b) / 2;
-    // Keep the trial at least tol/2 inside the bracket so that it collapses once the root is close.
-    const lo = Math.min(a, b) + ROOT_TOLERANCE_S / 2;
-    const hi = Math.max(a, b) - ROOT_TOLERANCE_S / 2;
-    x = Math.min(Math.max(x, lo), hi);
-    const fx = fn(x);
-    if (fx > 0 === fb > 0) {
-      b = x;
-      fb = fx;
-      if (side === -1) fa /= 2; // Illinois: halve the stale end
-      side = -1;
-    } else {
-      a = x;
-      fa = fx;
-      if (side === 1) fb /= 2;
-      side = 1;
-    }
-    if (Math.abs(b - a) > 0.75 * width) side = 2; // slow progress: bisect next
-  }
-  return (a + b) / 2;
-}
 
-const GOLDEN = (Math.sqrt(5) - 1) / 2;
-
-/** Maximum of fn on [a, b] by golden-section search (Press et al., Numerical Recipes 3rd ed. sec. 10.2). */
-function goldenMax(fn: (t: number) => number, a: number, b: number): { t: number; value: number } {
-  let x1 = b - GOLDEN * (b - a);
-  let x2 = a + GOLDEN * (b - a);
-  let f1 = fn(x1);
-  let f2 = fn(x2);
-  while (b - a > PEAK_TOLERANCE_S) {
-    if (f1 < f2) {
-      a = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = a + GOLDEN * (b - a);
-      f2 = fn(x2);
-    } else {
-      b = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = b - GOLDEN * (b - a);
-      f1 = fn(x1);
-    }
-  }
-  // Interior points only: callers compare with the ends themselves where an edge can win.
-  return f1 >= f2 ? { t: x1, value: f1 } : { t: x2, value: f2 };
-}
 
 /** An interval where some function of the look angles is positive. */
 interface Interval {
@@ -343,16 +292,16 @@ function positiveIntervals(
     const fb = margin(lb);
     if (k === 0 && fa > 0) open = { start: ta, startsBefore: edges.startsBefore };
     if (fa > 0 && fb <= 0) {
-      const stop = bracketedRoot(fn, ta, tb, fa, fb);
+      const stop = illinoisRoot(fn, ta, tb, fa, fb, ROOT_TOLERANCE_S);
       out.push({ start: open?.start ?? ta, stop, startsBefore: open?.startsBefore ?? false, endsAfter: false });
       open = undefined;
     } else if (fa <= 0 && fb > 0) {
-      open = { start: bracketedRoot(fn, ta, tb, fa, fb), startsBefore: false };
+      open = { start: illinoisRoot(fn, ta, tb, fa, fb, ROOT_TOLERANCE_S), startsBefore: false };
     } else if (fa <= 0 && fb <= 0 && marginRate(la) > 0 && marginRate(lb) < 0) {
-      const peak = goldenMax(fn, ta, tb); // a maximum between two samples: a grazing pass?
+      const peak = goldenSectionMax(fn, ta, tb, PEAK_TOLERANCE_S); // a maximum between two samples: a grazing pass?
       if (peak.value > 0) {
-        const start = bracketedRoot(fn, ta, peak.t, fa, peak.value);
-        out.push({ start, stop: bracketedRoot(fn, peak.t, tb, peak.value, fb), startsBefore: false, endsAfter: false });
+        const start = illinoisRoot(fn, ta, peak.t, fa, peak.value, ROOT_TOLERANCE_S);
+        out.push({ start, stop: illinoisRoot(fn, peak.t, tb, peak.value, fb, ROOT_TOLERANCE_S), startsBefore: false, endsAfter: false });
       }
     }
   }
@@ -462,7 +411,7 @@ function describe(ctx: Context, st: Prepared, track: Track, iv: Interval, pointi
   const aos = lookAt(iv.start);
   const los = lookAt(iv.stop);
   const [a, b] = peakBracket(st, track, iv.start, iv.stop);
-  let tca = b - a > PEAK_TOLERANCE_S ? goldenMax((t) => lookAt(t).elevation, a, b).t : a;
+  let tca = b - a > PEAK_TOLERANCE_S ? goldenSectionMax((t) => lookAt(t).elevation, a, b, PEAK_TOLERANCE_S).t : a;
   let top = lookAt(tca);
   for (const [t, l] of [[iv.start, aos], [iv.stop, los]] as const) {
     if (l.elevation > top.elevation) {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { analyseCentralForce, brentRoot, fromInitial, type CentralForceAnalysis } from '../../../src/solver/central/radial.js';
+import { analyseCentralForce, fromInitial, type CentralForceAnalysis } from '../../../src/solver/central/radial.js';
 import type { PotentialTerm } from '../../../src/solver/central/potential.js';
 import type { Outcome } from '../../../src/solver/core/result.js';
 import { expectClose, expectRelClose } from '../../helpers/approx.js';
@@ -290,13 +290,5 @@ describe('effective-potential samples', () => {
     expect(v.effectivePotential.at(-1)!.r).toBe(100);
     expect(v.sampleSpacing).toBe('log');
     expectRelClose(v.effectivePotential[1]!.r / v.effectivePotential[0]!.r, 10 ** (4 / 49), 1e-12, 'log step');
-  });
-});
-
-describe('brentRoot', () => {
-  it('finds cos x = 0 at pi/2 to a few ulps, and a sign jump in a step function', () => {
-    expectClose(brentRoot(Math.cos, 1, 2), Math.PI / 2, 4e-16, 'pi/2');
-    const jump = brentRoot((x) => (x < 0.3 ? -1 : 1), 0, 1);
-    expectClose(jump, 0.3, 1e-15, 'jump');
   });
 });
