@@ -63,7 +63,10 @@ describe('POST /v1/orbit', () => {
       state: { velocity: [-3.457, 6.618, 2.533], position: [-6045, -3490, 2500.0], frame: 'gcrf', epoch: '2026-12-01T00:00:00Z' },
       centralBody: { radius: 6378, gm: 398600, name: 'earth-curtis' },
     };
-    const second = await postJson(app, '/v1/orbit', reordered);
+    // Sent as raw text: JSON.stringify would print 2500.0 as 2500 and the test could not fail.
+    const rawText = JSON.stringify(reordered).replace('2500]', '2500.0]').replace('398600,', '398600.000,');
+    expect(rawText).toContain('2500.0]');
+    const second = await app.inject({ method: 'POST', url: '/v1/orbit', payload: rawText, headers: { 'content-type': 'application/json' } });
     expect(second.statusCode).toBe(200);
     expect(second.rawPayload.equals(first.rawPayload)).toBe(true);
     expect(second.headers['x-cache']).toBe('hit');
