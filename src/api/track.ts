@@ -60,7 +60,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
       centerName: body.name.toUpperCase(),
       comments: [
         `model ${req.model}, GM ${body.gm} km**3/s**2; scenario ${hash}`,
-        ...(req.frame === 'itrf' ? [`Earth-fixed: IAU precession-nutation and Earth rotation, polar motion neglected, UT1-UTC ${req.ut1MinusUtc} s`] : []),
+        ...(req.frame === 'itrf' ? [`Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected; UT1-UTC ${req.ut1MinusUtc} s`] : []),
         'CREATION_DATE is the epoch of the initial state, so that one scenario always gives the same bytes',
       ],
     },

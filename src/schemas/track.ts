@@ -22,7 +22,7 @@ export const TrackRequest = z
     grid: TimeGrid,
     ...modelFields,
     frame: z.enum(TRACK_FRAMES).default('gcrf').describe(
-      'Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU precession-nutation and Earth rotation from astronomy-engine, polar motion neglected: ~10 m at LEO); ' +
+      'Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected: ~10 m at LEO); ' +
       'geodetic (WGS-84 latitude and longitude in deg, height in km). itrf and geodetic need centralBody earth'),
     ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (IERS Bulletin A); 0 when not given, which costs up to ~0.4 km along-track in Earth-fixed frames'),
     format: z.enum(TRACK_FORMATS.map(([f]) => f) as [TrackFormat, ...TrackFormat[]]).optional()
