@@ -2,6 +2,7 @@
 // Prints a table and the machine it ran on. Not a test: figures vary with the machine's load.
 import { cpus, totalmem } from 'node:os';
 import type { BenchResult } from './types.js';
+import { benchFrames } from './frames.js';
 import { benchKepler } from './kepler.js';
 import { benchPasses } from './passes.js';
 import { benchTrackHttp } from './track-http.js';
@@ -12,6 +13,7 @@ const suites: Array<[string, () => Promise<BenchResult[]>]> = [
   ['track-kernel', benchTrackKernel],
   ['track-http', benchTrackHttp],
   ['passes', benchPasses],
+  ['frames', benchFrames],
 ];
 
 const only = process.argv[2];

@@ -64,11 +64,31 @@ export const tioLocator = (t: number): number => -47e-6 * ARCSEC * t;
 /** TIRS (PEF) -> ITRF: W^T = R1(-yp) R2(-xp) R3(s'); IERS Conventions 2010 eq. 5.3. */
 export const polarMotionMatrix = (xp: number, yp: number, sPrime = 0): Mat3 => multiply(multiply(rot1(-yp), rot2(-xp)), rot3(sPrime));
 
-/** UT1 - TT (s) at a TT epoch under the options (see the header for which value wins). */
-export function ut1MinusTT(tt: number, opts: FrameOptions = {}): number {
-  if (opts.dut1 !== undefined || !opts.eop) return (opts.dut1 ?? 0) - taiMinusUtc(utcFromTt(tt).utcDay) - TT_MINUS_TAI_S;
-  return eopAt(opts.eop, tt).ut1MinusTai - TT_MINUS_TAI_S;
+/** The Earth orientation in force at one epoch: explicit options first, then the table, else none (see the header). */
+interface EarthOrientation {
+  /** UT1 - TT, s. */
+  readonly ut1MinusTT: number;
+  readonly poleOffsets: { readonly dX: number; readonly dY: number } | undefined;
+  /** TIRS -> ITRF, or undefined when polar motion is neglected. */
+  readonly w: Mat3 | undefined;
 }
+
+function earthOrientationAt(tt: number, opts: FrameOptions): EarthOrientation {
+  const e = opts.eop ? eopAt(opts.eop, tt) : undefined;
+  const ut1 = opts.dut1 !== undefined || !e
+    ? (opts.dut1 ?? 0) - taiMinusUtc(utcFromTt(tt).utcDay) - TT_MINUS_TAI_S
+    : e.ut1MinusTai - TT_MINUS_TAI_S;
+  const covered = e?.covered === true;
+  const pm = opts.polarMotion ?? (covered ? { xp: e.xp, yp: e.yp } : undefined);
+  return {
+    ut1MinusTT: ut1,
+    poleOffsets: opts.poleOffsets ?? (covered ? { dX: e.dX, dY: e.dY } : undefined),
+    w: pm ? polarMotionMatrix(pm.xp, pm.yp, tioLocator(julianCenturiesTT(tt))) : undefined,
+  };
+}
+
+/** UT1 - TT (s) at a TT epoch under the options (see the header for which value wins). */
+export const ut1MinusTT = (tt: number, opts: FrameOptions = {}): number => earthOrientationAt(tt, opts).ut1MinusTT;
 
 /** Days of UT1 since J2000.0 (JD_UT1 - 2451545.0) at a TT epoch. */
 export const ut1Days = (tt: number, opts: FrameOptions = {}): number => (tt + ut1MinusTT(tt, opts)) / SECONDS_PER_DAY;
@@ -86,14 +106,6 @@ export function greenwichApparentSiderealTime(tt: number, dut1 = 0): number {
   return wrapTwoPi(greenwichMeanSiderealTime(tt, dut1) + equationOfEquinoxes(n.dpsi, fukushimaWilliams(t).epsA, a.om));
 }
 
-/** Celestial pole offsets in force at tt (explicit, from the table, or none). */
-function poleOffsetsAt(tt: number, opts: FrameOptions): { dX: number; dY: number } | undefined {
-  if (opts.poleOffsets) return opts.poleOffsets;
-  if (!opts.eop) return undefined;
-  const e = eopAt(opts.eop, tt);
-  return e.covered ? { dX: e.dX, dY: e.dY } : undefined;
-}
-
 /**
  * Q = R3(GAST - ERA) N P B: GCRF -> true equator of date with its origin moved from the equinox to
  * the CIO (GAST - ERA is minus the equation of the origins; IERS Conventions 2010 sec. 5.5), i.e.
@@ -101,25 +113,19 @@ function poleOffsetsAt(tt: number, opts: FrameOptions): { dX: number; dY: number
  * is the full GCRF -> TIRS rotation. Rows: the intermediate axes in GCRF, the third is the pole.
  */
 export function celestialToIntermediate(tt: number, opts: FrameOptions = {}): Mat3 {
+  return intermediateWith(tt, opts, opts.poleOffsets ?? (opts.eop ? earthOrientationAt(tt, opts).poleOffsets : undefined));
+}
+
+function intermediateWith(tt: number, opts: FrameOptions, d: { readonly dX: number; readonly dY: number } | undefined): Mat3 {
   const t = julianCenturiesTT(tt);
   const a = delaunayArguments(t);
   const n = nutationFor2006(t, a);
   const fw = fukushimaWilliams(t);
   let npb = biasPrecessionNutation(fw, n.dpsi, n.deps);
   if (opts.frameBias === false) npb = multiply(npb, transpose(FRAME_BIAS));
-  const d = poleOffsetsAt(tt, opts);
   // The pole moves by (dX, dY) in GCRS, the CIO stays (first order; IERS Conventions 2010 eq. 5.26).
   if (d) npb = multiply(npb, multiply(rot2(d.dX), rot1(-d.dY)));
   return multiply(rot3(wrapPi(gmstMinusEra(t) + equationOfEquinoxes(n.dpsi, fw.epsA, a.om))), npb);
-}
-
-/** Polar-motion matrix at tt (explicit, from the table, or none when both are absent). */
-function polarAt(tt: number, opts: FrameOptions): Mat3 | undefined {
-  const sPrime = tioLocator(julianCenturiesTT(tt));
-  if (opts.polarMotion) return polarMotionMatrix(opts.polarMotion.xp, opts.polarMotion.yp, sPrime);
-  if (!opts.eop) return undefined;
-  const e = eopAt(opts.eop, tt);
-  return e.covered ? polarMotionMatrix(e.xp, e.yp, sPrime) : undefined;
 }
 
 /** Everything needed to rotate at one instant: Q, ERA and the optional polar-motion matrix. */
@@ -161,7 +167,8 @@ function inverse(o: Orientation, r: Vec3, v: Vec3): StateVectors {
 }
 
 function orientationAt(tt: number, opts: FrameOptions): Orientation {
-  return { q: celestialToIntermediate(tt, opts), era: earthRotationAngle(ut1Days(tt, opts)), w: polarAt(tt, opts) };
+  const e = earthOrientationAt(tt, opts);
+  return { q: intermediateWith(tt, opts, e.poleOffsets), era: earthRotationAngle((tt + e.ut1MinusTT) / SECONDS_PER_DAY), w: e.w };
 }
 
 /** GCRF state (km, km/s) at TT epoch `tt` -> ITRF state (velocity relative to the rotating Earth). */
@@ -207,18 +214,19 @@ export function orientationTable(fromTT: number, stopTT: number, opts: FrameOpti
   }
   const count = Math.max(2, Math.ceil((stopTT - startTT) / spacing) + 1);
   const nodes: Mat3[] = [];
-  const polar: Mat3[] = [];
+  const polar: Array<Mat3 | undefined> = [];
   const ut1 = new Float64Array(count);
   for (let i = 0; i < count; i++) {
     const t = startTT + i * spacing;
-    nodes.push(celestialToIntermediate(t, opts));
-    const w = polarAt(t, opts);
-    if (w) polar.push(w);
-    ut1[i] = ut1MinusTT(t, opts);
+    const e = earthOrientationAt(t, opts);
+    nodes.push(intermediateWith(t, opts, e.poleOffsets));
+    polar.push(e.w);
+    ut1[i] = e.ut1MinusTT;
   }
-  // A table whose epochs leave the EOP coverage part way has polar motion at some nodes only: use
-  // the identity at the others, which is the documented fallback (zero) there.
-  const full = polar.length === count || polar.length === 0 ? polar : Array.from({ length: count }, (_, i) => polarAt(startTT + i * spacing, opts) ?? polarMotionMatrix(0, 0));
+  // A table whose epochs leave the EOP coverage part way has polar motion at some nodes only:
+  // the others take xp = yp = 0, the documented fallback there.
+  const some = polar.some((w) => w !== undefined);
+  const full = some ? polar.map((w, i) => w ?? polarMotionMatrix(0, 0, tioLocator(julianCenturiesTT(startTT + i * spacing)))) : [];
   return { startTT, spacing, nodes, polar: full, ut1MinusTT: ut1, options: opts };
 }
 
