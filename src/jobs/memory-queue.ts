@@ -88,6 +88,10 @@ export class MemoryJobQueue implements JobQueue {
     for (const line of job.lines) yield line;
   }
 
+  async ping(): Promise<void> {
+    if (this.#abort.signal.aborted) throw new QueueUnavailableError('the in-process queue is stopping', RETRY_AFTER_S);
+  }
+
   async stop(): Promise<void> {
     this.#abort.abort();
     await this.#running;

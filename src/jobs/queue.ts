@@ -48,6 +48,8 @@ export interface JobQueue {
   get(id: string): Promise<JobRecord | undefined>;
   /** The lines of a job, in input order (call once its status is done). */
   results(id: string): AsyncIterable<Buffer>;
+  /** Readiness: resolves when the queue can take and look up jobs now; QueueUnavailableError (a short reason) when not. */
+  ping(): Promise<void>;
   /** Stop running jobs in this process (work in hand is stopped or handed back); before the app closes. */
   stop(): Promise<void>;
   /** Release connections. */

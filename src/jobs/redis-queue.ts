@@ -140,7 +140,8 @@ export interface RedisQueueOptions {
 }
 
 const unavailable = (error: unknown) =>
-  new QueueUnavailableError(`the job queue's Redis does not answer (${error instanceof Error ? error.message : String(error)}); retry after ${QUEUE_RETRY_AFTER_S} s`, QUEUE_RETRY_AFTER_S, { cause: error });
+  // The client's own message stays in `cause` (logged), never in the answer.
+  new QueueUnavailableError(`the job queue's store does not answer; retry after ${QUEUE_RETRY_AFTER_S} s`, QUEUE_RETRY_AFTER_S, { cause: error });
 
 /** The API side: store and queue jobs, read their status and lines. Never runs a job. */
 export class RedisJobQueue implements JobQueue {
@@ -198,6 +199,14 @@ export class RedisJobQueue implements JobQueue {
       const page = await this.#redis.lrangeBuffer(key, start, start + pageSize - 1);
       yield* page;
       if (page.length < pageSize) return;
+    }
+  }
+
+  async ping(): Promise<void> {
+    try {
+      await this.#redis.ping();
+    } catch (error) {
+      throw unavailable(error);
     }
   }
 

@@ -105,6 +105,8 @@ describe('MemoryJobQueue', () => {
     expect(mine.owner).toBe('key-a');
     expect((await queue.get(mine.id))?.owner).toBe('key-a');
     expect((await queue.get(open.id))?.owner).toBeNull();
+    await expect(queue.ping()).resolves.toBeUndefined();
     await queue.close();
+    await expect(queue.ping()).rejects.toBeInstanceOf(QueueUnavailableError);
   });
 });

@@ -198,6 +198,7 @@ describe.skipIf(!available)('Redis job queue (real Redis at 127.0.0.1:6379)', ()
     const mine = await queue.enqueue({ items: ITEMS.slice(0, 1) as never, owner: 'key-a' });
     const open = await queue.enqueue({ items: ITEMS.slice(0, 1) as never });
     expect(mine.owner).toBe('key-a');
+    await queue.ping();
     expect((await queue.get(mine.id))?.owner).toBe('key-a');
     expect((await queue.get(open.id))?.owner).toBeNull();
     const w = worker(appRunner(solver));
@@ -241,6 +242,8 @@ describe('Redis job queue that cannot be reached', () => {
     const get = await app.inject({ url: `/v1/jobs/${randomUUID()}` });
     expect(get.statusCode).toBe(503);
     expect(get.headers['retry-after']).toBe('5');
+    // The Redis client's own words (ECONNREFUSED, stack overflows ...) stay in the logs.
+    expect(Problem.parse(get.json()).detail).toBe('the job queue\'s store does not answer; retry after 5 s');
     // The synchronous batch does not need the queue.
     expect((await postJson(app, '/v1/batch', { items: [{ kind: 'orbit', request: GOOD.orbit }] })).statusCode).toBe(200);
     await app.close();
