@@ -1,11 +1,12 @@
 // buildApp(options) assembles the service and never listens: server.ts listens, tests inject.
-import Fastify, { type FastifyInstance } from 'fastify';
+import Fastify, { type FastifyInstance, type FastifyRequest } from 'fastify';
 import { serializerCompiler, validatorCompiler, type ZodTypeProvider } from 'fastify-type-provider-zod';
 import { defaultConfig, type Config } from './config.js';
 import { MemoryCache } from './cache/memory.js';
 import type { AnswerCache } from './cache/types.js';
 import { RedisCache, TieredCache } from './cache/redis.js';
-import problems from './plugins/problems.js';
+import problems, { clientErrorHandler, clip, frameworkErrors, MAX_PATH_SEGMENT_CHARS } from './plugins/problems.js';
+import body, { requestIds } from './plugins/body.js';
 import openapi from './plugins/openapi.js';
 import answers from './plugins/answers.js';
 import metrics from './plugins/metrics.js';
@@ -35,14 +36,27 @@ function answerCache(config: Config): AnswerCache {
   return config.REDIS_URL ? new TieredCache(local, new RedisCache(config.REDIS_URL)) : local;
 }
 
+function logRequest(request: FastifyRequest) {
+  return { method: request.method, url: clip(request.url), requestId: request.id };
+}
+
 export async function buildApp(options: BuildOptions = {}): Promise<FastifyInstance> {
   const config: Config = { ...defaultConfig(), ...options.config };
+  const logger = options.logger ?? { level: config.LOG_LEVEL };
   const app = Fastify({
-    logger: options.logger ?? { level: config.LOG_LEVEL },
+    // Request log lines carry the method and a clipped path, never a 10 kB URL.
+    logger: typeof logger === 'object' ? { ...logger, serializers: { req: logRequest } } : logger,
     bodyLimit: config.BODY_LIMIT_BYTES,
-    requestIdHeader: 'x-request-id',
-    genReqId: (() => { let n = 0; return () => `req-${(++n).toString(36)}`; })(),
-    routerOptions: { ignoreTrailingSlash: true },
+    requestIdHeader: false,
+    genReqId: requestIds(),
+    routerOptions: { ignoreTrailingSlash: true, maxParamLength: MAX_PATH_SEGMENT_CHARS },
+    frameworkErrors,
+    clientErrorHandler,
+    keepAliveTimeout: config.KEEP_ALIVE_TIMEOUT_S * 1000,
+    // Whole-request bound for Node itself; the body's own bound (BODY_TIMEOUT_S) answers first.
+    requestTimeout: (config.HEADERS_TIMEOUT_S + config.BODY_TIMEOUT_S) * 1000,
+    // Node checks its header and request timeouts on this interval (default 30 s: far too coarse).
+    http: { headersTimeout: config.HEADERS_TIMEOUT_S * 1000, connectionsCheckingInterval: 1000 },
   }).withTypeProvider<ZodTypeProvider>();
 
   app.setValidatorCompiler(validatorCompiler);
@@ -50,6 +64,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   app.decorate('config', config);
 
   await app.register(problems);
+  await app.register(body);
   await app.register(openapi);
   await app.register(answers, {
     cache: options.cache ?? answerCache(config),

@@ -13,6 +13,12 @@ export interface ErrorEntry {
 const SERVICE_ERRORS = {
   'validation-failed': { status: 400, title: 'Request does not match the schema', meaning: 'A field is missing, has the wrong type, or is out of range; `errors` lists each offending field by its path.' },
   'malformed-json': { status: 400, title: 'Body is not valid JSON', meaning: 'The request body could not be parsed as JSON.' },
+  'json-too-deep': { status: 400, title: 'Body nested too deeply', meaning: 'Objects and arrays in the body are nested deeper than MAX_JSON_DEPTH; no request of this service needs that.' },
+  'malformed-url': { status: 400, title: 'URL is not valid', meaning: 'The request path holds a bad percent-encoding or is otherwise not a URL this service can read.' },
+  'uri-too-long': { status: 414, title: 'URL too long', meaning: 'A path segment is longer than any identifier of this service (scenario hashes and job ids are far shorter).' },
+  'malformed-request': { status: 400, title: 'Request is not valid HTTP', meaning: 'The bytes received are not an HTTP request this server can read; the connection is closed.' },
+  'header-too-large': { status: 431, title: 'Request headers too large', meaning: 'The request headers exceed the server\'s header size limit.' },
+  'request-timeout': { status: 408, title: 'Request not received in time', meaning: 'The client did not send the whole request (headers and body) within the configured time (HEADERS_TIMEOUT_S, BODY_TIMEOUT_S); the connection is closed.' },
   'body-too-large': { status: 413, title: 'Body too large', meaning: 'The request body exceeds the configured BODY_LIMIT_BYTES.' },
   'unsupported-media-type': { status: 415, title: 'Unsupported media type', meaning: 'POST bodies must be application/json.' },
   'not-acceptable': { status: 406, title: 'No acceptable representation', meaning: 'The Accept header names no format this endpoint can produce.' },
@@ -22,7 +28,8 @@ const SERVICE_ERRORS = {
   'unsupported-frame': { status: 422, title: 'Frame or format not available here', meaning: 'Earth-fixed frames (itrf, geodetic) and GeoJSON ground tracks exist for the built-in earth only, and an OEM carries Cartesian states (gcrf or itrf).' },
   'too-many-samples': { status: 422, title: 'Too many samples', meaning: 'The requested grid has more samples than the configured maximum; the detail names the maximum.' },
   'limit-exceeded': { status: 422, title: 'Request exceeds a service limit', meaning: 'A window, list or count is larger than the service accepts; the detail names the limit.' },
-  'overloaded': { status: 503, title: 'Service overloaded', meaning: 'The worker queue is full; retry after the number of seconds in Retry-After.' },
+  'overloaded': { status: 503, title: 'Service overloaded', meaning: 'The worker queue is full, or the process is under memory or event-loop pressure; retry after the number of seconds in Retry-After.' },
+  'shutting-down': { status: 503, title: 'Service shutting down', meaning: 'This instance is stopping and takes no new work; retry after the number of seconds in Retry-After (another instance, or this one after its restart, answers). In a batch stream the last line says which items were not run.' },
   'queue-unavailable': { status: 503, title: 'Job queue unavailable', meaning: 'The job queue cannot take or look up jobs now: its Redis store does not answer, or the in-process queue holds JOBS_MAX_KEPT unfinished jobs; retry after the number of seconds in Retry-After. Jobs already stored are not lost.' },
   'job-not-found': { status: 404, title: 'No such job', meaning: 'No job has this id: never submitted, expired (JOB_RESULT_TTL_S), or dropped from the in-process queue (JOBS_MAX_KEPT).' },
   'job-not-done': { status: 409, title: 'Job results not ready', meaning: 'Results exist only for a job whose status is done: a queued or running job answers this with Retry-After; a failed job answers it with the reason in the detail.' },
@@ -67,14 +74,17 @@ export class ProblemError extends Error {
   readonly code: ErrorCode;
   readonly status: number;
   readonly errors: FieldIssue[] | undefined;
+  /** How many issues there were when `errors` lists only the first ones. */
+  readonly errorCount: number | undefined;
   readonly headers: Record<string, string>;
 
-  constructor(code: ErrorCode, detail: string, extra: { errors?: FieldIssue[]; headers?: Record<string, string> } = {}) {
+  constructor(code: ErrorCode, detail: string, extra: { errors?: FieldIssue[]; errorCount?: number; headers?: Record<string, string> } = {}) {
     super(detail);
     this.name = 'ProblemError';
     this.code = code;
     this.status = ERRORS[code].status;
     this.errors = extra.errors;
+    this.errorCount = extra.errorCount;
     this.headers = extra.headers ?? {};
   }
 }

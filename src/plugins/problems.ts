@@ -1,8 +1,25 @@
 // RFC 9457 problem details for every 4xx/5xx answer, and GET /problems/{code} describing each type.
+import { STATUS_CODES } from 'node:http';
+import type { Socket } from 'node:net';
 import fp from 'fastify-plugin';
 import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import { hasZodFastifySchemaValidationErrors } from 'fastify-type-provider-zod';
 import { ERRORS, ProblemError, isErrorCode, problemType, type ErrorCode, type FieldIssue } from '../errors.js';
+import { MAX_LISTED_ISSUES } from '../schemas/list.js';
+
+/** Longest piece of client text (a path, a message quoting input) a problem or a log line repeats. */
+export const MAX_ECHO_CHARS = 200;
+/** Longest detail of a problem (our words plus clipped echoes). */
+const MAX_DETAIL_CHARS = 1000;
+
+/** Text cut to `max` characters, marked with an ellipsis when cut (never splitting a surrogate pair). */
+export function clip(text: string, max = MAX_ECHO_CHARS): string {
+  if (text.length <= max) return text;
+  let end = max;
+  const code = text.charCodeAt(end - 1);
+  if (code >= 0xd800 && code <= 0xdbff) end--;
+  return `${text.slice(0, end)}…`;
+}
 
 export const PROBLEM_CONTENT_TYPE = 'application/problem+json';
 
@@ -14,6 +31,7 @@ export interface ProblemDocument {
   instance: string;
   requestId: string;
   errors?: FieldIssue[];
+  errorCount?: number;
 }
 
 export function sendProblem(request: FastifyRequest, reply: FastifyReply, problem: ProblemError): FastifyReply {
@@ -22,13 +40,21 @@ export function sendProblem(request: FastifyRequest, reply: FastifyReply, proble
     type: problemType(problem.code),
     title: entry.title,
     status: entry.status,
-    detail: problem.message,
-    instance: request.url,
+    detail: clip(problem.message, MAX_DETAIL_CHARS),
+    instance: clip(request.url.split('?')[0] ?? ''),
     requestId: String(request.id),
-    ...(problem.errors ? { errors: problem.errors } : {}),
+    ...(problem.errors ? listed(problem.errors, problem.errorCount) : {}),
   };
   for (const [k, v] of Object.entries(problem.headers)) reply.header(k, v);
   return reply.code(entry.status).type(PROBLEM_CONTENT_TYPE).send(JSON.stringify(body));
+}
+
+/** At most MAX_LISTED_ISSUES issues, each clipped, and how many there were. */
+function listed(errors: readonly FieldIssue[], total = errors.length): { errors: FieldIssue[]; errorCount: number } {
+  return {
+    errors: errors.slice(0, MAX_LISTED_ISSUES).map((e) => ({ path: clip(e.path), message: clip(e.message) })),
+    errorCount: Math.max(total, errors.length),
+  };
 }
 
 /** Fastify's own client errors (body parsing, media type, size) mapped to our codes. */
@@ -38,18 +64,23 @@ const FASTIFY_CODES: Record<string, ErrorCode> = {
   FST_ERR_CTP_BODY_TOO_LARGE: 'body-too-large',
   FST_ERR_CTP_EMPTY_JSON_BODY: 'malformed-json',
   FST_ERR_CTP_INVALID_JSON_BODY: 'malformed-json',
+  FST_ERR_BAD_URL: 'malformed-url',
+  FST_ERR_MAX_PARAM_LENGTH: 'uri-too-long',
 };
 
 function toProblem(error: FastifyError): ProblemError {
   if (error instanceof ProblemError) return error;
   if (hasZodFastifySchemaValidationErrors(error)) {
     const where = error.validationContext ?? 'body';
-    const errors = error.validation.map((v) => ({
-      path: `${where}${v.instancePath === '/' ? '' : v.instancePath.replaceAll('/', '.')}`,
-      message: v.message ?? 'invalid',
+    // Only the first issues are turned into text; the count says how many there were.
+    const errors = error.validation.slice(0, MAX_LISTED_ISSUES).map((v) => ({
+      path: clip(`${where}${v.instancePath === '/' ? '' : v.instancePath.replaceAll('/', '.')}`),
+      message: clip(v.message ?? 'invalid'),
     }));
-    const summary = errors.map((e) => `${e.path}: ${e.message}`).join('; ');
-    return new ProblemError('validation-failed', `The request does not match the schema: ${summary}`, { errors });
+    const more = error.validation.length - errors.length;
+    const summary = errors.slice(0, 3).map((e) => `${e.path}: ${e.message}`).join('; ');
+    const rest = error.validation.length > 3 ? ` (and ${error.validation.length - 3} more${more > 0 ? `, ${MAX_LISTED_ISSUES} listed` : ''})` : '';
+    return new ProblemError('validation-failed', `The request does not match the schema: ${summary}${rest}`, { errors, errorCount: error.validation.length });
   }
   const mapped = error.code ? FASTIFY_CODES[error.code] : undefined;
   if (mapped) return new ProblemError(mapped, error.message);
@@ -62,16 +93,47 @@ function toProblem(error: FastifyError): ProblemError {
   return new ProblemError('internal', 'The service failed while answering; the request id identifies the fault in the logs.');
 }
 
+/** Fastify's `frameworkErrors` option: router refusals (bad percent-encoding, over-long path segments) as problems. */
+export function frameworkErrors(error: FastifyError, request: FastifyRequest, reply: FastifyReply): void {
+  const code = (error.code && FASTIFY_CODES[error.code]) || 'malformed-url';
+  const detail = code === 'uri-too-long'
+    ? `a path segment is longer than ${MAX_PATH_SEGMENT_CHARS} characters; no identifier of this service is that long`
+    : 'the request path is not a valid URL (bad percent-encoding?)';
+  request.log.info({ code }, 'client error');
+  void sendProblem(request, reply, new ProblemError(code, detail));
+}
+
+/** Longest path parameter the router accepts (fastify's maxParamLength); job ids are 36 characters, hashes 64. */
+export const MAX_PATH_SEGMENT_CHARS = 100;
+
+/**
+ * Fastify's `clientErrorHandler` option: errors met before a request exists (headers not received in
+ * time, headers too large, unparsable HTTP) answered as problems on the raw socket, which then closes.
+ */
+export function clientErrorHandler(error: NodeJS.ErrnoException, socket: Socket): void {
+  if (error.code === 'ECONNRESET' || socket.destroyed) return;
+  const code: ErrorCode = error.code === 'ERR_HTTP_REQUEST_TIMEOUT' ? 'request-timeout'
+    : error.code === 'HPE_HEADER_OVERFLOW' ? 'header-too-large' : 'malformed-request';
+  const detail = code === 'request-timeout' ? 'the request was not received in time; the connection is closed'
+    : code === 'header-too-large' ? 'the request headers are too large' : 'the request is not valid HTTP';
+  const { status, title } = ERRORS[code];
+  const body = JSON.stringify({ type: problemType(code), title, status, detail, instance: '', requestId: '' });
+  if (socket.writable) {
+    socket.write(`HTTP/1.1 ${status} ${STATUS_CODES[status]}\r\nContent-Type: ${PROBLEM_CONTENT_TYPE}\r\nContent-Length: ${Buffer.byteLength(body)}\r\nConnection: close\r\n\r\n${body}`);
+  }
+  socket.destroy();
+}
+
 export default fp(async function problems(app: FastifyInstance) {
   app.setErrorHandler((error: FastifyError, request, reply) => {
     const problem = toProblem(error);
     if (problem.status >= 500) request.log.error({ err: error }, 'request failed');
-    else request.log.info({ code: problem.code, detail: problem.message }, 'client error');
+    else request.log.info({ code: problem.code, detail: clip(problem.message) }, 'client error');
     return sendProblem(request, reply, problem);
   });
 
   app.setNotFoundHandler((request, reply) =>
-    sendProblem(request, reply, new ProblemError('not-found', `No route ${request.method} ${request.url.split('?')[0]}`)),
+    sendProblem(request, reply, new ProblemError('not-found', `No route ${request.method} ${clip(request.url.split('?')[0] ?? '')}`)),
   );
 
   app.get('/problems/:code', { schema: { hide: true } }, async (request, reply) => {

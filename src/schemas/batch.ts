@@ -4,6 +4,7 @@
 import { z } from 'zod';
 import { SCENARIO_KINDS, type ScenarioKind } from '../scenario/hash.js';
 import { DEMO_EPOCH, Problem, ScenarioHash } from './common.js';
+import { boundedList } from './list.js';
 
 export const BATCH_KINDS = SCENARIO_KINDS;
 export type BatchKind = ScenarioKind;
@@ -36,7 +37,7 @@ const DEMO_ITEMS: BatchItem[] = [
   },
 ];
 
-const itemsField = z.array(BatchItem).min(1).describe('The scenarios, 1 to BATCH_MAX_ITEMS (default 1000; more answers 422 limit-exceeded); the whole body is also bounded by BODY_LIMIT_BYTES');
+const itemsField = boundedList(BatchItem, { min: 1, max: 100_000 }).describe('The scenarios, 1 to BATCH_MAX_ITEMS (default 1000; more answers 422 limit-exceeded); the whole body is also bounded by BODY_LIMIT_BYTES');
 
 export const BatchRequest = z
   .object({ items: itemsField })

@@ -26,6 +26,9 @@ export const Epoch = z
   .describe('Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table')
   .meta({ example: DEMO_EPOCH });
 
+/** True for a string the Epoch schema accepts (a cheap test for long lists). */
+export const isEpoch = (value: unknown): boolean => typeof value === 'string' && parseUtcIso(value).ok;
+
 /** Epoch as the answers give it: ISO 8601 UTC with milliseconds. */
 export const EpochOut = z.string().describe('ISO 8601 UTC timestamp with milliseconds').meta({ example: '2026-12-01T00:00:00.000Z' });
 
@@ -44,7 +47,8 @@ export const Problem = z
     detail: z.string().describe('What went wrong with this request, in words'),
     instance: z.string().describe('The request path'),
     requestId: z.string().describe('Identifies the request in the service logs'),
-    errors: z.array(FieldIssue).optional().describe('For validation errors: each offending field'),
+    errors: z.array(FieldIssue).optional().describe('For validation errors: the offending fields, at most 20 (paths and messages clipped to 200 characters)'),
+    errorCount: z.number().int().optional().describe('With errors: how many issues there were in all'),
   })
   .describe('RFC 9457 problem details (application/problem+json)');
 

@@ -1,13 +1,14 @@
 // Time grids at the API: a regular grid (start, stop, step) or a list of epochs.
 import { z } from 'zod';
-import { Epoch } from './common.js';
+import { Epoch, isEpoch } from './common.js';
+import { boundedList } from './list.js';
 
 export const TimeGrid = z
   .object({
     start: Epoch.optional().describe('First epoch of a regular grid (ISO 8601 UTC)'),
     stop: Epoch.optional().describe('Last epoch of a regular grid; before start for a backwards grid. The last sample is at stop exactly (the final step may be shorter)'),
     step: z.number().positive().optional().describe('Spacing of a regular grid, s (> 0; the direction comes from start and stop)'),
-    times: z.array(Epoch).min(1).optional().describe('Instead of start/stop/step: the epochs themselves, in any order'),
+    times: boundedList(Epoch, { min: 1, max: 10_000_000, good: isEpoch }).optional().describe('Instead of start/stop/step: the epochs themselves, in any order'),
   })
   .strict()
   .superRefine((g, ctx) => {

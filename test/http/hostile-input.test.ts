@@ -1,0 +1,125 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { FastifyInstance } from 'fastify';
+import { Problem } from '../../src/schemas/common.js';
+import { postJson, testApp } from '../helpers/app.js';
+import { GOOD } from '../helpers/batch.js';
+import { DEMO_ORBIT, DEMO_STATIONS, EPOCH } from '../helpers/demo.js';
+
+// Hostile bodies and URLs a careless or malicious client sends. Every answer is a small problem
+// document from the error table, never a 5xx. Expected behaviour: RFC 9457 (problem details),
+// RFC 9110 sec. 15.5 (4xx meanings); the limits are the service's own (docs/errors.md).
+let app: FastifyInstance;
+beforeAll(async () => { app = await testApp(); });
+afterAll(async () => { await app.close(); });
+
+const LONE = '\ud800';
+const problemOf = (res: { statusCode: number; headers: Record<string, unknown>; json: () => unknown }) => {
+  expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
+  return Problem.parse(res.json());
+};
+
+describe('lone UTF-16 surrogates in free text', () => {
+  const cases: [string, string, unknown, string][] = [
+    ['a custom body name', '/v1/orbit', { centralBody: { name: `x${LONE}`, gm: 398600.4418 }, elements: DEMO_ORBIT.elements }, 'body.centralBody.name'],
+    ['a station id', '/v1/passes', { ...GOOD.passes, stations: [{ ...DEMO_STATIONS[0], id: LONE }] }, 'body.stations.0.id'],
+    ['a built-in body name', '/v1/orbit', { centralBody: `earth${LONE}`, elements: DEMO_ORBIT.elements }, 'body.centralBody'],
+    ['a central-force unit label', '/v1/central-force', { ...GOOD['central-force'], units: { radius: `m${'\udc00'}`, energy: 'J' } }, 'body.units.radius'],
+    ['a batch item', '/v1/batch', { items: [{ kind: 'orbit', request: GOOD.orbit }, { kind: 'orbit', id: LONE, request: GOOD.orbit }] }, 'body.items.1.id'],
+    ['a key of a batch item request', '/v1/batch', { items: [{ kind: 'orbit', request: { ...GOOD.orbit, [LONE]: 1 } }] }, 'body.items.0.request.\ufffd'],
+  ];
+  for (const [what, url, body, path] of cases) {
+    it(`in ${what} answers 400 validation-failed naming the field, never 500`, async () => {
+      const res = await postJson(app, url, body);
+      expect(res.statusCode, res.body).toBe(400);
+      const problem = problemOf(res);
+      expect(problem.type).toBe('/problems/validation-failed');
+      expect(problem.errors?.map((e) => e.path)).toContain(path);
+    });
+  }
+
+  it('a well-formed pair (an emoji) is ordinary text', async () => {
+    const res = await postJson(app, '/v1/orbit', { centralBody: { name: 'pebble \ud83e\udea8', gm: 398600.4418 }, elements: DEMO_ORBIT.elements });
+    expect(res.statusCode, res.body).toBe(200);
+  });
+});
+
+describe('error amplification', () => {
+  it('500 000 bad epochs answer a short 400 listing 20 issues with the total count', async () => {
+    const body = JSON.stringify({ ...DEMO_ORBIT, grid: { times: new Array(500_000).fill(1) } });
+    expect(body.length).toBeLessThan(1024 * 1024);
+    const res = await app.inject({ method: 'POST', url: '/v1/track', payload: body, headers: { 'content-type': 'application/json' } });
+    expect(res.statusCode).toBe(400);
+    expect(res.body.length).toBeLessThan(16 * 1024);
+    const problem = problemOf(res);
+    expect(problem.errors).toHaveLength(20);
+    expect(problem.errorCount).toBeGreaterThanOrEqual(20);
+    expect(problem.errors![0]!.path).toBe('body.grid.times.0');
+  });
+
+  it('long bad strings are echoed clipped to 200 characters', async () => {
+    const long = 'y'.repeat(100_000);
+    const res = await postJson(app, '/v1/track', { ...DEMO_ORBIT, grid: { times: [long, EPOCH] } });
+    expect(res.statusCode).toBe(400);
+    expect(res.body.length).toBeLessThan(4 * 1024);
+    const problem = problemOf(res);
+    for (const e of problem.errors!) expect(e.message.length).toBeLessThanOrEqual(201);
+  });
+
+  it('a batch of 200 000 empty items answers a short 400, not one issue per item', async () => {
+    const body = JSON.stringify({ items: new Array(200_000).fill({}) });
+    const res = await app.inject({ method: 'POST', url: '/v1/batch', payload: body, headers: { 'content-type': 'application/json' } });
+    expect(res.statusCode).toBe(400);
+    expect(res.body.length).toBeLessThan(16 * 1024);
+    expect(problemOf(res).errors!.length).toBeLessThanOrEqual(20);
+  });
+});
+
+describe('deep nesting', () => {
+  const deep = (n: number) => `${'['.repeat(n)}${']'.repeat(n)}`;
+  for (const url of ['/v1/batch', '/v1/jobs', '/v1/orbit']) {
+    it(`${url}: nesting 10 000 deep inside items[].request answers 400 json-too-deep at parse time`, async () => {
+      const payload = `{"items":[{"kind":"orbit","request":{"centralBody":${deep(10_000)}}}]}`;
+      const res = await app.inject({ method: 'POST', url, payload, headers: { 'content-type': 'application/json' } });
+      expect(res.statusCode, res.body.slice(0, 300)).toBe(400);
+      expect(problemOf(res).type).toBe('/problems/json-too-deep');
+    });
+  }
+
+  it('brackets inside strings do not count as nesting', async () => {
+    const res = await postJson(app, '/v1/orbit', { centralBody: { name: '['.repeat(60), gm: 398600.4418 }, elements: DEMO_ORBIT.elements });
+    expect(res.statusCode, res.body).toBe(200);
+  });
+});
+
+describe('router errors and request ids', () => {
+  it('a 10 000-character path segment answers 414 uri-too-long without echoing it', async () => {
+    const res = await app.inject({ url: `/v1/results/${'a'.repeat(10_000)}` });
+    expect(res.statusCode).toBe(414);
+    expect(res.body.length).toBeLessThan(1024);
+    expect(problemOf(res).type).toBe('/problems/uri-too-long');
+  });
+
+  it('a bad percent-encoding answers 400 malformed-url as a problem', async () => {
+    const res = await app.inject({ url: '/v1/results/%' });
+    expect(res.statusCode).toBe(400);
+    expect(problemOf(res).type).toBe('/problems/malformed-url');
+  });
+
+  it('an unknown route is a problem whose instance and detail are clipped', async () => {
+    const res = await app.inject({ url: `/v1/${'z'.repeat(5000)}/x` });
+    expect(res.statusCode).toBe(404);
+    expect(res.body.length).toBeLessThan(2048);
+  });
+
+  it('a plain short x-request-id is kept; a 10 kB or odd one is replaced', async () => {
+    const kept = await app.inject({ url: '/v1/nothing', headers: { 'x-request-id': 'nightly-run:42/7' } });
+    expect(problemOf(kept).requestId).toBe('nightly-run:42/7');
+    const long = await app.inject({ url: '/v1/nothing', headers: { 'x-request-id': 'r'.repeat(10_000) } });
+    const odd = await app.inject({ url: '/v1/nothing', headers: { 'x-request-id': 'a b<script>' } });
+    for (const res of [long, odd]) {
+      const id = problemOf(res).requestId;
+      expect(id.length).toBeLessThanOrEqual(128);
+      expect(id).toMatch(/^[0-9a-f]{8}-[0-9a-z]+$/);
+    }
+  });
+});
