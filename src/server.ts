@@ -1,4 +1,5 @@
-// Reads the environment, builds the app, listens; closes cleanly on SIGINT/SIGTERM.
+// Reads the environment, builds the app, listens; closes cleanly on SIGINT/SIGTERM, and exits
+// anyway once SHUTDOWN_DEADLINE_S has passed (a stalled client or a stuck job never holds it).
 import { buildApp } from './app.js';
 import { loadConfig } from './config.js';
 
@@ -11,10 +12,21 @@ try {
 }
 
 const app = await buildApp({ config, logger: { level: config.LOG_LEVEL } });
+let stopping = false;
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
-  process.once(signal, () => {
-    app.log.info({ signal }, 'closing');
-    app.close().then(() => process.exit(0), () => process.exit(1));
+  process.on(signal, () => {
+    if (stopping) return;
+    stopping = true;
+    const deadlineS = config.SHUTDOWN_DEADLINE_S;
+    app.log.info({ signal, deadlineS }, 'closing');
+    setTimeout(() => {
+      app.log.warn({ deadlineS }, 'shutdown deadline passed: exiting with work still in hand');
+      process.exit(1);
+    }, deadlineS * 1000);
+    app.close().then(() => process.exit(0), (error: unknown) => {
+      app.log.error({ err: error }, 'close failed');
+      process.exit(1);
+    });
   });
 }
 try {

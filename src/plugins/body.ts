@@ -117,8 +117,13 @@ export default fp(async function body(app: FastifyInstance) {
 
   // A body that stalls is cut off: the stream ends in a 408 problem and the connection closes.
   app.addHook('preParsing', async (request, _reply, payload) => {
+    // The reader (fastify's body collector) is told by an 'error' event, not by destroying the
+    // stream: destroying it would close the socket before the 408 is written. The answer then
+    // carries `connection: close`.
     const timer = setTimeout(() => {
-      payload.destroy(new ProblemError('request-timeout', `the body was not received within ${app.config.BODY_TIMEOUT_S} s (BODY_TIMEOUT_S); the connection is closed`));
+      const error = new ProblemError('request-timeout', `the body was not received within ${app.config.BODY_TIMEOUT_S} s (BODY_TIMEOUT_S); the connection is closed`);
+      if (payload.listenerCount('error') > 0) payload.emit('error', error);
+      else payload.destroy(error);
     }, bodyTimeoutMs);
     timer.unref();
     const clear = () => clearTimeout(timer);
