@@ -12,7 +12,6 @@ import { relativeCentralBody, toTwoBodyAnswer, trackNames, twoBodySolverInput } 
 import { problemResponses } from '../schemas/common.js';
 import { TwoBodyAnswer, TwoBodyRequest, type TwoBodyTracks } from '../schemas/two-body.js';
 import { solveOrbit } from '../solver/conic/orbit.js';
-import { propagateTrack } from '../solver/propagation/track.js';
 import { bodyTracksAboutBarycentre, reduceTwoBody } from '../solver/conic/two-body.js';
 
 interface Tracks {
@@ -54,7 +53,7 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
     },
   }, async (request, reply) => {
     const req = request.body;
-    return app.answers.respondStream(request, reply, 'two-body', req, (hash) => {
+    return app.answers.respondStream(request, reply, 'two-body', req, async (hash) => {
       const [b1, b2] = twoBodySolverInput(req);
       const reduced = reduceTwoBody(b1, b2);
       if (!reduced.ok) throw solverProblem(reduced);
@@ -69,12 +68,14 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
       let tracks: Tracks | null = null;
       if (req.track) {
         const epochsTT = gridEpochs(req.track.grid, app.config.MAX_TRACK_SAMPLES);
-        const relative = propagateTrack({ body: relativeBody, model: 'two-body', r0: red.relative.r, v0: red.relative.v, epochTT, epochsTT });
-        if (!relative.ok) throw solverProblem(relative);
-        const { body1, body2 } = bodyTracksAboutBarycentre(red, relative.value);
+        // Long grids are propagated on a worker thread (counted against the bounded queue).
+        const solved = await app.pool.solve({ kind: 'track', input: { body: relativeBody, model: 'two-body', r0: red.relative.r, v0: red.relative.v, epochTT, epochsTT }, earthFixed: null, geodetic: false });
+        if (!solved.ok) throw solverProblem(solved);
+        const relative = solved.value.track;
+        const { body1, body2 } = bodyTracksAboutBarycentre(red, relative);
         assertPrintable(body1.states);
         assertPrintable(body2.states);
-        const { drift } = relative.value;
+        const { drift } = relative;
         tracks = {
           head: {
             origin: 'barycenter',

@@ -12,28 +12,90 @@ import { findPasses, type Pass, type PassSearchOptions, type PassSearchResult, t
 import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest } from '../solver/central/radial-track.js';
 import { analyseCentralForce, type AnalysisOptions, type CentralForceAnalysis, type CentralForceProblem, type PotentialSample } from '../solver/central/radial.js';
 import { SECONDS_PER_DAY } from '../solver/core/math.js';
-import { success, type Outcome } from '../solver/core/result.js';
+import { failure, success, type Failure, type Outcome } from '../solver/core/result.js';
+import { DEFAULT_MAX_STEPS } from '../solver/numerics/ode.js';
 import { propagateTrack, type Track, type TrackInput } from '../solver/propagation/track.js';
 import { stateFunction, type PropagationSpec } from '../solver/propagation/propagator.js';
 
-// Size thresholds: below them a job runs inline (a few ms to a few tens of ms, measured on the
-// two-core development machine), at or above them in a worker thread.
-/** Tracks with fewer samples than this run inline (2000 two-body samples + ITRF + geodetic: ~10-30 ms). */
-export const INLINE_TRACK_SAMPLES = 2000;
+// Inline or worker thread is decided by an estimate of the work, in units of about one inertial
+// two-body grid sample (~50 ns on the two-core development machine): a job estimated under
+// INLINE_WORK_UNITS runs on the main thread (about a millisecond), anything more in a worker
+// thread, behind the bounded queue. The costs per unit of size were measured on that machine.
+/** Jobs estimated under this many work units run inline (~1 ms). */
+export const INLINE_WORK_UNITS = 20_000;
+/** Work units per sample: inertial two-body (the grid kernel), j2-secular (elements + Kepler). */
+const UNITS_PER_SAMPLE = { 'two-body': 1, 'j2-secular': 2, numerical: 2 } as const satisfies Record<TrackInput['model'], number>;
+/** Added per sample for the ITRF rotation (~0.5 us a sample) and again for geodetic coordinates. */
+const UNITS_PER_EARTH_FIXED_SAMPLE = 10;
+const UNITS_PER_GEODETIC_SAMPLE = 2;
+/** Work units per step of the numerical integrator with the force models (~75 us a step). */
+const UNITS_PER_INTEGRATOR_STEP = 1500;
+/** Integrator steps per orbit at the default tolerance: about 5 for a near-circular orbit (measured) ... */
+const STEPS_PER_ORBIT = 5;
+/** ... and never fewer than 2: a span needing more than DEFAULT_MAX_STEPS at this rate is refused before it starts. */
+const MIN_STEPS_PER_ORBIT = 2;
+/** Pass searches: work units per station-day without a pointing track (1 day x 4 stations ~ 20-35 ms was measured). */
+const UNITS_PER_STATION_DAY = 5000;
+
+/** Orbits covered by a numerical span (the integration runs from the epoch to each side's farthest sample). */
+function orbitsCovered(spec: PropagationSpec, epochsTT: ArrayLike<number>): number {
+  let lo = spec.epochTT;
+  let hi = spec.epochTT;
+  for (let i = 0; i < epochsTT.length; i++) {
+    lo = Math.min(lo, epochsTT[i]!);
+    hi = Math.max(hi, epochsTT[i]!);
+  }
+  const r = Math.hypot(...spec.r0);
+  const v = Math.hypot(...spec.v0);
+  const a = 1 / (2 / r - (v * v) / spec.body.gm);
+  // Bound orbits: the period (vis-viva, Vallado 4th ed. eq. 2-47 and 2-82). Unbound: the time to
+  // cross the starting radius at the starting speed stands for it (common practice, no source).
+  const timescaleS = a > 0 ? 2 * Math.PI * Math.sqrt((a * a * a) / spec.body.gm) : r / Math.max(v, 1e-12);
+  return (hi - lo) / timescaleS;
+}
+
+/** Estimated work of a job, in work units (see INLINE_WORK_UNITS). */
+export function workEstimate(job: Job): number {
+  switch (job.kind) {
+    case 'track': {
+      const n = job.input.epochsTT.length;
+      let units = n * UNITS_PER_SAMPLE[job.input.model];
+      if (job.earthFixed) units += n * UNITS_PER_EARTH_FIXED_SAMPLE;
+      if (job.geodetic) units += n * UNITS_PER_GEODETIC_SAMPLE;
+      if (job.input.model === 'numerical') units += orbitsCovered(job.input, job.input.epochsTT) * STEPS_PER_ORBIT * UNITS_PER_INTEGRATOR_STEP;
+      return units;
+    }
+    case 'passes': {
+      const stationDays = ((job.stopTT - job.startTT) / SECONDS_PER_DAY) * job.stations.length;
+      let units = stationDays * UNITS_PER_STATION_DAY;
+      if (job.spec.model === 'numerical') units += orbitsCovered(job.spec, [job.startTT, job.stopTT]) * STEPS_PER_ORBIT * UNITS_PER_INTEGRATOR_STEP;
+      // A pointing track's cost follows the pass time, known only after the search: never inline.
+      if (job.options.pointingStepS !== undefined) units += INLINE_WORK_UNITS;
+      return units;
+    }
+    case 'central-force':
+      // The analysis alone (10 000 potential samples, ~10 ms) stays inline; a track's cost follows
+      // its integrated span (up to 200 000 steps): always a worker.
+      return job.track === null ? 0 : INLINE_WORK_UNITS;
+  }
+}
+
+/** True when the job is small enough to run on the main thread. */
+export const runsInline = (job: Job): boolean => workEstimate(job) < INLINE_WORK_UNITS;
+
 /**
- * Inertial two-body tracks (no Earth-fixed conversion) run inline up to this many samples: the
- * grid kernel costs ~45 ns a sample (100 000 samples: ~5 ms plus ~15 ms of first-touch memory on
- * the development VM), less than the hand-over to a thread, and the answer is formatted on the
- * main thread anyway.
+ * A limit the job is sure to break, found before any work: a numerical span that needs more
+ * integrator steps than DEFAULT_MAX_STEPS even at the lowest rate (e.g. 100 samples over 99 years).
  */
-export const INLINE_TWO_BODY_SAMPLES = 200_000;
-/** Pass searches run inline when the window is at most this long, s ... */
-export const INLINE_PASS_WINDOW_S = SECONDS_PER_DAY;
-/** ... with at most this many stations and no pointing track (1 day x 4 stations: ~20-35 ms). */
-export const INLINE_PASS_STATIONS = 4;
-// Central-force analyses without a track run inline (10 000 potential samples: ~10 ms); any track
-// goes to a worker, since its cost follows the integrated span (up to the 200 000-step limit), not
-// the sample count.
+export function refusedBeforeWork(job: Job): Failure | undefined {
+  let orbits: number;
+  if (job.kind === 'track' && job.input.model === 'numerical') orbits = orbitsCovered(job.input, job.input.epochsTT);
+  else if (job.kind === 'passes' && job.spec.model === 'numerical') orbits = orbitsCovered(job.spec, [job.startTT, job.stopTT]);
+  else return undefined;
+  const steps = Math.ceil(orbits * MIN_STEPS_PER_ORBIT);
+  if (!(steps > DEFAULT_MAX_STEPS)) return undefined;
+  return failure('integration-failed', `the span covers about ${Math.round(orbits)} orbits: the numerical model would need at least ${steps} integrator steps, more than its limit of ${DEFAULT_MAX_STEPS}; shorten the span or use an analytic model`);
+}
 
 /**
  * Propagate a track and, when asked, convert it to Earth-fixed and geodetic coordinates. The
@@ -91,18 +153,6 @@ interface JobTypes {
 export type JobKind = keyof JobTypes;
 export type Job = JobTypes[JobKind]['job'];
 export type JobResult<J extends Job> = JobTypes[J['kind']]['result'];
-
-/** True when the job is small enough to run on the main thread (see the thresholds above). */
-export function runsInline(job: Job): boolean {
-  switch (job.kind) {
-    case 'track':
-      return job.input.epochsTT.length < (job.input.model === 'two-body' && !job.earthFixed ? INLINE_TWO_BODY_SAMPLES : INLINE_TRACK_SAMPLES);
-    case 'passes':
-      return job.stopTT - job.startTT <= INLINE_PASS_WINDOW_S && job.stations.length <= INLINE_PASS_STATIONS && job.options.pointingStepS === undefined;
-    case 'central-force':
-      return job.track === null;
-  }
-}
 
 /** Run a job here and now. Expected failures are Outcome values; programmer errors throw. */
 export function runJob<J extends Job>(job: J): JobResult<J> {

@@ -7,7 +7,7 @@
 import { createRequire } from 'node:module';
 import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
-import { fromWire, payloadTransfer, runJob, runsInline, type Job, type JobResult } from './jobs.js';
+import { fromWire, payloadTransfer, refusedBeforeWork, runJob, runsInline, type Job, type JobResult } from './jobs.js';
 
 /** The queue in front of the threads is full (or the pool is closing): try again later. */
 export class PoolOverloadedError extends Error {
@@ -86,8 +86,13 @@ export class SolverPool {
     });
   }
 
-  /** A small job runs inline at once; a heavy one in a worker thread. */
+  /**
+   * A job sure to break a limit is refused at once (its failure is the result); a small job runs
+   * inline at once; a heavy one in a worker thread, behind the bounded queue.
+   */
   solve<J extends Job>(job: J): Promise<JobResult<J>> {
+    const refused = refusedBeforeWork(job);
+    if (refused) return Promise.resolve(refused as JobResult<J>);
     if (runsInline(job)) {
       try {
         return Promise.resolve(runJob(job));

@@ -123,3 +123,17 @@ describe('router errors and request ids', () => {
     }
   });
 });
+
+describe('heavy work decided by its size', () => {
+  it('a numerical track of 100 samples over 99 years answers 422 before any integration', async () => {
+    const res = await postJson(app, '/v1/track', {
+      ...DEMO_ORBIT, model: 'numerical', forces: [{ kind: 'j2' }],
+      grid: { start: EPOCH, stop: '2125-12-01T00:00:00Z', step: 99 * 365.25 * 864 },
+    });
+    expect(res.statusCode, res.body).toBe(422);
+    const problem = problemOf(res);
+    expect(problem.type).toBe('/problems/integration-failed');
+    expect(problem.detail).toMatch(/orbits.*integrator steps/);
+    expect(app.pool.stats().completed).toBe(0); // no thread was asked
+  });
+});

@@ -10,11 +10,10 @@ import { propagateTrack } from '../../src/solver/propagation/track.js';
 import { propagate } from '../../src/solver/conic/universal.js';
 import type { Vec3 } from '../../src/solver/core/vec3.js';
 import {
-  INLINE_PASS_STATIONS,
-  INLINE_PASS_WINDOW_S,
-  INLINE_TRACK_SAMPLES,
-  INLINE_TWO_BODY_SAMPLES,
+  INLINE_WORK_UNITS,
+  refusedBeforeWork,
   runsInline,
+  workEstimate,
   type CentralForceJob,
   type PassesJob,
   type TrackJob,
@@ -151,20 +150,33 @@ describe('SolverPool.inWorker gives the numbers of the inline solver', () => {
 });
 
 describe('SolverPool: inline jobs, failures and the bounded queue', () => {
-  it('runsInline(job) keeps small jobs on the main thread by the named thresholds', () => {
-    expect(runsInline(trackJob(INLINE_TRACK_SAMPLES - 1))).toBe(true);
-    expect(runsInline(trackJob(INLINE_TRACK_SAMPLES))).toBe(false);
-    // Inertial two-body tracks stay inline far longer; other models and Earth-fixed output do not.
-    expect(runsInline(trackJob(INLINE_TWO_BODY_SAMPLES - 1, { earthFixed: null, geodetic: false }))).toBe(true);
-    expect(runsInline(trackJob(INLINE_TWO_BODY_SAMPLES, { earthFixed: null, geodetic: false }))).toBe(false);
-    expect(runsInline(trackJob(INLINE_TRACK_SAMPLES, { earthFixed: null, geodetic: false }, { model: 'j2-secular' }))).toBe(false);
-    const few = STATIONS.slice(0, INLINE_PASS_STATIONS);
-    expect(runsInline(passesJob(INLINE_PASS_WINDOW_S / 86_400, few))).toBe(true);
-    expect(runsInline(passesJob(INLINE_PASS_WINDOW_S / 86_400 + 0.01, few))).toBe(false);
-    expect(runsInline(passesJob(1, STATIONS.slice(0, INLINE_PASS_STATIONS + 1)))).toBe(false);
+  it('runsInline(job) keeps jobs estimated under INLINE_WORK_UNITS on the main thread', () => {
+    // Inertial two-body samples cost one unit each; Earth-fixed and geodetic output cost more per sample.
+    expect(runsInline(trackJob(INLINE_WORK_UNITS - 1, { earthFixed: null, geodetic: false }))).toBe(true);
+    expect(runsInline(trackJob(INLINE_WORK_UNITS, { earthFixed: null, geodetic: false }))).toBe(false);
+    expect(runsInline(trackJob(100_000, { earthFixed: null, geodetic: false }))).toBe(false);
+    expect(workEstimate(trackJob(1000))).toBeGreaterThan(workEstimate(trackJob(1000, { earthFixed: null, geodetic: false })));
+    expect(runsInline(trackJob(500))).toBe(true);
+    expect(runsInline(trackJob(5000))).toBe(false);
+    // A numerical track's cost follows its span, not its sample count: 100 samples over 30 days go to a thread.
+    expect(runsInline(trackJob(100, { earthFixed: null, geodetic: false }, { model: 'numerical', epochsTT: grid(100, 30 * 864) }))).toBe(false);
+    const few = STATIONS.slice(0, 4);
+    expect(runsInline(passesJob(0.9, few))).toBe(true);
+    expect(runsInline(passesJob(1.1, few))).toBe(false);
+    expect(runsInline(passesJob(1, STATIONS.slice(0, 5)))).toBe(false);
     expect(runsInline(passesJob(0.5, few, 30))).toBe(false);
     expect(runsInline(cfJob(null))).toBe(true);
     expect(runsInline(cfJob({ samples: 2, duration: 1 }))).toBe(false);
+  });
+
+  it('refusedBeforeWork(job) refuses a numerical span sure to exceed the step limit, before any work', () => {
+    // 100 samples over 99 years of a 95-minute orbit: ~550 000 orbits.
+    const long = trackJob(100, { earthFixed: null, geodetic: false }, { model: 'numerical', epochsTT: grid(100, 99 * 365.25 * 864) });
+    const refused = refusedBeforeWork(long);
+    expect(refused?.code).toBe('integration-failed');
+    expect(refused?.message).toMatch(/orbits/);
+    expect(refusedBeforeWork(trackJob(100, { earthFixed: null, geodetic: false }, { model: 'numerical', epochsTT: grid(100, 864) }))).toBeUndefined();
+    expect(refusedBeforeWork(trackJob(100, {}, { epochsTT: grid(100, 99 * 365.25 * 864) }))).toBeUndefined(); // analytic: no steps
   });
 
   it('solve(job) answers a small job without starting a thread', async () => {

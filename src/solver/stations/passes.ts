@@ -469,16 +469,19 @@ export function findPasses(search: PassSearch): Outcome<PassSearchResult> {
     const bounds = coarseStepFor(first.r, first.v, options.gm);
     const track = coarseTrack(ctx, search.stateBatch, bounds.stepS);
     const found: Array<{ st: Prepared; iv: Interval }> = [];
+    // The pointing limit is checked station by station, so a search sure to break it stops at
+    // the station where it does instead of finishing first.
+    let samples = 0;
     for (const st of prepared.value) {
-      for (const iv of searchStation(ctx, st, track, bounds)) found.push({ st, iv });
-    }
-    found.sort((x, y) => x.iv.start - y.iv.start || x.st.index - y.st.index);
-    if (step !== undefined) {
-      const samples = found.reduce((n, { iv }) => n + Math.ceil((iv.stop - iv.start) / step) + 1, 0);
+      for (const iv of searchStation(ctx, st, track, bounds)) {
+        found.push({ st, iv });
+        if (step !== undefined) samples += Math.ceil((iv.stop - iv.start) / step) + 1;
+      }
       if (samples > MAX_POINTING_SAMPLES) {
-        return failure('invalid-parameter', `the pointing tracks would hold ${samples} samples; the limit is ${MAX_POINTING_SAMPLES}: use a longer pointing step`);
+        return failure('invalid-parameter', `the pointing tracks would hold more than ${MAX_POINTING_SAMPLES} samples (${samples} after ${st.index + 1} of ${stations.length} stations); use a longer pointing step`);
       }
     }
+    found.sort((x, y) => x.iv.start - y.iv.start || x.st.index - y.st.index);
     const passes = found.map(({ st, iv }) => describe(ctx, st, track, iv, step));
     return success({ passes, coarseStepS: bounds.stepS, evaluations: ctx.calls });
   } catch (e) {
