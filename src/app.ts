@@ -62,6 +62,8 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   app.setValidatorCompiler(validatorCompiler);
   app.setSerializerCompiler(serializerCompiler);
   app.decorate('config', config);
+  // Readiness checks, added by the plugins that hold a dependency; GET /readyz runs them all.
+  app.decorate('readiness', new Map());
 
   await app.register(problems);
   await app.register(body);

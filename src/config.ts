@@ -20,6 +20,7 @@ export const Config = z.object({
   BATCH_MAX_ANSWER_BYTES: int(4 * 1024 * 1024, 1024, 1024 ** 3).describe('Largest answer, bytes, one batch line carries; a larger answer becomes that item\'s 422 limit-exceeded (it stays cached under its scenario hash)'),
   JOBS_MAX_KEPT: int(100, 1, 100_000).describe('In-process job queue only: jobs kept (queued, running and finished); the oldest finished ones are dropped first, and when all are unfinished POST /v1/jobs answers 503 queue-unavailable'),
   JOB_RESULT_TTL_S: int(7 * 86_400, 60, 365 * 86_400).describe('Seconds a job record and its results are kept after the job was submitted or last made progress'),
+  REQUEST_DEADLINE_S: z.coerce.number().positive().max(86_400).optional().describe('Seconds heavy work of one request (or one batch or job item) may take on a worker thread; past it the thread is stopped and the request answers 504 deadline-exceeded. Unset: no deadline'),
   MAX_JSON_DEPTH: int(64, 4, 1000).describe('Deepest nesting of objects and arrays accepted in a JSON body; deeper answers 400 json-too-deep before anything else looks at it'),
   HEADERS_TIMEOUT_S: int(15, 1, 3600).describe('Seconds a client has to send the request headers; past it the connection gets 408 request-timeout and is closed'),
   BODY_TIMEOUT_S: int(30, 1, 3600).describe('Seconds a client has to send the whole body once the headers are in; past it 408 request-timeout and the connection is closed'),

@@ -6,7 +6,7 @@ import fp from 'fastify-plugin';
 import type { FastifyInstance } from 'fastify';
 import { ProblemError } from '../errors.js';
 import type { Job, JobResult } from '../workers/jobs.js';
-import { PoolOverloadedError, SolverPool, type PoolStats } from '../workers/pool.js';
+import { DeadlineExceededError, PoolOverloadedError, SolverPool, WorkerDiedError, type PoolStats } from '../workers/pool.js';
 
 /** Seconds a refused client is asked to wait (Retry-After). */
 export const RETRY_AFTER_S = 2;
@@ -24,7 +24,12 @@ declare module 'fastify' {
 }
 
 export default fp(async function pool(app: FastifyInstance) {
-  const solver = new SolverPool({ threads: app.config.WORKER_THREADS, queueLimit: app.config.WORKER_QUEUE_LIMIT });
+  const deadlineS = app.config.REQUEST_DEADLINE_S;
+  const solver = new SolverPool({
+    threads: app.config.WORKER_THREADS,
+    queueLimit: app.config.WORKER_QUEUE_LIMIT,
+    ...(deadlineS !== undefined ? { deadlineMs: deadlineS * 1000 } : {}),
+  });
   const service: PoolService = {
     async solve(job) {
       try {
@@ -32,6 +37,13 @@ export default fp(async function pool(app: FastifyInstance) {
       } catch (error) {
         if (error instanceof PoolOverloadedError) {
           throw new ProblemError('overloaded', `${error.message}; retry after ${RETRY_AFTER_S} s`, { headers: { 'retry-after': String(RETRY_AFTER_S) } });
+        }
+        if (error instanceof DeadlineExceededError) {
+          throw new ProblemError('deadline-exceeded', `${error.message} (REQUEST_DEADLINE_S); ask for less work: a shorter span, fewer samples or stations`);
+        }
+        if (error instanceof WorkerDiedError) {
+          app.log.error({ err: error.cause }, 'solver worker thread died');
+          throw new ProblemError('worker-failed', `${error.message}; a new thread has taken its place: retry after ${RETRY_AFTER_S} s`, { headers: { 'retry-after': String(RETRY_AFTER_S) } });
         }
         throw error;
       }

@@ -52,6 +52,14 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   // The in-process queue stops before the app closes (its items run on this app); connections close last.
   app.addHook('preClose', async () => queue.stop());
   app.addHook('onClose', async () => queue.close());
+  app.readiness.set('job-queue', async () => {
+    try {
+      await queue.ping();
+      return null;
+    } catch (error) {
+      return error instanceof QueueUnavailableError ? error.message : 'does not answer';
+    }
+  });
 
   const find = async (id: string): Promise<JobRecord> => {
     const job = await queued(queue.get(id));

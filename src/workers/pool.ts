@@ -25,6 +25,22 @@ export class WorkerFailedError extends Error {
   }
 }
 
+/** A job ran past its deadline: its thread was stopped (and replaced), the job dropped. */
+export class DeadlineExceededError extends Error {
+  constructor(readonly deadlineMs: number) {
+    super(`the job ran longer than its deadline of ${deadlineMs / 1000} s and was stopped`);
+    this.name = 'DeadlineExceededError';
+  }
+}
+
+/** The worker thread died under the job (not a throw: the thread itself exited); the pool starts a new one. */
+export class WorkerDiedError extends Error {
+  constructor(kind: string, cause: unknown) {
+    super(`the worker thread running the ${kind} job stopped before it finished`, { cause });
+    this.name = 'WorkerDiedError';
+  }
+}
+
 export interface SolverPoolOptions {
   /** Worker threads (>= 1). */
   readonly threads: number;
@@ -32,6 +48,8 @@ export interface SolverPoolOptions {
   readonly queueLimit: number;
   /** Milliseconds close() waits for running and queued jobs before it stops the threads (default 30 000). */
   readonly closeTimeoutMs?: number;
+  /** Milliseconds a job may take in a thread (queueing included); past it the thread is stopped and replaced. Unset: no deadline. */
+  readonly deadlineMs?: number;
 }
 
 export interface PoolStats {
@@ -107,18 +125,22 @@ export class SolverPool {
    * Run a job in a worker thread whatever its size. A track job's input.epochsTT buffer is transferred
    * to the thread (the caller's array is emptied; the result carries it back).
    */
-  async inWorker<J extends Job>(job: J): Promise<JobResult<J>> {
+  async inWorker<J extends Job>(job: J, options: { deadlineMs?: number } = {}): Promise<JobResult<J>> {
     if (this.#closing) throw new PoolOverloadedError('the service is shutting down');
     this.start();
     this.#active++;
+    const deadlineMs = options.deadlineMs ?? this.#options.deadlineMs;
+    // Aborting a running task makes piscina stop its thread and start a fresh one.
+    const deadline = deadlineMs === undefined ? undefined : AbortSignal.timeout(deadlineMs);
     try {
-      const wire: unknown = await this.#piscina!.run(job, { transferList: payloadTransfer(job) });
+      const wire: unknown = await this.#piscina!.run(job, { transferList: payloadTransfer(job), ...(deadline ? { signal: deadline } : {}) });
       return fromWire<J>(job.kind, wire);
     } catch (error) {
-      if (error instanceof Error && QUEUE_FULL.has(error.message)) {
-        throw new PoolOverloadedError(`the solver queue is full (threads busy: ${this.#options.threads}, jobs waiting: ${this.#options.queueLimit})`);
-      }
+      // Messages stay free of internals (thread and queue sizes): they reach the client.
+      if (error instanceof Error && QUEUE_FULL.has(error.message)) throw new PoolOverloadedError('the solver queue is full');
+      if (deadline?.aborted) throw new DeadlineExceededError(deadlineMs!);
       if (error instanceof Error && error.name === 'AbortError') throw new PoolOverloadedError('the service is shutting down');
+      if (error instanceof Error && /^worker exited with code/.test(error.message)) throw new WorkerDiedError(job.kind, error);
       throw new WorkerFailedError(job.kind, error);
     } finally {
       this.#active--;

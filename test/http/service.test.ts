@@ -13,6 +13,7 @@ describe('service endpoints', () => {
       expect(res.statusCode, url).toBe(200);
       expect(res.json().status).toBe('ok');
     }
+    expect((await app.inject({ url: '/readyz' })).json()).toMatchObject({ checks: { 'job-queue': 'ok' }, missing: [] });
   });
 
   it('GET /openapi.json lists every public route with its schemas', async () => {

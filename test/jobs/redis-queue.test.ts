@@ -246,6 +246,10 @@ describe('Redis job queue that cannot be reached', () => {
     expect(Problem.parse(get.json()).detail).toBe('the job queue\'s store does not answer; retry after 5 s');
     // The synchronous batch does not need the queue.
     expect((await postJson(app, '/v1/batch', { items: [{ kind: 'orbit', request: GOOD.orbit }] })).statusCode).toBe(200);
+    // Readiness names the missing dependency instead of answering ok.
+    const ready = await app.inject({ url: '/readyz' });
+    expect(ready.statusCode).toBe(503);
+    expect(ready.json()).toMatchObject({ status: 'not-ready', missing: ['job-queue'] });
     await app.close();
   });
 });

@@ -18,7 +18,7 @@ import {
   type PassesJob,
   type TrackJob,
 } from '../../src/workers/jobs.js';
-import { PoolOverloadedError, SolverPool, WorkerFailedError } from '../../src/workers/pool.js';
+import { DeadlineExceededError, PoolOverloadedError, SolverPool, WorkerFailedError } from '../../src/workers/pool.js';
 
 // The pool must give bit-for-bit the numbers of the solver called directly on this thread:
 // toEqual compares numbers with Object.is and typed arrays element by element.
@@ -209,5 +209,17 @@ describe('SolverPool: inline jobs, failures and the bounded queue', () => {
     expect(small.stats()).toMatchObject({ active: 0, completed: 2 });
     await small.close();
     await expect(small.inWorker(cfJob(null))).rejects.toBeInstanceOf(PoolOverloadedError);
+  });
+
+  it('a job past its deadline is stopped with DeadlineExceededError; its thread is replaced and the next job is answered', async () => {
+    const timed = new SolverPool({ threads: 1, queueLimit: 2 });
+    // Warm the thread first, so the deadline is spent computing rather than starting a thread.
+    expect((await timed.inWorker(cfJob({ samples: 2, duration: 1 }))).analysis.ok).toBe(true);
+    // 200 000 radial periods: far longer than 300 ms on any machine.
+    await expect(timed.inWorker(cfJob({ samples: 1000, periods: 200_000 }), { deadlineMs: 300 })).rejects.toBeInstanceOf(DeadlineExceededError);
+    const after = await timed.inWorker(cfJob({ samples: 2, duration: 1 }));
+    expect(after.analysis.ok).toBe(true);
+    expect(timed.stats()).toMatchObject({ threads: 1, active: 0 });
+    await timed.close();
   });
 });
