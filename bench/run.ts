@@ -3,6 +3,7 @@
 import { cpus, totalmem } from 'node:os';
 import type { BenchResult } from './types.js';
 import { benchFrames } from './frames.js';
+import { benchJobs } from './jobs.js';
 import { benchKepler } from './kepler.js';
 import { benchPasses } from './passes.js';
 import { benchTrackHttp } from './track-http.js';
@@ -14,6 +15,7 @@ const suites: Array<[string, () => Promise<BenchResult[]>]> = [
   ['track-http', benchTrackHttp],
   ['passes', benchPasses],
   ['frames', benchFrames],
+  ['jobs', benchJobs],
 ];
 
 const only = process.argv[2];

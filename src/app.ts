@@ -33,7 +33,7 @@ export interface BuildOptions {
 /** The in-process LRU, with the shared Redis tier behind it when REDIS_URL is set. */
 function answerCache(config: Config): AnswerCache {
   const local = new MemoryCache(config.CACHE_MAX_BYTES);
-  return config.REDIS_URL ? new TieredCache(local, new RedisCache(config.REDIS_URL)) : local;
+  return config.REDIS_URL ? new TieredCache(local, new RedisCache(config.REDIS_URL, { keyPrefix: config.CACHE_KEY_PREFIX })) : local;
 }
 
 function logRequest(request: FastifyRequest) {

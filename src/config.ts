@@ -26,6 +26,13 @@ export const Config = z.object({
   BODY_TIMEOUT_S: int(30, 1, 3600).describe('Seconds a client has to send the whole body once the headers are in; past it 408 request-timeout and the connection is closed'),
   KEEP_ALIVE_TIMEOUT_S: int(5, 1, 3600).describe('Seconds an idle keep-alive connection stays open'),
   SHUTDOWN_DEADLINE_S: int(30, 1, 3600).describe('On SIGTERM/SIGINT: seconds the service lets requests and batches in flight finish before it exits anyway'),
+  CACHE_KEY_PREFIX: z.string().min(1).max(100).default('apsides:answer:').describe('Prefix of the answer keys in the shared Redis tier (REDIS_URL set)'),
+  JOB_ATTEMPTS: int(3, 1, 100).describe('Redis queue: times a job is tried when its run fails as a whole (a Redis fault, a lost lock; item problems are lines, not failures); then it is failed (kept as a dead letter)'),
+  JOB_BACKOFF_MS: int(1000, 0, 3_600_000).describe('Redis queue: delay before the first retry of a failed run, ms; doubled for each further retry (BullMQ exponential backoff)'),
+  JOB_LOCK_MS: int(5000, 1000, 600_000).describe('Redis queue: BullMQ lockDuration, ms: a worker renews the lock of its job every half of it; a job whose lock lapses is stalled and taken over (BullMQ default 30000)'),
+  JOB_STALLED_INTERVAL_MS: int(2000, 500, 600_000).describe('Redis queue: BullMQ stalledInterval, ms: how often each worker looks for stalled jobs (BullMQ default 30000)'),
+  JOB_MAX_STALLED: int(5, 0, 1000).describe('Redis queue: BullMQ maxStalledCount: stalls (a worker died under the job) a job survives; one more and it fails (BullMQ default 1)'),
+  JOB_MAX_DEADLINE_S: int(7 * 86_400, 1, 365 * 86_400).describe('Latest deadline a job may ask for, seconds after submission'),
   JOB_KEY_PREFIX: z.string().min(1).max(100).default('apsides:jobs:').describe('Prefix of every Redis key of the job queue (REDIS_URL set)'),
 });
 export type Config = z.infer<typeof Config>;

@@ -35,6 +35,10 @@ const SERVICE_ERRORS = {
   'queue-unavailable': { status: 503, title: 'Job queue unavailable', meaning: 'The job queue cannot take or look up jobs now: its Redis store does not answer, or the in-process queue holds JOBS_MAX_KEPT unfinished jobs; retry after the number of seconds in Retry-After. Jobs already stored are not lost.' },
   'job-not-found': { status: 404, title: 'No such job', meaning: 'No job has this id: never submitted, expired (JOB_RESULT_TTL_S), or dropped from the in-process queue (JOBS_MAX_KEPT).' },
   'job-not-done': { status: 409, title: 'Job results not ready', meaning: 'Results exist only for a job whose status is done: a queued or running job answers this with Retry-After; a failed job answers it with the reason in the detail.' },
+  'job-finished': { status: 409, title: 'Job already finished', meaning: 'DELETE /v1/jobs/{id} cancels a queued or running job; this one is already done, failed or cancelled (its record is in the detail).' },
+  'idempotency-conflict': { status: 409, title: 'Idempotency-Key reused with another body', meaning: 'A job was already submitted with this Idempotency-Key and a different body; send the same body to get that job, or use a new key.' },
+  'job-not-comparable': { status: 422, title: 'The earlier job cannot be compared with', meaning: 'compareTo names a job that does not exist, is not yours, or has expired; changes are listed against an earlier job of the same caller.' },
+  'item-not-written': { status: 404, title: 'Item not written', meaning: 'GET /v1/jobs/{id}/results/{index}: the index is outside the job, or that item\'s line is not written yet (see the job\'s counts).' },
   'internal': { status: 500, title: 'Internal error', meaning: 'A fault in the service itself; the request id in the answer identifies it in the logs.' },
 } as const satisfies Record<string, ErrorEntry>;
 

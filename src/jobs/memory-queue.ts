@@ -4,8 +4,12 @@
 // Finished jobs are also dropped `ttlS` (JOB_RESULT_TTL_S) after their last progress. Nothing
 // survives a restart: a job running when the service stops is marked failed; use Redis to keep jobs.
 import { randomUUID } from 'node:crypto';
+import type { JobCounts } from '../plugins/metrics.js';
 import type { BatchItem, JobStatus } from '../schemas/batch.js';
-import { JOB_ID_PATTERN, QueueUnavailableError, type JobQueue, type JobRecord, type NewJob, type RunLines } from './queue.js';
+import {
+  CANCELLED_REASON, deadlineReason, JOB_ID_PATTERN, QueueUnavailableError,
+  type JobEvents, type JobPage, type JobQueue, type JobRecord, type NewJob, type RunLines,
+} from './queue.js';
 
 export interface MemoryQueueOptions {
   /** Jobs kept, finished or not (>= 1). */
@@ -24,9 +28,13 @@ interface MemoryJob {
   items: readonly BatchItem[] | undefined;
   readonly lines: Buffer[];
   touchedMs: number;
+  readonly deadlineMs: number | undefined;
+  readonly idempotency: string | undefined;
+  readonly abort: AbortController;
 }
 
-const finished = (status: JobStatus) => status === 'done' || status === 'failed';
+export const finished = (status: JobStatus) => status === 'done' || status === 'failed' || status === 'cancelled';
+const idempotencySlot = (owner: string | null | undefined, key: string) => `${owner ?? ''}\u0000${key}`;
 
 export class MemoryJobQueue implements JobQueue {
   readonly #run: RunLines;
@@ -34,9 +42,12 @@ export class MemoryJobQueue implements JobQueue {
   readonly #now: () => number;
   /** Insertion order is submission order: the first finished job met is the oldest. */
   readonly #jobs = new Map<string, MemoryJob>();
+  readonly #idempotent = new Map<string, string>();
   readonly #waiting: string[] = [];
   readonly #abort = new AbortController();
   #running: Promise<void> | undefined;
+  #seq = 0;
+  #events: JobEvents | undefined;
 
   constructor(run: RunLines, options: MemoryQueueOptions) {
     if (!Number.isInteger(options.maxKept) || options.maxKept < 1) throw new RangeError('maxKept must be an integer >= 1');
@@ -48,9 +59,13 @@ export class MemoryJobQueue implements JobQueue {
   async enqueue(job: NewJob): Promise<JobRecord> {
     if (this.#abort.signal.aborted) throw new QueueUnavailableError('the service is stopping and takes no new jobs', RETRY_AFTER_S);
     this.#prune();
+    if (job.idempotencyKey !== undefined) {
+      const earlier = this.#jobs.get(this.#idempotent.get(idempotencySlot(job.owner, job.idempotencyKey)) ?? '');
+      if (earlier) return earlier.record;
+    }
     for (const [id, kept] of this.#jobs) {
       if (this.#jobs.size < this.#options.maxKept) break;
-      if (finished(kept.record.status)) this.#jobs.delete(id);
+      if (finished(kept.record.status)) this.#drop(id);
     }
     if (this.#jobs.size >= this.#options.maxKept) {
       throw new QueueUnavailableError(`the in-process queue holds ${this.#jobs.size} unfinished jobs (JOBS_MAX_KEPT ${this.#options.maxKept}); retry after ${RETRY_AFTER_S} s`, RETRY_AFTER_S);
@@ -69,8 +84,14 @@ export class MemoryJobQueue implements JobQueue {
       finishedAt: null,
       error: null,
       owner: job.owner ?? null,
+      deadline: job.deadlineMs === undefined ? null : new Date(job.deadlineMs).toISOString(),
+      compareTo: job.compareTo ?? null,
+      fingerprint: job.fingerprint ?? null,
+      seq: ++this.#seq,
     };
-    this.#jobs.set(id, { record, items: job.items, lines: [], touchedMs: this.#now() });
+    const idempotency = job.idempotencyKey === undefined ? undefined : idempotencySlot(job.owner, job.idempotencyKey);
+    this.#jobs.set(id, { record, items: job.items, lines: [], touchedMs: this.#now(), deadlineMs: job.deadlineMs, idempotency, abort: new AbortController() });
+    if (idempotency !== undefined) this.#idempotent.set(idempotency, id);
     this.#waiting.push(id);
     this.#pump();
     return record;
@@ -81,15 +102,58 @@ export class MemoryJobQueue implements JobQueue {
     return JOB_ID_PATTERN.test(id) ? this.#jobs.get(id)?.record : undefined;
   }
 
+  async list(owner: string | null, limit: number, cursor?: string): Promise<JobPage> {
+    this.#prune();
+    const before = cursor === undefined ? Infinity : Number(cursor);
+    const mine = [...this.#jobs.values()].map((j) => j.record).filter((r) => r.owner === owner && r.seq < before).reverse();
+    const jobs = mine.slice(0, limit);
+    return { jobs, next: mine.length > limit ? String(jobs.at(-1)!.seq) : null };
+  }
+
+  async cancel(id: string): Promise<JobRecord | undefined> {
+    const job = JOB_ID_PATTERN.test(id) ? this.#jobs.get(id) : undefined;
+    if (!job || finished(job.record.status)) return job?.record;
+    const at = this.#waiting.indexOf(id);
+    if (at >= 0) {
+      this.#waiting.splice(at, 1);
+      job.items = undefined;
+      job.record = { ...job.record, status: 'cancelled', finishedAt: new Date(this.#now()).toISOString(), error: CANCELLED_REASON };
+      job.touchedMs = this.#now();
+    } else {
+      job.abort.abort(); // #runJob marks it cancelled when the items in hand are done
+      await this.#running;
+    }
+    return job.record;
+  }
+
   async *results(id: string): AsyncGenerator<Buffer> {
     const job = this.#jobs.get(id);
     if (!job) return;
-    // The array only grows, and only while running: a done job's lines are fixed.
+    // The array only grows, and only while running: a finished job's lines are fixed.
     for (const line of job.lines) yield line;
   }
 
   async ping(): Promise<void> {
     if (this.#abort.signal.aborted) throw new QueueUnavailableError('the in-process queue is stopping', RETRY_AFTER_S);
+  }
+
+  async line(id: string, index: number): Promise<Buffer | undefined> {
+    return this.#jobs.get(id)?.lines[index];
+  }
+
+  async counts(): Promise<JobCounts> {
+    const c = { queued: 0, active: 0, completed: 0, failed: 0 };
+    for (const { record } of this.#jobs.values()) {
+      if (record.status === 'queued') c.queued++;
+      else if (record.status === 'running') c.active++;
+      else if (record.status === 'done') c.completed++;
+      else c.failed++;
+    }
+    return c;
+  }
+
+  watch(events: JobEvents): void {
+    this.#events = events;
   }
 
   async stop(): Promise<void> {
@@ -101,10 +165,16 @@ export class MemoryJobQueue implements JobQueue {
     await this.stop();
   }
 
+  #drop(id: string): void {
+    const job = this.#jobs.get(id);
+    if (job?.idempotency !== undefined) this.#idempotent.delete(job.idempotency);
+    this.#jobs.delete(id);
+  }
+
   /** Drop finished jobs past their time to live. */
   #prune(): void {
     const oldest = this.#now() - this.#options.ttlS * 1000;
-    for (const [id, job] of this.#jobs) if (finished(job.record.status) && job.touchedMs < oldest) this.#jobs.delete(id);
+    for (const [id, job] of this.#jobs) if (finished(job.record.status) && job.touchedMs < oldest) this.#drop(id);
   }
 
   /** Start the next waiting job unless one is running. */
@@ -126,21 +196,33 @@ export class MemoryJobQueue implements JobQueue {
       job.record = { ...job.record, ...change };
       job.touchedMs = this.#now();
     };
+    const pastDeadline = () => job.deadlineMs !== undefined && this.#now() > job.deadlineMs;
     update({ status: 'running', startedAt: iso(), attempts: 1 });
-    const signal = this.#abort.signal;
+    // Stops on shutdown, on cancel, and at the deadline (checked before each line is kept).
+    const stop = AbortSignal.any([this.#abort.signal, job.abort.signal]);
+    const deadline = new AbortController();
+    const signal = AbortSignal.any([stop, deadline.signal]);
+    const timer = job.deadlineMs === undefined ? undefined : setTimeout(() => deadline.abort(), Math.max(0, job.deadlineMs - this.#now()));
     try {
-      for await (const out of this.#run({ id, items: job.items }, 0, signal)) {
-        job.lines.push(out.line);
-        update({ done: job.record.done + 1, failed: job.record.failed + (out.failed ? 1 : 0) });
+      if (!pastDeadline()) {
+        for await (const out of this.#run({ id, items: job.items }, 0, signal)) {
+          if (pastDeadline()) { deadline.abort(); break; }
+          job.lines.push(out.line);
+          update({ done: job.record.done + 1, failed: job.record.failed + (out.failed ? 1 : 0) });
+        }
       }
-      if (job.record.done < job.record.items) {
-        update({ status: 'failed', finishedAt: iso(), error: `the service stopped after ${job.record.done} of ${job.record.items} items; the in-process queue does not keep jobs across restarts: submit it again` });
-      } else {
+      const { done, items } = job.record;
+      if (done === items) {
         update({ status: 'done', finishedAt: iso() });
+        this.#events?.done((Date.parse(job.record.finishedAt!) - Date.parse(job.record.startedAt!)) / 1000);
       }
+      else if (job.abort.signal.aborted) update({ status: 'cancelled', finishedAt: iso(), error: CANCELLED_REASON });
+      else if (deadline.signal.aborted || pastDeadline()) update({ status: 'failed', finishedAt: iso(), error: deadlineReason(job.record.deadline!, done, items) });
+      else update({ status: 'failed', finishedAt: iso(), error: `the service stopped after ${done} of ${items} items; the in-process queue does not keep jobs across restarts: submit it again` });
     } catch (error) {
       update({ status: 'failed', finishedAt: iso(), error: `the job stopped: ${error instanceof Error ? error.message : String(error)}` });
     } finally {
+      clearTimeout(timer);
       job.items = undefined;
     }
   }

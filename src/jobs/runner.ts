@@ -12,6 +12,7 @@ import { DEFAULT_TRACK_SAMPLES } from '../schemas/central-force.js';
 import { epochTT } from '../api/epoch.js';
 import { TimeGrid } from '../schemas/grid.js';
 import { regularGridCount } from '../solver/core/grid.js';
+import { INNER_REQUEST_HEADER } from '../plugins/metrics.js';
 import type { LineOut, RunLines } from './queue.js';
 
 export interface RunnerOptions {
@@ -110,7 +111,10 @@ export async function runItem(app: FastifyInstance, item: BatchItem, index: numb
         method: 'POST',
         url: `/v1/${item.kind}`,
         payload,
-        headers: { 'content-type': 'application/json', accept: 'application/json', 'x-request-id': `${opts.requestIdPrefix}/${index}` },
+        headers: {
+          'content-type': 'application/json', accept: 'application/json', 'x-request-id': `${opts.requestIdPrefix}/${index}`,
+          [INNER_REQUEST_HEADER]: app.jobMetrics.innerToken,
+        },
       });
       const retryAfter = Number(res.headers['retry-after']);
       if (res.statusCode === 503 && attempt < OVERLOAD_RETRIES && Number.isFinite(retryAfter) && !opts.signal?.aborted) {

@@ -1,15 +1,22 @@
-// POST /v1/jobs, GET /v1/jobs/{id}, GET /v1/jobs/{id}/results: a batch stored now and run later
-// (nightly recalculation). Without REDIS_URL the jobs run in this process, one at a time, and are
-// kept in memory; with it they are stored in Redis and run by separate queue workers
-// (src/queue-worker.ts), and this process only enqueues and reads.
+// Jobs: a batch stored now and run later (nightly recalculation). POST /v1/jobs, GET /v1/jobs
+// (the caller's, newest first), GET and DELETE /v1/jobs/{id}, GET .../results (NDJSON),
+// .../results/{index} (one line), .../changes (against compareTo). Without REDIS_URL the jobs run
+// in this process, one at a time, and are kept in memory; with it they are BullMQ jobs on Redis,
+// run by separate queue workers (src/queue-worker.ts), and this process only enqueues and reads.
+import { createHash } from 'node:crypto';
+import type { FastifyRequest } from 'fastify';
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
+import canonicalize from 'canonicalize';
 import { z } from 'zod';
 import { ProblemError } from '../errors.js';
+import { BullJobQueue } from '../jobs/bullmq-queue.js';
+import { itemChanges, lineId } from '../jobs/changes.js';
 import { MemoryJobQueue } from '../jobs/memory-queue.js';
 import { jobLinks, QueueUnavailableError, type JobQueue, type JobRecord } from '../jobs/queue.js';
-import { RedisJobQueue } from '../jobs/redis-queue.js';
 import { appRunner } from '../jobs/runner.js';
-import { BatchLine, JobAccepted, JobAnswer, JobId, JobRequest, NDJSON_MEDIA_TYPE } from '../schemas/batch.js';
+import {
+  BatchLine, IDEMPOTENCY_KEY_PATTERN, JobAccepted, JobAnswer, JobId, JobList, JobListQuery, JobRequest, NDJSON_MEDIA_TYPE,
+} from '../schemas/batch.js';
 import { Problem, problemResponses } from '../schemas/common.js';
 import { sendNdjson } from './batch.js';
 
@@ -28,27 +35,43 @@ async function queued<T>(work: Promise<T>): Promise<T> {
   }
 }
 
-const toAnswer = (job: JobRecord): JobAnswer => ({
+/** Now plus the items left at the rate seen since the job started; null unless running with progress. */
+function estimatedFinish(job: JobRecord, nowMs: number): string | null {
+  if (job.status !== 'running' || job.startedAt === null || job.done === 0) return null;
+  const elapsedMs = Math.max(0, nowMs - Date.parse(job.startedAt));
+  return new Date(nowMs + (elapsedMs / job.done) * (job.items - job.done)).toISOString();
+}
+
+const toAnswer = (job: JobRecord, nowMs = Date.now()): JobAnswer => ({
   id: job.id,
   label: job.label,
   status: job.status,
   counts: { items: job.items, done: job.done, failed: job.failed },
+  progress: { fraction: job.items === 0 ? 1 : job.done / job.items, estimatedFinishAt: estimatedFinish(job, nowMs) },
   attempts: job.attempts,
   createdAt: job.createdAt,
   startedAt: job.startedAt,
   finishedAt: job.finishedAt,
+  deadline: job.deadline,
+  compareTo: job.compareTo?.job ?? null,
   error: job.error,
   links: jobLinks(job.id),
 });
 
+/** The caller that owns the jobs it submits (the API key's id once keys exist); null: the open service. */
+const callerOf = (request: FastifyRequest): string | null => (request as { callerId?: string | null }).callerId ?? null;
+
 const Params = z.object({ id: JobId });
 const unavailable = Problem.describe('queue-unavailable: the queue\'s store does not answer, or the in-process queue is full; see Retry-After');
+const notFound = Problem.describe('job-not-found');
 
 const jobs: FastifyPluginAsyncZod = async (app) => {
   const config = app.config;
   const queue: JobQueue = config.REDIS_URL
-    ? new RedisJobQueue(config.REDIS_URL, { prefix: config.JOB_KEY_PREFIX, ttlS: config.JOB_RESULT_TTL_S })
+    ? new BullJobQueue(config.REDIS_URL, { prefix: config.JOB_KEY_PREFIX, ttlS: config.JOB_RESULT_TTL_S, attempts: config.JOB_ATTEMPTS, backoffMs: config.JOB_BACKOFF_MS })
     : new MemoryJobQueue(appRunner(app), { maxKept: config.JOBS_MAX_KEPT, ttlS: config.JOB_RESULT_TTL_S });
+  app.jobMetrics.counts(() => queue.counts());
+  queue.watch({ stalled: () => app.jobMetrics.stalled(), done: (s) => app.jobMetrics.done(s) });
   // The in-process queue stops before the app closes (its items run on this app); connections close last.
   app.addHook('preClose', async () => queue.stop());
   app.addHook('onClose', async () => queue.close());
@@ -61,9 +84,12 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
     }
   });
 
-  const find = async (id: string): Promise<JobRecord> => {
+  /** The job, if it exists and the caller owns it: another caller's job is as unknown as a missing one. */
+  const find = async (request: FastifyRequest, id: string): Promise<JobRecord> => {
     const job = await queued(queue.get(id));
-    if (!job) throw new ProblemError('job-not-found', `no job ${id}: never submitted, expired after JOB_RESULT_TTL_S, or dropped from the in-process queue`);
+    if (!job || job.owner !== callerOf(request)) {
+      throw new ProblemError('job-not-found', `no job ${id}: never submitted, expired after JOB_RESULT_TTL_S, or dropped from the in-process queue`);
+    }
     return job;
   };
 
@@ -71,55 +97,170 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
     schema: {
       tags: ['batch'],
       summary: 'Queue a batch to run later; poll its status, then read its NDJSON results',
-      description: 'Takes the same items as POST /v1/batch (plus an optional label) and answers 202 at once with the job id and a Location header. ' +
+      description: 'Takes the same items as POST /v1/batch (plus an optional label, deadline and compareTo) and answers 202 at once with the job id and a Location header. ' +
         'The job runs the items exactly as POST /v1/batch does and keeps the lines for GET /v1/jobs/{id}/results for JOB_RESULT_TTL_S (default 7 days). ' +
         'Without REDIS_URL jobs run in the service process one at a time and live in memory (at most JOBS_MAX_KEPT, default 100; lost on restart); ' +
-        'with REDIS_URL they are stored in Redis and run by separate queue workers, survive restarts, and a job whose worker dies resumes on another one. ' +
+        'with REDIS_URL they are BullMQ jobs run by separate queue workers, survive restarts, and a job whose worker dies resumes on another one after the lines already stored. ' +
+        'With an Idempotency-Key header (1 to 200 visible ASCII characters), the same key with the same body answers the job stored first (202, its current status); the same key with another body answers 409 idempotency-conflict. ' +
         'When the queue cannot take the job the answer is 503 queue-unavailable with Retry-After.',
+      headers: z.object({ 'idempotency-key': z.string().regex(IDEMPOTENCY_KEY_PATTERN).optional().describe('Your key for this submission: a repeat with the same body answers the same job') }),
       body: JobRequest,
-      response: { 202: JobAccepted.describe('Queued'), ...problemResponses, 503: unavailable },
+      response: { 202: JobAccepted.describe('Queued'), ...problemResponses, 409: Problem.describe('idempotency-conflict'), 503: unavailable },
     },
   }, async (request, reply) => {
-    const { label, items } = request.body;
+    const { label, items, deadline, compareTo, thresholdSeconds, thresholdDegrees } = request.body;
+    const owner = callerOf(request);
     const max = config.BATCH_MAX_ITEMS;
     if (items.length > max) throw new ProblemError('limit-exceeded', `the job holds ${items.length} items; the maximum is ${max} (BATCH_MAX_ITEMS): split it into several jobs`);
-    const job = await queued(queue.enqueue({ label, items }));
+    const deadlineMs = deadline === undefined ? undefined : Date.parse(deadline);
+    if (deadlineMs !== undefined && deadlineMs > Date.now() + config.JOB_MAX_DEADLINE_S * 1000) {
+      throw new ProblemError('limit-exceeded', `the deadline is more than ${config.JOB_MAX_DEADLINE_S} s ahead (JOB_MAX_DEADLINE_S)`);
+    }
+    if (compareTo !== undefined) {
+      const earlier = await queued(queue.get(compareTo));
+      if (!earlier || earlier.owner !== owner) throw new ProblemError('job-not-comparable', `compareTo: no job ${compareTo} of yours (never submitted, or expired after JOB_RESULT_TTL_S)`);
+    }
+    const key = request.headers['idempotency-key'];
+    const fingerprint = key === undefined ? undefined : createHash('sha256').update(canonicalize(request.body) ?? '').digest('hex');
+    const job = await queued(queue.enqueue({
+      label, items, owner, deadlineMs, idempotencyKey: key, fingerprint,
+      compareTo: compareTo === undefined ? undefined : { job: compareTo, thresholdSeconds, thresholdDegrees },
+    }));
+    if (fingerprint !== undefined && job.fingerprint !== fingerprint) {
+      throw new ProblemError('idempotency-conflict', `Idempotency-Key "${key}" was used for job ${job.id} with another body; send that body again, or use a new key`);
+    }
     request.log.info({ job: job.id, items: job.items }, 'job queued');
-    return reply.code(202).header('location', `/v1/jobs/${job.id}`).send({ id: job.id, status: 'queued' as const, links: jobLinks(job.id) });
+    return reply.code(202).header('location', `/v1/jobs/${job.id}`).send({ id: job.id, status: job.status, links: jobLinks(job.id) });
+  });
+
+  app.get('/v1/jobs', {
+    schema: {
+      tags: ['batch'],
+      summary: 'Your jobs, newest first, a page at a time',
+      description: 'Every job you submitted that is still kept (JOB_RESULT_TTL_S), whatever its status: failed jobs stay here with their reason (the dead letters) until they expire. Pass `next` as `cursor` for the older page.',
+      querystring: JobListQuery,
+      response: { 200: JobList, 503: unavailable },
+    },
+  }, async (request, reply) => {
+    const { limit, cursor } = request.query;
+    const page = await queued(queue.list(callerOf(request), limit, cursor));
+    const now = Date.now();
+    return reply.header('cache-control', 'no-store').send({ jobs: page.jobs.map((j) => toAnswer(j, now)), next: page.next });
   });
 
   app.get('/v1/jobs/:id', {
     schema: {
       tags: ['batch'],
-      summary: 'Status of a job: queued, running, done or failed, with counts and timestamps',
+      summary: 'Status of a job: queued, running, done, failed or cancelled, with counts, progress and timestamps',
       params: Params,
-      response: { 200: JobAnswer, 404: Problem.describe('job-not-found'), 503: unavailable },
+      response: { 200: JobAnswer, 404: notFound, 503: unavailable },
     },
-  }, async (request, reply) => reply.header('cache-control', 'no-store').send(toAnswer(await find(request.params.id))));
+  }, async (request, reply) => reply.header('cache-control', 'no-store').send(toAnswer(await find(request, request.params.id))));
+
+  app.delete('/v1/jobs/:id', {
+    schema: {
+      tags: ['batch'],
+      summary: 'Cancel a queued or running job',
+      description: 'A queued job never starts; a running one stops after the items being solved. The lines written before stay readable (results, results/{index}). A job already done, failed or cancelled answers 409 job-finished.',
+      params: Params,
+      response: { 200: JobAnswer, 404: notFound, 409: Problem.describe('job-finished'), 503: unavailable },
+    },
+  }, async (request, reply) => {
+    const job = await find(request, request.params.id);
+    if (job.status === 'done' || job.status === 'failed' || job.status === 'cancelled') {
+      throw new ProblemError('job-finished', `job ${job.id} is already ${job.status}; nothing to cancel`);
+    }
+    const cancelled = await queued(queue.cancel(job.id));
+    request.log.info({ job: job.id }, 'job cancelled');
+    return reply.header('cache-control', 'no-store').send(toAnswer(cancelled ?? job));
+  });
 
   app.get('/v1/jobs/:id/results', {
     schema: {
       tags: ['batch'],
       summary: 'The NDJSON lines of a done job, in input order (the same lines as POST /v1/batch)',
-      description: 'Only a job whose status is done has results: while it is queued or running the answer is 409 job-not-done with Retry-After ' +
-        '(a partial file is never served, so what you read is always the whole result); a failed job answers 409 with the reason.',
+      description: 'A done job has all its lines; a cancelled one the lines written before it stopped. While it is queued or running the answer is 409 job-not-done with Retry-After ' +
+        '(a partial file of a running job is never served); a failed job answers 409 with the reason (its lines written stay readable one by one, results/{index}).',
       params: Params,
       response: {
         200: { description: 'One JSON object per line, one line per item, in input order', content: { [NDJSON_MEDIA_TYPE]: { schema: BatchLine } } },
-        404: Problem.describe('job-not-found'),
+        404: notFound,
         409: Problem.describe('job-not-done'),
         503: unavailable,
       },
     },
   }, async (request, reply) => {
-    const job = await find(request.params.id);
+    const job = await find(request, request.params.id);
     if (job.status === 'failed') throw new ProblemError('job-not-done', `job ${job.id} failed and has no results: ${job.error ?? 'no reason recorded'}`);
-    if (job.status !== 'done') {
+    if (job.status !== 'done' && job.status !== 'cancelled') {
       throw new ProblemError('job-not-done', `job ${job.id} is ${job.status} (${job.done} of ${job.items} items done); retry after ${RESULTS_RETRY_AFTER_S} s`, {
         headers: { 'retry-after': String(RESULTS_RETRY_AFTER_S) },
       });
     }
     return sendNdjson(reply, queue.results(job.id));
+  });
+
+  app.get('/v1/jobs/:id/results/:index', {
+    schema: {
+      tags: ['batch'],
+      summary: 'One item\'s line of a job, as soon as it is written',
+      params: z.object({ id: JobId, index: z.coerce.number().int().min(0).max(1_000_000) }),
+      response: {
+        200: { description: 'The item\'s line (one JSON object)', content: { 'application/json': { schema: BatchLine } } },
+        404: Problem.describe('job-not-found, item-not-written'),
+        503: unavailable,
+      },
+    },
+  }, async (request, reply) => {
+    const job = await find(request, request.params.id);
+    const { index } = request.params;
+    const line = index < job.items ? await queued(queue.line(job.id, index)) : undefined;
+    if (!line) throw new ProblemError('item-not-written', `job ${job.id} has ${job.items} items, ${job.done} written; item ${index} is not written`);
+    return reply.type('application/json; charset=utf-8').header('cache-control', 'no-store').send(line.subarray(0, line.length - 1) as never); // bytes as stored: not serialised
+  });
+
+  app.get('/v1/jobs/:id/changes', {
+    schema: {
+      tags: ['batch'],
+      summary: 'What moved since the earlier job (compareTo), item by item, as NDJSON',
+      description: 'For a done job submitted with compareTo: one line per item, matched with the earlier job\'s item of the same id. ' +
+        'change "passes": per station the passes that appeared, vanished, or moved by more than thresholdSeconds (AOS, TCA or LOS) or thresholdDegrees (maximum elevation); ' +
+        'change "track": the largest position difference, km, over the sample epochs both tracks share; "unchanged", "status" (the item answered differently: a problem on one side), ' +
+        '"new-item" (no such id before) or "not-compared" (no id, another kind, or a kind that is not compared).',
+      params: Params,
+      response: {
+        200: { description: 'One JSON object per item, in input order', content: { [NDJSON_MEDIA_TYPE]: { schema: z.object({ index: z.number().int(), id: z.string().nullable(), kind: z.string(), change: z.string() }) } } },
+        404: notFound,
+        409: Problem.describe('job-not-done'),
+        422: Problem.describe('job-not-comparable'),
+        503: unavailable,
+      },
+    },
+  }, async (request, reply) => {
+    const job = await find(request, request.params.id);
+    if (!job.compareTo) throw new ProblemError('job-not-comparable', `job ${job.id} was submitted without compareTo`);
+    if (job.status !== 'done') throw new ProblemError('job-not-done', `job ${job.id} is ${job.status}; changes are listed once it is done`, { headers: { 'retry-after': String(RESULTS_RETRY_AFTER_S) } });
+    const compare = job.compareTo;
+    const earlier = await queued(queue.get(compare.job));
+    if (!earlier || earlier.owner !== job.owner) throw new ProblemError('job-not-comparable', `the earlier job ${compare.job} has expired`);
+    // The earlier job's item ids -> line index (the first line with that id), read from the line heads.
+    const byId = new Map<string, number>();
+    let i = 0;
+    for await (const line of queue.results(earlier.id)) {
+      const id = lineId(line);
+      if (id !== null && !byId.has(id)) byId.set(id, i);
+      i++;
+    }
+    async function* changes(): AsyncGenerator<Buffer> {
+      for await (const raw of queue.results(job.id)) {
+        const after = JSON.parse(raw.toString('utf8')) as BatchLine;
+        const at = after.id === null ? undefined : byId.get(after.id);
+        const old = at === undefined ? undefined : await queue.line(earlier!.id, at);
+        const before = old ? (JSON.parse(old.toString('utf8')) as BatchLine) : undefined;
+        yield Buffer.from(`${JSON.stringify(itemChanges(after, before, compare))}\n`);
+      }
+    }
+    return sendNdjson(reply.header('cache-control', 'no-store'), changes());
   });
 };
 export default jobs;

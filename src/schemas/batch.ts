@@ -59,14 +59,22 @@ export const BatchLine = z
   .describe(`One line of the ${NDJSON_MEDIA_TYPE} answer: one per item, in input order, each a JSON object ending with a newline`);
 export type BatchLine = z.output<typeof BatchLine>;
 
-export const JobStatus = z.enum(['queued', 'running', 'done', 'failed'])
-  .describe('queued: waiting for a worker; running: items being solved; done: every item has its line (items may have failed: see counts.failed); failed: the job as a whole could not run (see error)');
+export const JobStatus = z.enum(['queued', 'running', 'done', 'failed', 'cancelled'])
+  .describe('queued: waiting for a worker; running: items being solved; done: every item has its line (items may have failed: see counts.failed); ' +
+    'failed: the job as a whole could not run or missed its deadline (see error; kept, like every finished job, for JOB_RESULT_TTL_S: the dead letters); ' +
+    'cancelled: DELETE /v1/jobs/{id} stopped it (the lines written before stay readable)');
 export type JobStatus = z.output<typeof JobStatus>;
+
+export const IDEMPOTENCY_KEY_PATTERN = /^[\x21-\x7e]{1,200}$/;
 
 export const JobRequest = z
   .object({
     label: z.string().min(1).max(200).optional().describe('Your name for the job, echoed in its status'),
     items: itemsField,
+    deadline: z.iso.datetime({ offset: false }).optional().describe('ISO 8601 UTC: a job not done by then stops and fails with the reason "deadline" (the lines written stay readable by index); at most JOB_MAX_DEADLINE_S ahead'),
+    compareTo: z.string().min(1).max(100).optional().describe('The id of an earlier job of yours: GET /v1/jobs/{id}/changes then lists, item by item (matched by item id), what moved since that job'),
+    thresholdSeconds: z.number().min(0).max(86_400).default(1).describe('With compareTo: a pass whose AOS, LOS or TCA moved by more than this, seconds, is reported as moved'),
+    thresholdDegrees: z.number().min(0).max(90).default(0.1).describe('With compareTo: a pass whose maximum elevation changed by more than this, degrees, is reported as moved'),
   })
   .strict()
   .meta({ description: 'A batch to run later: the same items as POST /v1/batch', examples: [{ label: 'nightly recalculation', items: DEMO_ITEMS }] });
@@ -75,13 +83,14 @@ export type JobRequest = z.output<typeof JobRequest>;
 export const JobId = z.string().min(1).max(100).describe('The job id (a UUID)');
 
 export const JobLinks = z.object({
-  self: z.string().describe('GET: the job status'),
+  self: z.string().describe('GET: the job status; DELETE: cancel it'),
   results: z.string().describe('GET: the NDJSON results once the job is done'),
+  changes: z.string().describe('GET: with compareTo, what moved since the earlier job (NDJSON)'),
 });
 
 export const JobAccepted = z.object({
   id: JobId,
-  status: z.literal('queued'),
+  status: JobStatus.describe('queued for a new job; with a repeated Idempotency-Key, the status of the job stored first'),
   links: JobLinks,
 });
 
@@ -94,11 +103,27 @@ export const JobAnswer = z.object({
     done: z.number().int().describe('Items whose line is written (answered or failed)'),
     failed: z.number().int().describe('Of those, items whose line carries a problem'),
   }),
-  attempts: z.number().int().describe('Times a worker took the job (more than 1 after a worker stopped under it; the job resumes after the lines already stored)'),
+  progress: z.object({
+    fraction: z.number().min(0).max(1).describe('counts.done / counts.items'),
+    estimatedFinishAt: z.string().nullable().describe('While running: now plus the items left at the rate seen since startedAt, ISO 8601 UTC (an estimate); null otherwise'),
+  }),
+  attempts: z.number().int().describe('Times a worker took the job (more than 1 after a worker stopped under it or a retry; the job resumes after the lines already stored)'),
   createdAt: z.string().describe('Submission time, ISO 8601 UTC'),
   startedAt: z.string().nullable().describe('When a worker first took it, ISO 8601 UTC; null while queued'),
-  finishedAt: z.string().nullable().describe('When it became done or failed, ISO 8601 UTC; null before'),
-  error: z.string().nullable().describe('Why a failed job failed; null otherwise'),
+  finishedAt: z.string().nullable().describe('When it became done, failed or cancelled, ISO 8601 UTC; null before'),
+  deadline: z.string().nullable().describe('The deadline given at submission, or null'),
+  compareTo: z.string().nullable().describe('The earlier job compared with, or null'),
+  error: z.string().nullable().describe('Why a failed or cancelled job stopped; null otherwise'),
   links: JobLinks,
 });
 export type JobAnswer = z.output<typeof JobAnswer>;
+
+export const JobList = z.object({
+  jobs: z.array(JobAnswer).describe('Your jobs, newest first'),
+  next: z.string().nullable().describe('Cursor of the next (older) page: GET /v1/jobs?cursor=...; null on the last page'),
+});
+
+export const JobListQuery = z.object({
+  limit: z.coerce.number().int().min(1).max(100).default(20).describe('Jobs per page (1 to 100, default 20)'),
+  cursor: z.string().regex(/^[0-9]{1,15}$/).optional().describe('The `next` of the previous page'),
+}).strict();
