@@ -8,6 +8,7 @@ import { failure, success, type Outcome } from '../solver/core/result.js';
 import type { Vec3 } from '../solver/core/vec3.js';
 import { END_OF_SUPPORTED_RANGE_TT, formatUtcIso } from '../solver/time/time.js';
 import type { OrbitAnswer, OrbitInputFields } from '../schemas/orbit.js';
+import type { OrbitPlaneInput } from '../formats/svg/orbit-plane.js';
 import { describeBody } from './body.js';
 import { epochTT } from './epoch.js';
 
@@ -105,5 +106,23 @@ export function toOrbitAnswer(s: OrbitSolution, body: CentralBody, epoch: number
         sunSynchronousInclination: s.j2.sunSynchronousInclination === null ? null : deg(s.j2.sunSynchronousInclination),
       }
       : null,
+  };
+}
+
+/** What the orbit plot draws, from the answer (API units: km, degrees). */
+export function orbitPlotInput(answer: OrbitAnswer): OrbitPlaneInput {
+  const el = answer.elements;
+  return {
+    bodyName: answer.centralBody.name,
+    bodyRadius: answer.centralBody.radius,
+    orbitType: answer.orbitType,
+    eccentricity: el.eccentricity,
+    semiLatusRectum: el.semiLatusRectum,
+    argPeriapsis: el.argPeriapsis,
+    trueAnomaly: el.trueAnomaly,
+    inclination: el.inclination,
+    raanDefined: el.raanDefined,
+    periapsisRadius: answer.apsides.periapsis.radius,
+    apoapsisRadius: answer.apsides.apoapsis?.radius ?? null,
   };
 }

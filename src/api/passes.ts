@@ -8,7 +8,7 @@ import { propagateTrack } from '../solver/propagation/track.js';
 import type { Pass, PassSearchResult, PassStation } from '../solver/stations/passes.js';
 import { dopplerShift } from '../solver/stations/topocentric.js';
 import { formatUtcIso } from '../solver/time/time.js';
-import type { GroundStation, PassesAnswer, PassesRequest } from '../schemas/passes.js';
+import { SVG_POINTING_BUDGET_S, SVG_POINTING_STEP_S, type GroundStation, type PassesAnswer, type PassesRequest } from '../schemas/passes.js';
 import type { PassesJob } from '../workers/jobs.js';
 import { epochTT } from './epoch.js';
 
@@ -55,7 +55,7 @@ export function toPassAnswer(p: Pass, carrierFrequencyHz: number | undefined): P
 }
 
 /** The worker job of a validated pass request; refuses a reversed window and (analytic models) a trajectory that meets the body within it. */
-export function passSearchJob(req: PassesRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }): PassesJob {
+export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, forPlots = false): PassesJob {
   const [startTT, stopTT] = [epochTT(req.window.start), epochTT(req.window.stop)];
   if (!(stopTT > startTT)) throw new ProblemError('validation-failed', 'the window stop must be after its start', { errors: [{ path: 'body.window.stop', message: 'must be after start' }] });
   const spec = { body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT };
@@ -64,18 +64,21 @@ export function passSearchJob(req: PassesRequest, body: CentralBody, start: { r:
     const surface = propagateTrack({ ...spec, epochsTT: Float64Array.of(startTT, stopTT) });
     if (!surface.ok) throw solverProblem(surface);
   }
+  // The sky plots need a pointing track: without one asked they use their own step, longer for long searches.
+  const plotStepS = SVG_POINTING_STEP_S * Math.max(1, Math.ceil(((stopTT - startTT) * req.stations.length) / SVG_POINTING_BUDGET_S));
+  const pointingStepS = req.pointing?.step ?? (forPlots ? plotStepS : undefined);
   return {
     kind: 'passes',
     spec,
     startTT,
     stopTT,
     stations: req.stations.map(stationForSearch),
-    options: { dut1: req.ut1MinusUtc, gm: body.gm, ...(req.pointing ? { pointingStepS: req.pointing.step } : {}) },
+    options: { dut1: req.ut1MinusUtc, gm: body.gm, ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
   };
 }
 
 /** The /v1/passes answer for a finished search. */
-export function toPassesAnswer(req: PassesRequest, hash: string, found: PassSearchResult): PassesAnswer {
+export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string, found: PassSearchResult): PassesAnswer {
   return {
     scenarioHash: hash,
     model: req.model,

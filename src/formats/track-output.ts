@@ -3,6 +3,8 @@
 import { ProblemError } from '../errors.js';
 import { columnCsvChunks, csvChunks, CSV_MEDIA_TYPE } from './csv.js';
 import { GEOJSON_MEDIA_TYPE, groundTrackGeoJson } from './geojson.js';
+import { groundTrackSvg, SVG_MEDIA_TYPE } from './svg/index.js';
+import { formatUtcIso } from '../solver/time/time.js';
 import { oemChunks, OEM_MEDIA_TYPE } from './oem.js';
 import type { Product } from './product.js';
 import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from './track-json.js';
@@ -13,6 +15,7 @@ export const TRACK_FORMATS = [
   ['csv', 'text/csv'],
   ['oem', 'text/plain'],
   ['geojson', 'application/geo+json'],
+  ['svg', 'image/svg+xml'],
 ] as const;
 export type TrackFormat = (typeof TRACK_FORMATS)[number][0];
 export const TRACK_FRAMES = ['gcrf', 'itrf', 'geodetic'] as const;
@@ -20,17 +23,21 @@ export type TrackFrame = (typeof TRACK_FRAMES)[number];
 
 /** What the states must be converted to before formatting. */
 export interface TrackNeeds {
-  /** Earth-fixed (ITRF) states: frame itrf or geodetic, or a GeoJSON ground track. */
+  /** Earth-fixed (ITRF) states: frame itrf or geodetic, or a ground track (GeoJSON, SVG map). */
   readonly earthFixed: boolean;
-  /** WGS-84 latitude, longitude, height: frame geodetic, or a GeoJSON ground track. */
+  /** WGS-84 latitude, longitude, height: frame geodetic, or a ground track (GeoJSON, SVG map). */
   readonly geodetic: boolean;
 }
 
+/** Formats that carry the ground track (latitude, longitude) whatever the frame. */
+const isGroundTrack = (format: TrackFormat): boolean => format === 'geojson' || format === 'svg';
+
 /** The conversions a (format, frame) needs; refuses the combinations no format can carry. */
 export function trackNeeds(format: TrackFormat, frame: TrackFrame, builtInEarth: boolean): TrackNeeds {
-  const needs = { earthFixed: frame !== 'gcrf' || format === 'geojson', geodetic: frame === 'geodetic' || format === 'geojson' };
+  const ground = isGroundTrack(format);
+  const needs = { earthFixed: frame !== 'gcrf' || ground, geodetic: frame === 'geodetic' || ground };
   if (needs.earthFixed && !builtInEarth) {
-    throw new ProblemError('unsupported-frame', `frame ${frame}${format === 'geojson' ? ' and GeoJSON' : ''} need the built-in centralBody "earth"`);
+    throw new ProblemError('unsupported-frame', `frame ${frame}${ground ? ` and ${format === 'svg' ? 'the SVG map' : 'GeoJSON'}` : ''} need the built-in centralBody "earth"`);
   }
   if (format === 'oem' && frame === 'geodetic') {
     throw new ProblemError('unsupported-frame', 'an OEM carries Cartesian states: choose frame gcrf or itrf');
@@ -76,13 +83,16 @@ export interface TrackProductInput {
 /** The track in its format; refuses (422) states that cannot be printed before anything is streamed. */
 export function trackProduct(t: TrackProductInput): Product {
   assertPrintable(t.states);
-  const geodetic = t.frame === 'geodetic' || t.format === 'geojson';
+  const geodetic = t.frame === 'geodetic' || isGroundTrack(t.format);
   if (geodetic) {
     const g = t.geodeticDeg;
     if (g === null) throw new Error('a geodetic track product needs geodetic coordinates'); // programmer error
-    if (t.format === 'geojson') {
+    if (isGroundTrack(t.format)) {
       const samples = Array.from(t.epochsTT, (tt, i) => ({ tt, latitudeDeg: g[3 * i]!, longitudeDeg: g[3 * i + 1]!, heightKm: g[3 * i + 2]! }));
-      return { contentType: GEOJSON_MEDIA_TYPE, chunks: groundTrackGeoJson(samples, { name: t.object.name, includeHeight: true }) };
+      if (t.format === 'geojson') return { contentType: GEOJSON_MEDIA_TYPE, chunks: groundTrackGeoJson(samples, { name: t.object.name, includeHeight: true }) };
+      const label = (tt: number): string => `${formatUtcIso(tt).slice(0, 16).replace('T', ' ')}Z`;
+      const n = t.epochsTT.length;
+      return { contentType: SVG_MEDIA_TYPE, chunks: [groundTrackSvg(samples, { name: t.object.name, startLabel: label(t.epochsTT[0]!), endLabel: label(t.epochsTT[n - 1]!) })] };
     }
     if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: columnCsvChunks(t.epochsTT, g, GEODETIC_CSV) };
     return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(t.head, t.epochsTT, g, GEODETIC_FIELDS) };

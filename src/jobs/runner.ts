@@ -101,7 +101,7 @@ export async function runItem(app: FastifyInstance, item: BatchItem, index: numb
       return localProblem(index, item, opts, 'too-many-samples', `the track has ${samples} samples; inside a batch the maximum is ${opts.maxTrackSamples} (BATCH_MAX_TRACK_SAMPLES): send it to /v1/${item.kind} alone for up to MAX_TRACK_SAMPLES`);
     }
     const format = item.request.format;
-    if ((item.kind === 'track' || item.kind === 'central-force') && typeof format === 'string' && format !== 'json') {
+    if (typeof format === 'string' && format !== 'json') {
       return localProblem(index, item, opts, 'not-acceptable', `answers inside a batch are JSON; format "${format}" is available from /v1/${item.kind} alone`);
     }
     // A track without a format is asked for JSON explicitly (the same scenario hash as Accept: application/json).

@@ -3,7 +3,7 @@
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
 import { ProblemError, solverProblem } from '../errors.js';
-import { effectivePotentialSvg } from '../formats/svg.js';
+import { centralForceSvg } from '../formats/svg/index.js';
 import { jsonAnswer } from '../plugins/answers.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { centralForceProblem, toCentralForceAnswer } from '../api/central-force.js';
@@ -28,7 +28,7 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
           description: 'The analysis (JSON) or its plot (SVG)',
           content: {
             'application/json': { schema: CentralForceAnswer },
-            'image/svg+xml': { schema: z.string().describe('Standalone SVG plot of U_eff(r), U(r), the energy level, turning points and circular orbits') },
+            'image/svg+xml': { schema: z.string().describe('Standalone SVG: U_eff(r), U(r), the energy level, turning points and circular orbits; with a track, also the path r(phi) in the plane') },
           },
         },
         ...problemResponses,
@@ -44,7 +44,7 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
       const problem = centralForceProblem(req);
       if (!problem.ok) throw solverProblem(problem);
       const max = app.config.MAX_TRACK_SAMPLES;
-      // One job: the analysis, then the track when the answer carries one (JSON, within the sample
+      // One job: the analysis, then the track when one was asked (within the sample
       // limit). A job with a track runs on a worker thread. Failures are reported in the order
       // below: analysis, then the sample limit, then the track.
       const solved = await app.pool.solve({
@@ -55,7 +55,7 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
           ...(req.rMin !== undefined ? { rMin: req.rMin } : {}),
           ...(req.rMax !== undefined ? { rMax: req.rMax } : {}),
         },
-        track: track && format === 'json' && track.samples <= max
+        track: track && track.samples <= max
           ? { samples: track.samples, start: track.start, ...(track.periods !== undefined ? { periods: track.periods } : { duration: track.duration! }) }
           : null,
       });
@@ -64,7 +64,6 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
 
       if (format === 'svg') {
         if (analysis.value.effectivePotential.length < 2 || firstNonFinite(analysis.value) !== null) throw new ProblemError('invalid-parameter', OVERFLOW);
-        return { body: Buffer.from(effectivePotentialSvg(analysis.value, { units: req.units })), contentType: SVG_MEDIA_TYPE };
       }
 
       let solvedTrack = null;
@@ -74,6 +73,10 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
         if (run === null) throw new Error('the central-force job returned no track although one was asked');
         if (!run.ok) throw solverProblem(run);
         solvedTrack = { start: track.start, value: run.value };
+      }
+      if (format === 'svg') {
+        const path = solvedTrack && { ...solvedTrack.value, periapsis: analysis.value.periapsis, apoapsis: analysis.value.apoapsis };
+        return { body: Buffer.from(centralForceSvg(problem.value.terms, analysis.value, path, { units: req.units })), contentType: SVG_MEDIA_TYPE };
       }
       const answer = toCentralForceAnswer(analysis.value, solvedTrack, req.units, hash);
       const bad = firstNonFinite(answer);

@@ -1,29 +1,46 @@
 // POST /v1/orbit: elements, apsides, period and conserved quantities of an orbit.
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { solverProblem } from '../errors.js';
+import { z } from 'zod';
+import { orbitSvg, SVG_MEDIA_TYPE } from '../formats/svg/index.js';
 import { jsonAnswer } from '../plugins/answers.js';
+import { chooseFormat } from '../plugins/negotiate.js';
 import { problemResponses } from '../schemas/common.js';
 import { resolveBody } from '../api/body.js';
-import { orbitSolverInput, toOrbitAnswer } from '../api/orbit.js';
-import { OrbitAnswer, OrbitRequest } from '../schemas/orbit.js';
+import { orbitPlotInput, orbitSolverInput, toOrbitAnswer } from '../api/orbit.js';
+import { OrbitAnswer, OrbitRequest, PLOT_FORMATS } from '../schemas/orbit.js';
 import { solveOrbit } from '../solver/conic/orbit.js';
 
 const orbit: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/orbit', {
     schema: {
       tags: ['orbits'],
-      summary: 'Solve an orbit: elements, apsides, period, energy, angular momentum, J2 rates',
+      summary: 'Solve an orbit: elements, apsides, period, energy, angular momentum, J2 rates (JSON or SVG)',
       body: OrbitRequest,
-      response: { 200: OrbitAnswer, ...problemResponses },
+      response: {
+        200: {
+          description: 'The orbit (JSON) or its plot (SVG)',
+          content: {
+            'application/json': { schema: OrbitAnswer },
+            'image/svg+xml': { schema: z.string().describe('Standalone SVG: the orbit in its plane with the body to scale, periapsis, apoapsis, line of nodes and the position at the epoch') },
+          },
+        },
+        ...problemResponses,
+      },
     },
-  }, async (request, reply) =>
-    app.answers.respond(request, reply, 'orbit', request.body, (hash) => {
-      const body = resolveBody(request.body.centralBody);
-      const { epochTT, input } = orbitSolverInput(request.body);
+  }, async (request, reply) => {
+    const { format: asked, ...req } = request.body;
+    const format = chooseFormat(request, asked, PLOT_FORMATS);
+    // JSON answers keep the scenario (and hash) they had before the format field existed.
+    const scenario = format === 'json' ? req : { ...req, format };
+    return app.answers.respond(request, reply, 'orbit', scenario, (hash) => {
+      const body = resolveBody(req.centralBody);
+      const { epochTT, input } = orbitSolverInput(req);
       const solved = solveOrbit(body, input);
       if (!solved.ok) throw solverProblem(solved);
-      return jsonAnswer(toOrbitAnswer(solved.value, body, epochTT, hash));
-    }),
-  );
+      const answer = toOrbitAnswer(solved.value, body, epochTT, hash);
+      return format === 'json' ? jsonAnswer(answer) : { contentType: SVG_MEDIA_TYPE, body: Buffer.from(orbitSvg(orbitPlotInput(answer))) };
+    });
+  });
 };
 export default orbit;

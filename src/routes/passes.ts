@@ -1,36 +1,53 @@
 // POST /v1/passes: when a spacecraft rises and sets over each ground station, and where to point.
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { ProblemError, solverProblem } from '../errors.js';
+import { z } from 'zod';
+import { passesSvg, SVG_MEDIA_TYPE } from '../formats/svg/index.js';
 import { jsonAnswer } from '../plugins/answers.js';
+import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
 import { initialState } from '../api/orbit.js';
 import { passSearchJob, toPassesAnswer } from '../api/passes.js';
 import { problemResponses } from '../schemas/common.js';
 import { PassesAnswer, PassesRequest } from '../schemas/passes.js';
+import { PLOT_FORMATS } from '../schemas/orbit.js';
 
 const passes: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/passes', {
     schema: {
       tags: ['orbits'],
-      summary: 'Ground-station passes: AOS, TCA, LOS, maximum elevation, azimuths, optional pointing and Doppler',
+      summary: 'Ground-station passes: AOS, TCA, LOS, maximum elevation, azimuths, optional pointing and Doppler (JSON or SVG)',
       description: 'Searches the window for every interval in which the spacecraft is above each station\'s elevation limit and horizon mask. ' +
         'AOS/LOS are refined to better than 0.1 s and TCA by maximisation. Geometric elevation (no refraction). ' +
         'Pass predictions do not grant a licence to transmit: radio transmission needs licensing and frequency coordination.',
       body: PassesRequest,
-      response: { 200: PassesAnswer, ...problemResponses },
+      response: {
+        200: {
+          description: 'The passes (JSON) or their plots (SVG)',
+          content: {
+            'application/json': { schema: PassesAnswer },
+            'image/svg+xml': { schema: z.string().describe('Standalone SVG: a timeline of the passes by station, then a sky plot per station (radius 90 - elevation) with the horizon mask, AOS, TCA and LOS') },
+          },
+        },
+        ...problemResponses,
+      },
     },
   }, async (request, reply) => {
-    const req = request.body;
+    const { format: asked, ...req } = request.body;
+    const format = chooseFormat(request, asked, PLOT_FORMATS);
     if (req.centralBody !== 'earth') throw new ProblemError('unsupported-frame', 'ground-station passes need the built-in centralBody "earth"');
-    return app.answers.respond(request, reply, 'passes', req, async (hash) => {
+    // JSON answers keep the scenario (and hash) they had before the format field existed.
+    const scenario = format === 'json' ? req : { ...req, format };
+    return app.answers.respond(request, reply, 'passes', scenario, async (hash) => {
       const body = resolveBody(req.centralBody);
       const start = initialState(body, req);
       if (!start.ok) throw solverProblem(start);
       // The search runs on a worker thread unless the window and station list are small; the
       // propagator is rebuilt there from this state.
-      const found = await app.pool.solve(passSearchJob(req, body, start.value));
+      const found = await app.pool.solve(passSearchJob(req, body, start.value, format === 'svg'));
       if (!found.ok) throw solverProblem(found);
-      return jsonAnswer(toPassesAnswer(req, hash, found.value));
+      const answer = toPassesAnswer(req, hash, found.value);
+      return format === 'json' ? jsonAnswer(answer) : { contentType: SVG_MEDIA_TYPE, body: Buffer.from(passesSvg(answer.window, req.stations, answer.passes)) };
     });
   });
 };

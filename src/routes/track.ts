@@ -1,4 +1,4 @@
-// POST /v1/track: an orbit propagated over a time grid; JSON, CSV, CCSDS OEM or GeoJSON, streamed.
+// POST /v1/track: an orbit propagated over a time grid; JSON, CSV, CCSDS OEM, GeoJSON or an SVG map, streamed.
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
 import { solverProblem } from '../errors.js';
@@ -15,7 +15,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/track', {
     schema: {
       tags: ['orbits'],
-      summary: 'Propagate an orbit over a time grid (JSON, CSV, CCSDS OEM or GeoJSON)',
+      summary: 'Propagate an orbit over a time grid (JSON, CSV, CCSDS OEM, GeoJSON ground track or SVG ground-track map)',
       description: 'Samples the orbit at each epoch of the grid with the chosen model and reports conservation diagnostics. ' +
         `Answers stream; at most MAX_TRACK_SAMPLES samples (default 100000), beyond that a 422 names the maximum. ` +
         'Accuracy degrades with the propagation span and the model chosen: two-body ignores every perturbation.',
@@ -28,6 +28,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
             'text/csv': { schema: z.string().describe('RFC 4180 CSV: epoch_utc,x_km,y_km,z_km,vx_km_s,vy_km_s,vz_km_s') },
             'text/plain': { schema: z.string().describe('CCSDS 502.0-B-3 Orbit Ephemeris Message (KVN)') },
             'application/geo+json': { schema: z.string().describe('RFC 7946 FeatureCollection: the WGS-84 ground track, a LineString or a MultiLineString split at the antimeridian; height in metres') },
+            'image/svg+xml': { schema: z.string().describe('Standalone SVG: the ground track on an equirectangular world map (Natural Earth coastlines), split at the antimeridian, start and end marked') },
           },
         },
         ...problemResponses,

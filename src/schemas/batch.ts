@@ -17,7 +17,7 @@ export const BatchItem = z
     kind: z.enum(BATCH_KINDS).describe('Which endpoint answers the item: orbit -> POST /v1/orbit, two-body, central-force, track, passes likewise'),
     request: z.record(z.string(), z.unknown()).describe(
       'The JSON body of that endpoint, exactly as it would be sent alone (same fields, units and defaults). It is validated when the item runs: ' +
-      'an invalid request becomes that line\'s 400 problem. Answers inside a batch are JSON: a track or central-force request with another format answers 406 not-acceptable. ' +
+      'an invalid request becomes that line\'s 400 problem. Answers inside a batch are JSON: a request with another format (csv, oem, geojson, svg) answers 406 not-acceptable. ' +
       'Tracks (track grid, two-body track grid, central-force track samples) hold at most BATCH_MAX_TRACK_SAMPLES samples (default 10000), else 422 too-many-samples'),
   })
   .strict()

@@ -15,7 +15,7 @@ export const CENTRAL_FORCE_FORMATS = [
 ] as const;
 export type CentralForceFormat = (typeof CENTRAL_FORCE_FORMATS)[number][0];
 
-export const SVG_MEDIA_TYPE = 'image/svg+xml; charset=utf-8';
+export { SVG_MEDIA_TYPE } from '../formats/svg/common.js';
 export const DEFAULT_TRACK_SAMPLES = 201;
 export const DEFAULT_UNIT_LABEL = 'consistent units';
 
@@ -92,7 +92,7 @@ export const RadialTrackInput = z
   .superRefine((t, ctx) => {
     if ((t.periods === undefined) === (t.duration === undefined)) ctx.addIssue({ code: 'custom', path: ['periods'], message: 'give exactly one of periods and duration' });
   })
-  .describe('Ask for r(t), phi(t) integrated from the radial equation m r\'\' = -dU_eff/dr with phi\' = l / (m r^2); the JSON answer then carries it (ignored by the SVG answer)');
+  .describe('Ask for r(t), phi(t) integrated from the radial equation m r\'\' = -dU_eff/dr with phi\' = l / (m r^2); the JSON answer then carries it, the SVG answer adds the path r(phi) in the plane');
 
 export const UnitLabels = z
   .object({
@@ -127,7 +127,7 @@ export const CentralForceRequest = z
     rMax: z.number().positive().optional().describe('Largest sampled radius, length unit (default: chosen around the turning points and circular orbits)'),
     track: RadialTrackInput.optional(),
     format: z.enum(CENTRAL_FORCE_FORMATS.map(([f]) => f) as [CentralForceFormat, ...CentralForceFormat[]]).optional()
-      .describe('json (the analysis) | svg (a plot of U_eff, U, the energy level, turning points and circular orbits). Without it the Accept header chooses (application/json, image/svg+xml); default json'),
+      .describe('json (the analysis) | svg (a plot of U_eff, U, the energy level, turning points and circular orbits; with a track, the path r(phi)). Without it the Accept header chooses (application/json, image/svg+xml); default json'),
     units: UnitLabels,
   })
   .strict()

@@ -57,8 +57,17 @@ export function requireOneOrbitInput(req: { state?: unknown; elements?: unknown 
 
 export const DEMO_ELEMENTS = { epoch: DEMO_EPOCH, semiMajorAxis: 6928.137, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, trueAnomaly: 10 };
 
+/** Answer formats of /v1/orbit and /v1/passes: the numbers, or their plots. */
+export const PLOT_FORMATS = [
+  ['json', 'application/json'],
+  ['svg', 'image/svg+xml'],
+] as const;
+export type PlotFormat = (typeof PLOT_FORMATS)[number][0];
+export const plotFormatField = (plots: string) => z.enum(['json', 'svg']).optional()
+  .describe(`json (the numbers) | svg (${plots}). Without it the Accept header chooses (application/json, image/svg+xml); default json`);
+
 export const OrbitRequest = z
-  .object(orbitFields)
+  .object({ ...orbitFields, format: plotFormatField('the orbit in its plane, to scale with the body: periapsis, apoapsis, line of nodes, position at the epoch') })
   .strict()
   .superRefine(requireOneOrbitInput)
   .meta({

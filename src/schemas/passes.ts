@@ -5,7 +5,12 @@ import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTIN
 import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { DEMO_EPOCH, Epoch, EpochOut } from './common.js';
 import { modelFields } from './forces.js';
-import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
+import { DEMO_ELEMENTS, orbitFields, plotFormatField, requireOneOrbitInput } from './orbit.js';
+
+/** Pointing step of the sky plots when the request asks for no pointing track, s. */
+export const SVG_POINTING_STEP_S = 20;
+/** Window length times station count (s) beyond which that step grows: the sky plots stay below MAX_POINTING_SAMPLES. */
+export const SVG_POINTING_BUDGET_S = 8_000_000;
 
 const MaskPoint = z
   .object({
@@ -42,6 +47,7 @@ export const PassesRequest = z
       .optional()
       .describe('Ask for an antenna pointing track of each pass'),
     ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (0 when not given: up to ~0.4 km of along-track error on the ground)'),
+    format: plotFormatField(`a timeline of the passes by station, and a sky plot per station with the horizon mask and AOS/TCA/LOS; without pointing the plot uses a pointing step of ${SVG_POINTING_STEP_S} s, longer when the window times the stations exceeds ${SVG_POINTING_BUDGET_S} s`),
   })
   .strict()
   .superRefine(requireOneOrbitInput)

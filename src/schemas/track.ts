@@ -1,4 +1,4 @@
-// POST /v1/track: an orbit propagated over a time grid, in JSON, CSV, CCSDS OEM or GeoJSON (mapping: src/api/track.ts).
+// POST /v1/track: an orbit propagated over a time grid, in JSON, CSV, CCSDS OEM, GeoJSON or an SVG map (mapping: src/api/track.ts).
 import { z } from 'zod';
 import { TRACK_FORMATS, TRACK_FRAMES, type TrackFormat } from '../formats/track-output.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
@@ -26,8 +26,8 @@ export const TrackRequest = z
       'geodetic (WGS-84 latitude and longitude in deg, height in km). itrf and geodetic need centralBody earth'),
     ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (IERS Bulletin A); 0 when not given, which costs up to ~0.4 km along-track in Earth-fixed frames'),
     format: z.enum(TRACK_FORMATS.map(([f]) => f) as [TrackFormat, ...TrackFormat[]]).optional()
-      .describe('json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN; gcrf or itrf) | geojson (RFC 7946 ground track on WGS-84, split at the antimeridian; earth only, whatever the frame). ' +
-        'Without it the Accept header chooses (application/json, text/csv, text/plain for OEM, application/geo+json); default json'),
+      .describe('json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN; gcrf or itrf) | geojson (RFC 7946 ground track on WGS-84, split at the antimeridian; earth only, whatever the frame) | svg (the ground track on a world map; earth only, whatever the frame). ' +
+        'Without it the Accept header chooses (application/json, text/csv, text/plain for OEM, application/geo+json, image/svg+xml); default json'),
     object: ObjectLabel.describe('Labels for the exported track'),
     passThroughBody: z.boolean().default(false).describe('Propagate as a point mass even below the body radius; by default a track that meets the body is refused (422 impact)'),
   })

@@ -164,7 +164,7 @@ describe('POST /v1/central-force: formats', () => {
     expect(res.body.startsWith('<svg xmlns="http://www.w3.org/2000/svg"')).toBe(true);
     expect(res.body.trimEnd().endsWith('</svg>')).toBe(true);
     expect(res.body).toContain('>r (AU)</text>');
-    expect(res.body).toContain('>U_eff (J)</text>');
+    expect(res.body).toContain('>energy (J)</text>');
     expect(res.body).not.toMatch(/NaN|Infinity|undefined/);
   });
 
@@ -180,7 +180,7 @@ describe('POST /v1/central-force: formats', () => {
   it('the default plot labels its axes "consistent units"; without format or Accept the answer is JSON', async () => {
     const svg = await postJson(app, URL, { ...kepler, format: 'svg' });
     expect(svg.body).toContain('>r (consistent units)</text>');
-    expect(svg.body).toContain('>U_eff (consistent units)</text>');
+    expect(svg.body).toContain('>energy (consistent units)</text>');
     const json = await postJson(app, URL, kepler);
     expect(json.headers['content-type']).toMatch(/^application\/json/);
     const anyType = await postJson(app, URL, kepler, { accept: '*/*' });
