@@ -14,6 +14,11 @@ export default tseslint.config(
     },
   },
   {
+    // The scenario page runs in the browser.
+    files: ['public/**/*.js'],
+    languageOptions: { globals: { ...globals.browser } },
+  },
+  {
     // The solver is pure math: no HTTP, schemas, caches or Node built-ins.
     files: ['src/solver/**/*.ts'],
     rules: {

@@ -11,6 +11,7 @@ import openapi from './plugins/openapi.js';
 import answers from './plugins/answers.js';
 import metrics from './plugins/metrics.js';
 import pool from './plugins/pool.js';
+import page from './plugins/page.js';
 import health from './routes/health.js';
 import bodies from './routes/bodies.js';
 import orbit from './routes/orbit.js';
@@ -75,6 +76,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   await app.register(pool);
   await app.register(metrics);
 
+  await app.register(page);
   await app.register(health);
   await app.register(bodies);
   await app.register(orbit);
