@@ -5,7 +5,7 @@
 
 import { brentRoot } from '../numerics/brent.js';
 import { TWO_PI } from '../core/math.js';
-import { failure, success, type Outcome } from '../core/result.js';
+import { failure, success, type Failure, type Outcome } from '../core/result.js';
 import {
   effectiveIncrement,
   effectiveLimits,
@@ -431,11 +431,11 @@ function sampleRadii(
  * Failures: 'invalid-parameter', 'energy-below-minimum' (no r with E >= U_eff),
  * 'no-convergence' (quadrature, e.g. E at the top of a barrier).
  */
-export function analyseCentralForce(p: CentralForceProblem, opts: AnalysisOptions = {}): Outcome<CentralForceAnalysis> {
+/** The checks of a problem and its options that the schema cannot make; null when all pass. */
+function invalidInput(p: CentralForceProblem, opts: AnalysisOptions): Failure | null {
   const checked = checkSystem(p.mass, p.terms);
   if (!checked.ok) return checked;
-  const { mass, energy: E, angularMomentum: l } = p;
-  if (!isFin(l) || !isFin(E)) return failure('invalid-parameter', 'angular momentum and energy must be finite');
+  if (!isFin(p.angularMomentum) || !isFin(p.energy)) return failure('invalid-parameter', 'angular momentum and energy must be finite');
   const count = opts.samples ?? DEFAULT_SAMPLES;
   if (!Number.isInteger(count) || count < 2 || count > MAX_SAMPLES) return failure('invalid-parameter', `samples must be an integer in 2..${MAX_SAMPLES}`);
   for (const [name, v] of [['rMin', opts.rMin], ['rMax', opts.rMax]] as const) {
@@ -443,15 +443,17 @@ export function analyseCentralForce(p: CentralForceProblem, opts: AnalysisOption
   }
   if (opts.rMin !== undefined && opts.rMax !== undefined && !(opts.rMax > opts.rMin)) return failure('invalid-parameter', 'rMax must exceed rMin');
   if (p.initial && !(p.initial.radius > 0 && isFin(p.initial.radius) && isFin(p.initial.radialVelocity))) return failure('invalid-parameter', 'initial radius must be positive and finite');
+  return null;
+}
 
-  const sys: RadialSystem = { terms: p.terms, mass, angularMomentum: l };
+/** Where E - U_eff changes sign or touches zero, from r = 0 to infinity, and the regions where E >= U_eff. */
+function regionsOf(sys: RadialSystem, E: number, initial: CentralForceProblem['initial']) {
   const F = (r: number): number => E - effectivePotential(sys, r).value;
   const scales = lengthScales(sys, E);
-  if (p.initial) scales.push(p.initial.radius);
+  if (initial) scales.push(initial.radius);
   const { grid, lo, hi } = searchGrid(sys, scales);
   const extrema = findExtrema(sys, grid);
   const limits = effectiveLimits(sys);
-
   const nodes: Node[] = [
     { r: 0, f: E - limits.atZero },
     { r: lo, f: F(lo) },
@@ -473,14 +475,13 @@ export function analyseCentralForce(p: CentralForceProblem, opts: AnalysisOption
       if (root !== null) breaks.push({ r: root });
     }
   }
-  const regions = allowedRegions(nodes, breaks, F, p.initial);
-  if (regions.length === 0) {
-    return failure('energy-below-minimum', `no radius has E >= U_eff: the energy ${E} lies below the minimum of the effective potential`);
-  }
-  const regionIndex = pickRegion(regions, p.initial?.radius);
-  const region = regions[regionIndex]!;
+  return { scales, extrema, breaks, regions: allowedRegions(nodes, breaks, F, initial) };
+}
 
-  const circularOrbits = extrema.map((x): CircularOrbit => {
+/** The circular orbit at each extremum of U_eff, with its stability and small-oscillation frequencies. */
+function circularOrbitsAt(sys: RadialSystem, extrema: readonly Extremum[]): CircularOrbit[] {
+  const { mass, angularMomentum: l } = sys;
+  return extrema.map((x): CircularOrbit => {
     const stable = x.curvature > 0;
     const radialFrequency = stable ? Math.sqrt(x.curvature / mass) : null; // small oscillations, Goldstein 3rd ed. sec. 3.6 — from memory
     const angularFrequency = Math.abs(l) / (mass * x.r * x.r);
@@ -495,8 +496,10 @@ export function analyseCentralForce(p: CentralForceProblem, opts: AnalysisOption
       apsidalAngle: frequencyRatio !== null ? Math.PI / frequencyRatio : null,
     };
   });
+}
 
-  const rectilinear = l === 0;
+/** Radial period and apsidal angle of the motion in a region (null where the motion is not periodic; no apsidal angle when rectilinear). */
+function periodOf(sys: RadialSystem, region: AllowedRegion, circularOrbits: readonly CircularOrbit[]): Outcome<{ radialPeriod: number | null; apsidalAngle: number | null }> {
   let radialPeriod: number | null = null;
   let apsidalAngle: number | null = null;
   if (region.motion === 'circular') {
@@ -509,7 +512,29 @@ export function analyseCentralForce(p: CentralForceProblem, opts: AnalysisOption
     radialPeriod = q.value.period;
     apsidalAngle = q.value.apsidalAngle;
   }
-  if (rectilinear) apsidalAngle = null;
+  return success({ radialPeriod, apsidalAngle: sys.angularMomentum === 0 ? null : apsidalAngle });
+}
+
+/**
+ * The effective-potential analysis of a problem: validate, find the allowed regions and their
+ * turning points, the circular orbits, the radial period and apsidal angle of the region the
+ * motion is in, and U, U_eff sampled over it.
+ */
+export function analyseCentralForce(p: CentralForceProblem, opts: AnalysisOptions = {}): Outcome<CentralForceAnalysis> {
+  const invalid = invalidInput(p, opts);
+  if (invalid) return invalid;
+  const { mass, energy: E, angularMomentum: l } = p;
+  const sys: RadialSystem = { terms: p.terms, mass, angularMomentum: l };
+  const { scales, extrema, breaks, regions } = regionsOf(sys, E, p.initial);
+  if (regions.length === 0) {
+    return failure('energy-below-minimum', `no radius has E >= U_eff: the energy ${E} lies below the minimum of the effective potential`);
+  }
+  const regionIndex = pickRegion(regions, p.initial?.radius);
+  const region = regions[regionIndex]!;
+  const circularOrbits = circularOrbitsAt(sys, extrema);
+  const period = periodOf(sys, region, circularOrbits);
+  if (!period.ok) return period;
+  const { radialPeriod, apsidalAngle } = period.value;
 
   const features = {
     turning: breaks.map((b) => b.r),
@@ -517,7 +542,7 @@ export function analyseCentralForce(p: CentralForceProblem, opts: AnalysisOption
     scales,
     ...(p.initial ? { initial: p.initial.radius } : {}),
   };
-  const { radii, spacing } = sampleRadii(region, features, opts, count);
+  const { radii, spacing } = sampleRadii(region, features, opts, opts.samples ?? DEFAULT_SAMPLES);
   const effectiveSamples = radii
     .map((r) => ({ r, u: potential(p.terms, r).value, uEff: effectivePotential(sys, r).value }))
     .filter((s) => isFin(s.u) && isFin(s.uEff));
@@ -533,7 +558,7 @@ export function analyseCentralForce(p: CentralForceProblem, opts: AnalysisOption
     allowedRegions: regions,
     regionIndex,
     motion: region.motion,
-    rectilinear,
+    rectilinear: l === 0,
     periapsis: region.inner > 0 ? region.inner : null,
     apoapsis: region.outer,
     radialPeriod,
