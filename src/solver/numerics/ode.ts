@@ -53,6 +53,66 @@ function checkTolerance(tol: number | readonly number[], n: number, name: string
   return ok ? null : `${name} must be finite and ${zeroAllowed ? 'non-negative' : 'positive'}`;
 }
 
+/** The checks of integrate's inputs; a message when one fails, else null. */
+function invalidInputs(y0: readonly number[], t0: number, times: readonly number[], absTol: number | readonly number[], relTol: number | readonly number[], maxSteps: number): string | null {
+  const n = y0.length;
+  if (n === 0 || !allFinite(y0) || !Number.isFinite(t0)) return 'initial state and time must be finite, with at least one component';
+  if (times.length === 0 || !allFinite(times)) return 'give at least one finite output time';
+  const direction = times[times.length - 1]! >= t0 ? 1 : -1;
+  for (let i = 0; i < times.length; i++) {
+    const previous = i === 0 ? t0 : times[i - 1]!;
+    if ((times[i]! - previous) * direction < 0) return 'output times must run one way from the start time (sorted, all after it or all before it)';
+  }
+  const tolProblem = checkTolerance(absTol, n, 'absTol', false) ?? checkTolerance(relTol, n, 'relTol', true);
+  if (tolProblem) return tolProblem;
+  if (!Number.isInteger(maxSteps) || maxSteps < 1 || maxSteps > MAX_STEPS_LIMIT) return `maxSteps must be an integer in 1..${MAX_STEPS_LIMIT}`;
+  return null;
+}
+
+/** What the step observer collects: the samples taken so far and why the integration ended early. */
+interface Collected {
+  readonly t: number[];
+  readonly y: number[][];
+  next: number;
+  tReached: number;
+  stopped: boolean;
+  nonFinite: number | null;
+}
+
+/** odex's step observer: samples every requested time inside the step from its dense output; false ends the integration. */
+function stepObserver(times: readonly number[], n: number, direction: number, stop: IntegrateOptions['stop'], out: Collected) {
+  return (step: number, tOld: number, t: number, y: number[], dense?: ((c: number, x: number) => number) | false): boolean => {
+    if (step === 1 || !dense) return true; // the call at the start carries no interpolant
+    if (!allFinite(y)) {
+      out.nonFinite = t;
+      return false;
+    }
+    out.tReached = t;
+    // odex lands on the end only to within a few ulps: a sample a rounding away from t belongs here.
+    const slack = 8 * Number.EPSILON * Math.max(Math.abs(t), Math.abs(t - tOld));
+    while (out.next < times.length && (times[out.next]! - t) * direction <= slack) {
+      const ts = times[out.next]!;
+      const ys = Array.from({ length: n }, (_, c) => dense(c, ts));
+      if (!allFinite(ys)) {
+        out.nonFinite = ts;
+        return false;
+      }
+      if (stop?.(ts, ys)) {
+        out.stopped = true;
+        return false;
+      }
+      out.t.push(ts);
+      out.y.push(ys);
+      out.next++;
+    }
+    if (out.next < times.length && stop?.(t, y)) {
+      out.stopped = true;
+      return false;
+    }
+    return true;
+  };
+}
+
 /**
  * Integrate y' = f(t, y) from (t0, y0) and return the state at each requested time.
  * `times` run one way from t0 (all >= t0, non-decreasing, or all <= t0, non-increasing: backward).
@@ -71,66 +131,24 @@ export function integrate(
   const absTol = opts.absTol ?? DEFAULT_TOLERANCE;
   const relTol = opts.relTol ?? DEFAULT_TOLERANCE;
   const maxSteps = opts.maxSteps ?? DEFAULT_MAX_STEPS;
-  if (n === 0 || !allFinite(y0) || !Number.isFinite(t0)) return failure('invalid-parameter', 'initial state and time must be finite, with at least one component');
-  if (times.length === 0 || !allFinite(times)) return failure('invalid-parameter', 'give at least one finite output time');
+  const invalid = invalidInputs(y0, t0, times, absTol, relTol, maxSteps);
+  if (invalid) return failure('invalid-parameter', invalid);
   const tEnd = times[times.length - 1]!;
   const direction = tEnd >= t0 ? 1 : -1;
-  for (let i = 0; i < times.length; i++) {
-    const previous = i === 0 ? t0 : times[i - 1]!;
-    if ((times[i]! - previous) * direction < 0) return failure('invalid-parameter', 'output times must run one way from the start time (sorted, all after it or all before it)');
-  }
-  const tolProblem = checkTolerance(absTol, n, 'absTol', false) ?? checkTolerance(relTol, n, 'relTol', true);
-  if (tolProblem) return failure('invalid-parameter', tolProblem);
-  if (!Number.isInteger(maxSteps) || maxSteps < 1 || maxSteps > MAX_STEPS_LIMIT) return failure('invalid-parameter', `maxSteps must be an integer in 1..${MAX_STEPS_LIMIT}`);
 
-  const out: { t: number[]; y: number[][] } = { t: [], y: [] };
-  let next = 0;
-  while (next < times.length && times[next] === t0) {
+  const out: Collected = { t: [], y: [], next: 0, tReached: t0, stopped: false, nonFinite: null };
+  while (out.next < times.length && times[out.next] === t0) {
     out.t.push(t0);
     out.y.push([...y0]);
-    next++;
+    out.next++;
   }
-  if (next === times.length) return success({ ...out, stopped: false, tReached: t0, steps: 0, evaluations: 0 });
+  if (out.next === times.length) return success({ t: out.t, y: out.y, stopped: false, tReached: t0, steps: 0, evaluations: 0 });
 
   const derivative = (t: number, y: number[]): number[] => {
     const dy = f(t, y);
     if (dy.length !== n) throw new Error(`right-hand side returned ${dy.length} components, expected ${n}`);
     if (!allFinite(dy) || !allFinite(y)) throw new NonFiniteDerivative(t);
     return dy;
-  };
-
-  let tReached = t0;
-  let stopped = false;
-  let nonFinite: number | null = null;
-  const observer = (step: number, tOld: number, t: number, y: number[], dense?: ((c: number, x: number) => number) | false): boolean => {
-    if (step === 1 || !dense) return true; // the call at the start carries no interpolant
-    if (!allFinite(y)) {
-      nonFinite = t;
-      return false;
-    }
-    tReached = t;
-    // odex lands on the end only to within a few ulps: a sample a rounding away from t belongs here.
-    const slack = 8 * Number.EPSILON * Math.max(Math.abs(t), Math.abs(t - tOld));
-    while (next < times.length && (times[next]! - t) * direction <= slack) {
-      const ts = times[next]!;
-      const ys = Array.from({ length: n }, (_, c) => dense(c, ts));
-      if (!allFinite(ys)) {
-        nonFinite = ts;
-        return false;
-      }
-      if (opts.stop?.(ts, ys)) {
-        stopped = true;
-        return false;
-      }
-      out.t.push(ts);
-      out.y.push(ys);
-      next++;
-    }
-    if (next < times.length && opts.stop?.(t, y)) {
-      stopped = true;
-      return false;
-    }
-    return true;
   };
 
   const solver = new odex.Solver(n);
@@ -140,20 +158,20 @@ export function integrate(
   solver.maxSteps = maxSteps;
   let result;
   try {
-    result = solver.solve(derivative, t0, [...y0], tEnd, observer);
+    result = solver.solve(derivative, t0, [...y0], tEnd, stepObserver(times, n, direction, opts.stop, out));
   } catch (error) {
-    if (error instanceof NonFiniteDerivative) nonFinite = error.t;
+    if (error instanceof NonFiniteDerivative) out.nonFinite = error.t;
     else throw error;
   }
-  if (nonFinite !== null) {
-    return failure('integration-failed', `the state or its derivative is not finite at t = ${nonFinite} (after t = ${tReached}); the motion likely reaches a singularity`);
+  if (out.nonFinite !== null) {
+    return failure('integration-failed', `the state or its derivative is not finite at t = ${out.nonFinite} (after t = ${out.tReached}); the motion likely reaches a singularity`);
   }
   if (!result) throw new Error('odex returned no result');
   if (result.outcome === 1) {
-    return failure('integration-failed', `step limit of ${maxSteps} reached at t = ${tReached} before t = ${tEnd}; shorten the span or raise maxSteps`);
+    return failure('integration-failed', `step limit of ${maxSteps} reached at t = ${out.tReached} before t = ${tEnd}; shorten the span or raise maxSteps`);
   }
-  if (!stopped && next < times.length) {
-    return failure('integration-failed', `integration ended at t = ${tReached} before the requested time ${times[next]}`);
+  if (!out.stopped && out.next < times.length) {
+    return failure('integration-failed', `integration ended at t = ${out.tReached} before the requested time ${times[out.next]}`);
   }
-  return success({ ...out, stopped, tReached, steps: result.nStep, evaluations: result.nEval });
+  return success({ t: out.t, y: out.y, stopped: out.stopped, tReached: out.tReached, steps: result.nStep, evaluations: result.nEval });
 }
