@@ -409,8 +409,6 @@ function ellipticWalk(arc: UniversalArc, r0: Vec3, v0: Vec3, ec: number, es: num
   const invPeriod = 1 / period;
   const invR0 = 1 / r0n;
   const invSqrtMu = 1 / sqrtMu;
-  const [rx, ry, rz] = r0;
-  const [vx, vy, vz] = v0;
   const scratch = new Float64Array(3);
   // Carried between samples: x, w = 1 - cos x (kept directly, so it stays exact near periapsis) and s = sin x.
   let x = 0;
@@ -482,13 +480,7 @@ function ellipticWalk(arc: UniversalArc, r0: Vec3, v0: Vec3, ec: number, es: num
     const g = (r0n * u1 + sigma0 * u2) * invSqrtMu;
     const fd = -sqrtMu * u1 * invR * invR0;
     const gd = 1 - u2 * invR;
-    const o = 6 * i;
-    out[o] = f * rx + g * vx;
-    out[o + 1] = f * ry + g * vy;
-    out[o + 2] = f * rz + g * vz;
-    out[o + 3] = fd * rx + gd * vx;
-    out[o + 4] = fd * ry + gd * vy;
-    out[o + 5] = fd * rz + gd * vz;
+    writeState(out, 6 * i, r0, v0, f, g, fd, gd);
   }
   return success(undefined);
 }
