@@ -13,6 +13,8 @@ export * from './numerics/illinois.js';
 export * from './numerics/golden-section.js';
 export * from './numerics/halley.js';
 export * from './numerics/hermite.js';
+export * from './numerics/lagrange.js';
+export * from './numerics/confluent-hermite.js';
 export * from './time/time.js';
 export * from './time/eop.js';
 export * from './bodies/bodies.js';
