@@ -17,6 +17,7 @@ export * from './numerics/lagrange.js';
 export * from './numerics/confluent-hermite.js';
 export * from './time/time.js';
 export * from './time/eop.js';
+export * from './time/time-systems.js';
 export * from './bodies/bodies.js';
 export * from './bodies/sun-moon.js';
 export * from './conic/kepler.js';
