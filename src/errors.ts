@@ -39,6 +39,8 @@ const SERVICE_ERRORS = {
   'idempotency-conflict': { status: 409, title: 'Idempotency-Key reused with another body', meaning: 'A job was already submitted with this Idempotency-Key and a different body; send the same body to get that job, or use a new key.' },
   'job-not-comparable': { status: 422, title: 'The earlier job cannot be compared with', meaning: 'compareTo names a job that does not exist, is not yours, or has expired; changes are listed against an earlier job of the same caller.' },
   'item-not-written': { status: 404, title: 'Item not written', meaning: 'GET /v1/jobs/{id}/results/{index}: the index is outside the job, or that item\'s line is not written yet (see the job\'s counts).' },
+  'oem-malformed': { status: 422, title: 'OEM does not follow the standard', meaning: 'The ephemeris message breaks the CCSDS 502.0-B-3 KVN layout (a block not closed, a data line without 6 or 9 numbers, epochs not increasing, a missing keyword, ...); the detail names the line.' },
+  'oem-unsupported': { status: 422, title: 'OEM content not supported', meaning: 'The ephemeris message is well formed but asks for what the service does not read: a centre other than EARTH, a frame other than GCRF, ICRF, EME2000, ITRF or TEME, a time system other than UTC, TAI, TT or GPS, an interpolation other than LAGRANGE, HERMITE or LINEAR, or XML; the detail names the line.' },
   'internal': { status: 500, title: 'Internal error', meaning: 'A fault in the service itself; the request id in the answer identifies it in the logs.' },
 } as const satisfies Record<string, ErrorEntry>;
 
@@ -60,6 +62,7 @@ const SOLVER_ERRORS: Record<SolverFailureCode, ErrorEntry> = {
   'too-many-stations': { status: 422, title: 'Too many stations', meaning: 'More ground stations than the service accepts in one request; the detail names the maximum.' },
   'integration-failed': { status: 422, title: 'Numerical integration failed', meaning: 'The integrator exceeded its step budget or met a non-finite value (e.g. a fall into the centre); the detail says where.' },
   'energy-below-minimum': { status: 422, title: 'Energy below the effective-potential minimum', meaning: 'No radius satisfies E >= U_eff(r): the motion is not possible with this energy and angular momentum.' },
+  'outside-coverage': { status: 422, title: 'Epoch outside the ephemeris coverage', meaning: 'An epoch asked for (a sample, or any instant of a pass-search window) lies before, after or in a gap between the segments of the given ephemeris; the detail names the coverage. Ephemerides are interpolated, never extrapolated.' },
   'no-radial-period': { status: 422, title: 'No radial period', meaning: 'The radial motion is not periodic (unbound, captured or rectilinear), so a period or apsidal angle does not exist.' },
 };
 

@@ -1,6 +1,6 @@
 // Propagation model and forces at the API (shared by /v1/track and /v1/passes).
 import { z } from 'zod';
-import { MODELS } from '../solver/propagation/propagator.js';
+import { STATE_MODELS } from '../solver/propagation/propagator.js';
 
 export const Force = z
   .discriminatedUnion('kind', [
@@ -18,7 +18,7 @@ export const Force = z
   .meta({ discriminator: { propertyName: 'kind' } });
 
 export const modelFields = {
-  model: z.enum(MODELS).default('two-body').describe(
+  model: z.enum(STATE_MODELS).default('two-body').describe(
     'two-body: exact Keplerian motion (universal variables), no perturbations. ' +
     'j2-secular: Keplerian motion in mean elements (averaged over one revolution) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates; bound orbits about a body with J2; short-period J2 terms left out (bounded error up to ~10 km in LEO, including at the first sample). ' +
     'numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)'),

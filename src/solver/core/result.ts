@@ -19,6 +19,7 @@ export const SOLVER_FAILURE_CODES = [
   'integration-failed',
   'energy-below-minimum',
   'no-radial-period',
+  'outside-coverage',
 ] as const;
 
 export type SolverFailureCode = (typeof SOLVER_FAILURE_CODES)[number];

@@ -2,8 +2,10 @@
 //   two-body    exact Keplerian motion (universal variables)
 //   j2-secular  Keplerian motion with the secular J2 drift of node, periapsis and mean anomaly
 //   numerical   integrated two-body gravity plus chosen forces (J2, drag, Sun, Moon, radiation pressure)
+//   ephemeris   states interpolated from given nodes (ephemeris.ts); r0, v0, epochTT are its first node
 
 import type { CentralBody } from '../bodies/bodies.js';
+import { checkCoverage, ephemerisInterpolator, ephemerisStates, type Ephemeris } from './ephemeris.js';
 import { j2SecularPropagator } from './j2-secular.js';
 import { propagateNumerical } from './numerical.js';
 import type { Force } from './perturbations.js';
@@ -12,7 +14,9 @@ import { propagate, propagateGrid } from '../conic/universal.js';
 import type { Vec3 } from '../core/vec3.js';
 import { cubicHermiteWeights } from '../numerics/hermite.js';
 
-export const MODELS = ['two-body', 'j2-secular', 'numerical'] as const;
+/** The models that propagate an initial state. */
+export const STATE_MODELS = ['two-body', 'j2-secular', 'numerical'] as const;
+export const MODELS = [...STATE_MODELS, 'ephemeris'] as const;
 export type Model = (typeof MODELS)[number];
 
 export interface PropagationSpec {
@@ -26,7 +30,14 @@ export interface PropagationSpec {
   readonly epochTT: number;
   /** numerical: propagate below the body radius instead of failing with 'impact'. */
   readonly passThroughBody?: boolean;
+  /** The nodes of the ephemeris model (required by it, ignored by the others). */
+  readonly ephemeris?: Ephemeris;
 }
+
+const ephemerisOf = (spec: PropagationSpec): Ephemeris => {
+  if (!spec.ephemeris) throw new TypeError('the ephemeris model needs spec.ephemeris');
+  return spec.ephemeris;
+};
 
 export type StateFunction = (tt: number) => Outcome<{ r: Vec3; v: Vec3 }>;
 
@@ -53,6 +64,10 @@ export function statesAt(spec: PropagationSpec, epochsTT: Float64Array): Outcome
       }
       return success(out);
     }
+    case 'ephemeris': {
+      const run = ephemerisStates(ephemerisOf(spec), epochsTT);
+      return run.ok ? success(run.value.states) : run;
+    }
     case 'numerical': {
       const run = propagateNumerical({ body, forces: spec.forces ?? [], r0, v0, epochTT, epochsTT, passThroughBody: spec.passThroughBody ?? false });
       return run.ok ? success(run.value.states) : run;
@@ -72,6 +87,17 @@ export function stateFunction(spec: PropagationSpec, startTT: number, stopTT: nu
   const { body, r0, v0, epochTT } = spec;
   if (spec.model === 'two-body') return success((tt) => propagate(r0, v0, body.gm, tt - epochTT));
   if (spec.model === 'j2-secular') return j2SecularPropagator(body, r0, v0, epochTT);
+  if (spec.model === 'ephemeris') {
+    const e = ephemerisOf(spec);
+    const covered = checkCoverage(e, startTT, stopTT);
+    if (!covered.ok) return covered;
+    const f = ephemerisInterpolator(e);
+    return success((tt) => {
+      const out = new Float64Array(6);
+      const r = f.at(tt, out, 0);
+      return r.ok ? success({ r: [out[0]!, out[1]!, out[2]!], v: [out[3]!, out[4]!, out[5]!] }) : r;
+    });
+  }
   const count = Math.max(2, Math.ceil((stopTT - startTT) / INTERPOLATION_NODE_SPACING_S) + 1);
   const h = (stopTT - startTT) / (count - 1);
   const nodes = Float64Array.from({ length: count }, (_, k) => startTT + k * h);

@@ -4,6 +4,7 @@
 import { isClosed, stateToElements } from '../conic/elements.js';
 import { TWO_PI } from '../core/math.js';
 import { failure, success, type Outcome } from '../core/result.js';
+import { ephemerisStates, type InterpolationReport } from './ephemeris.js';
 import { MODELS, statesAt, type PropagationSpec } from './propagator.js';
 import { conservationDrift, type ConservationDrift } from '../conic/universal.js';
 
@@ -21,19 +22,31 @@ export interface Track {
   /** x, y, z (km), vx, vy, vz (km/s) per sample, GCRF. */
   readonly states: Float64Array;
   readonly drift: ConservationDrift;
+  /** The ephemeris model: how it interpolated and its error estimate (absent for the other models). */
+  readonly interpolation?: InterpolationReport;
 }
 
 export function propagateTrack(input: TrackInput): Outcome<Track> {
   const { body, epochsTT } = input;
-  const run = statesAt(input, epochsTT);
-  if (!run.ok) return run;
-  const states = run.value;
+  let interpolation: InterpolationReport | undefined;
+  let states: Float64Array;
+  if (input.model === 'ephemeris') {
+    if (!input.ephemeris) throw new TypeError('the ephemeris model needs input.ephemeris');
+    const run = ephemerisStates(input.ephemeris, epochsTT);
+    if (!run.ok) return run;
+    ({ states, interpolation } = run.value);
+  } else {
+    const run = statesAt(input, epochsTT);
+    if (!run.ok) return run;
+    states = run.value;
+  }
   // The numerical model watches the surface while it integrates; the analytic ones are checked here.
   if (!input.passThroughBody && body.radius !== undefined && input.model !== 'numerical') {
     const hit = surfaceCrossing(input, states);
     if (hit) return hit;
   }
-  return success({ epochsTT, states, drift: conservationDrift({ states }, body.gm) });
+  const drift = conservationDrift({ states }, body.gm);
+  return success(interpolation ? { epochsTT, states, drift, interpolation } : { epochsTT, states, drift });
 }
 
 /**
@@ -56,6 +69,7 @@ function surfaceCrossing(input: TrackInput, states: Float64Array): Outcome<never
       return failure('impact', `the trajectory is below the ${body.name} radius (${radius} km) at sample ${i}; set passThroughBody to propagate it as a point mass anyway`);
     }
   }
+  if (input.model === 'ephemeris') return undefined; // given states: the samples are all there is to check
   const el = stateToElements(r0, v0, body.gm);
   if (!el.ok) return el;
   const { semiLatusRectum: p, eccentricity: e, semiMajorAxis: a, meanAnomaly: m0, orbitType } = el.value;
