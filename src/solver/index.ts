@@ -36,6 +36,7 @@ export * from './earth/nutation.js';
 export * from './earth/rotation.js';
 export * from './earth/frames.js';
 export * from './earth/geodetic.js';
+export * from './earth/state-frames.js';
 export * from './propagation/perturbations.js';
 export * from './propagation/atmosphere.js';
 export * from './propagation/numerical.js';

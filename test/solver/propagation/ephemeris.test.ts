@@ -2,6 +2,7 @@
 // bisection, test/helpers/two-body-reference.ts), sampled at 60 s nodes.
 import { describe, expect, it } from 'vitest';
 import { checkCoverage, ephemerisStates, type Ephemeris, type EphemerisSegment, type InterpolationMethod } from '../../../src/solver/propagation/ephemeris.js';
+import { BODIES } from '../../../src/solver/bodies/bodies.js';
 import { ellipseReference } from '../../helpers/two-body-reference.js';
 
 const MU = 398_600.4418; // km^3/s^2, EGM-96/WGS-84 value (common practice)
@@ -117,7 +118,7 @@ describe('ephemeris model (60 s nodes of a two-body orbit)', () => {
 
 describe('the ephemeris model through the propagator entries', () => {
   const e: Ephemeris = { segments: [segment(0, 61, 'lagrange', 7)] };
-  const spec = { body: { name: 'earth', gm: MU, radius: 6378.137 }, model: 'ephemeris' as const, r0: [0, 0, 0] as const, v0: [0, 0, 0] as const, epochTT: T0, ephemeris: e };
+  const spec = { body: BODIES.earth, model: 'ephemeris' as const, r0: [0, 0, 0] as const, v0: [0, 0, 0] as const, epochTT: T0, ephemeris: e };
 
   it('propagateTrack reports the interpolation used', async () => {
     const { propagateTrack } = await import('../../../src/solver/propagation/track.js');
@@ -129,8 +130,8 @@ describe('the ephemeris model through the propagator entries', () => {
 
   it('stateFunction refuses a window the ephemeris does not cover, and answers inside one it does', async () => {
     const { stateFunction } = await import('../../../src/solver/propagation/propagator.js');
-    expect(stateFunction(spec as never, T0 - 60, T0 + 600)).toMatchObject({ ok: false, code: 'outside-coverage' });
-    const f = stateFunction(spec as never, T0, T0 + 3600);
+    expect(stateFunction(spec, T0 - 60, T0 + 600)).toMatchObject({ ok: false, code: 'outside-coverage' });
+    const f = stateFunction(spec, T0, T0 + 3600);
     if (!f.ok) throw new Error(f.message);
     const s = f.value(T0 + 1234.5);
     if (!s.ok) throw new Error(s.message);
