@@ -23,8 +23,8 @@ import { stateFunction, type PropagationSpec } from '../solver/propagation/propa
 // thread, behind the bounded queue. The costs per unit of size were measured on that machine.
 /** Jobs estimated under this many work units run inline (~1 ms). */
 export const INLINE_WORK_UNITS = 20_000;
-/** Work units per sample: inertial two-body (the grid kernel), j2-secular (elements + Kepler). */
-const UNITS_PER_SAMPLE = { 'two-body': 1, 'j2-secular': 2, numerical: 2 } as const satisfies Record<TrackInput['model'], number>;
+/** Work units per sample: inertial two-body (the grid kernel), j2-secular (elements + Kepler), ephemeris (interpolation; about 1 us a sample at degree 7). */
+const UNITS_PER_SAMPLE = { 'two-body': 1, 'j2-secular': 2, numerical: 2, ephemeris: 20 } as const satisfies Record<TrackInput['model'], number>;
 /** Added per sample for the ITRF rotation (~0.5 us a sample) and again for geodetic coordinates. */
 const UNITS_PER_EARTH_FIXED_SAMPLE = 10;
 const UNITS_PER_GEODETIC_SAMPLE = 2;

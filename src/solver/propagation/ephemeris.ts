@@ -12,7 +12,7 @@
 
 import { failure, success, type Outcome } from '../core/result.js';
 import type { Vec3 } from '../core/vec3.js';
-import { hermiteCoefficients } from '../numerics/hermite.js';
+import { hermiteCoefficients } from '../numerics/confluent-hermite.js';
 import { newtonCoefficients, newtonEvaluate } from '../numerics/lagrange.js';
 import { formatUtcIso } from '../time/time.js';
 
