@@ -12,6 +12,10 @@ export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
   }
   const [start, stop] = [epochTT(grid.start!), epochTT(grid.stop!)];
   const count = regularGridCount(start, stop, grid.step!);
-  if (count > max) throw new ProblemError('too-many-samples', `the grid has ${count} samples; the maximum is ${max} (use a longer step or a shorter span)`);
+  // Written so that a NaN count is refused too; nothing is allocated before this check.
+  if (!(count <= max)) {
+    const asked = Number.isFinite(count) ? `the grid has ${count} samples` : `a step of ${grid.step} s gives more samples than a double counts`;
+    throw new ProblemError('too-many-samples', `${asked}; the maximum is ${max} (use a longer step or a shorter span)`);
+  }
   return regularGrid(start, stop, grid.step!);
 }

@@ -12,6 +12,9 @@ export interface JsonField {
   readonly decimals: number;
 }
 
+/** The JSON name of each state column, as a non-finite problem names it. */
+export const STATE_COLUMNS = ['position.0', 'position.1', 'position.2', 'velocity.0', 'velocity.1', 'velocity.2'] as const;
+
 export const STATE_FIELDS: readonly JsonField[] = [
   { key: 'position', from: 0, count: 3, decimals: 6 },
   { key: 'velocity', from: 3, count: 3, decimals: 9 },

@@ -1,5 +1,6 @@
 // The choice (format, frame) -> a track product: which coordinates a format needs, the sample
 // order it needs, and the formatter with its columns. Routes call this and nothing else to format.
+import { assertFinite, assertFiniteTable } from '../api/finite.js';
 import { ProblemError } from '../errors.js';
 import { columnCsvChunks, csvChunks, CSV_MEDIA_TYPE } from './csv.js';
 import { GEOJSON_MEDIA_TYPE, groundTrackGeoJson } from './geojson.js';
@@ -7,7 +8,7 @@ import { groundTrackSvg, SVG_MEDIA_TYPE } from './svg/index.js';
 import { formatUtcIso } from '../solver/time/time.js';
 import { oemChunks, OEM_MEDIA_TYPE } from './oem.js';
 import type { Product } from './product.js';
-import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from './track-json.js';
+import { JSON_MEDIA_TYPE, STATE_COLUMNS, STATE_FIELDS, trackJsonChunks } from './track-json.js';
 import { assertPrintable } from './track-table.js';
 
 export const TRACK_FORMATS = [
@@ -54,6 +55,7 @@ export function epochsForFormat(format: TrackFormat, epochsTT: Float64Array): Fl
   return sorted.subarray(0, n);
 }
 
+const GEODETIC_COLUMNS = ['latitude', 'longitude', 'height'] as const;
 const GEODETIC_CSV = [
   { header: 'latitude_deg', decimals: 7 },
   { header: 'longitude_deg', decimals: 7 },
@@ -82,11 +84,18 @@ export interface TrackProductInput {
 
 /** The track in its format; refuses (422) states that cannot be printed before anything is streamed. */
 export function trackProduct(t: TrackProductInput): Product {
-  assertPrintable(t.states);
+  assertFinite(t.head);
   const geodetic = t.frame === 'geodetic' || isGroundTrack(t.format);
+  // The numbers printed, checked before anything streams (a formatter that throws mid-answer can only cut it short).
   if (geodetic) {
-    const g = t.geodeticDeg;
-    if (g === null) throw new Error('a geodetic track product needs geodetic coordinates'); // programmer error
+    if (t.geodeticDeg === null) throw new Error('a geodetic track product needs geodetic coordinates'); // programmer error
+    assertFiniteTable(t.geodeticDeg, GEODETIC_COLUMNS);
+  } else {
+    assertFiniteTable(t.states, STATE_COLUMNS);
+  }
+  assertPrintable(t.states);
+  if (geodetic) {
+    const g = t.geodeticDeg!;
     if (isGroundTrack(t.format)) {
       const samples = Array.from(t.epochsTT, (tt, i) => ({ tt, latitudeDeg: g[3 * i]!, longitudeDeg: g[3 * i + 1]!, heightKm: g[3 * i + 2]! }));
       if (t.format === 'geojson') return { contentType: GEOJSON_MEDIA_TYPE, chunks: groundTrackGeoJson(samples, { name: t.object.name, includeHeight: true }) };

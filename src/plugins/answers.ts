@@ -6,6 +6,7 @@ import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import type { AnswerCache, CachedAnswer } from '../cache/types.js';
 import type { Product } from '../formats/product.js';
 import { scenarioHash, type ScenarioKind } from '../scenario/hash.js';
+import { assertFinite } from '../api/finite.js';
 
 export interface AnswerService {
   readonly cache: AnswerCache;
@@ -49,10 +50,11 @@ export function ifNoneMatchHits(header: string | undefined, hash: string): boole
   return header.split(',').some((tag) => tag.trim().replace(/^W\//, '') === etagOf(hash));
 }
 
-export const jsonAnswer = (value: unknown): CachedAnswer => ({
-  body: Buffer.from(JSON.stringify(value)),
-  contentType: 'application/json; charset=utf-8',
-});
+/** A JSON answer's bytes; refuses (422 non-finite-result, naming the field) a value JSON would print as null. */
+export function jsonAnswer(value: unknown): CachedAnswer {
+  assertFinite(value);
+  return { body: Buffer.from(JSON.stringify(value)), contentType: 'application/json; charset=utf-8' };
+}
 
 export interface AnswersOptions {
   cache: AnswerCache;

@@ -7,7 +7,7 @@ import { centralForceSvg } from '../formats/svg/index.js';
 import { jsonAnswer } from '../plugins/answers.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { centralForceProblem, toCentralForceAnswer } from '../api/central-force.js';
-import { firstNonFinite } from '../api/finite.js';
+import { assertFinite } from '../api/finite.js';
 import { CENTRAL_FORCE_FORMATS, CentralForceAnswer, CentralForceRequest, SVG_MEDIA_TYPE } from '../schemas/central-force.js';
 import { problemResponses } from '../schemas/common.js';
 
@@ -62,9 +62,7 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
       const analysis = solved.analysis;
       if (!analysis.ok) throw solverProblem(analysis);
 
-      if (format === 'svg') {
-        if (analysis.value.effectivePotential.length < 2 || firstNonFinite(analysis.value) !== null) throw new ProblemError('invalid-parameter', OVERFLOW);
-      }
+      if (format === 'svg' && analysis.value.effectivePotential.length < 2) throw new ProblemError('invalid-parameter', OVERFLOW);
 
       let solvedTrack = null;
       if (track) {
@@ -74,13 +72,12 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
         if (!run.ok) throw solverProblem(run);
         solvedTrack = { start: track.start, value: run.value };
       }
+      const answer = toCentralForceAnswer(analysis.value, solvedTrack, req.units, hash);
+      assertFinite(answer); // the plot is drawn from the same numbers: one check for both formats
       if (format === 'svg') {
         const path = solvedTrack && { ...solvedTrack.value, periapsis: analysis.value.periapsis, apoapsis: analysis.value.apoapsis };
         return { body: Buffer.from(centralForceSvg(problem.value.terms, analysis.value, path, { units: req.units })), contentType: SVG_MEDIA_TYPE };
       }
-      const answer = toCentralForceAnswer(analysis.value, solvedTrack, req.units, hash);
-      const bad = firstNonFinite(answer);
-      if (bad !== null) throw new ProblemError('invalid-parameter', `${OVERFLOW} (${bad} is not finite)`);
       return jsonAnswer(answer);
     });
   });

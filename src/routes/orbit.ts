@@ -3,6 +3,7 @@ import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { solverProblem } from '../errors.js';
 import { z } from 'zod';
 import { orbitSvg, SVG_MEDIA_TYPE } from '../formats/svg/index.js';
+import { assertFinite } from '../api/finite.js';
 import { jsonAnswer } from '../plugins/answers.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { problemResponses } from '../schemas/common.js';
@@ -39,6 +40,7 @@ const orbit: FastifyPluginAsyncZod = async (app) => {
       const solved = solveOrbit(body, input);
       if (!solved.ok) throw solverProblem(solved);
       const answer = toOrbitAnswer(solved.value, body, epochTT, hash);
+      assertFinite(answer); // the plot is drawn from the answer: the same check for both formats
       return format === 'json' ? jsonAnswer(answer) : { contentType: SVG_MEDIA_TYPE, body: Buffer.from(orbitSvg(orbitPlotInput(answer))) };
     });
   });

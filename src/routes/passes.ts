@@ -3,6 +3,7 @@ import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { ProblemError, solverProblem } from '../errors.js';
 import { z } from 'zod';
 import { passesSvg, SVG_MEDIA_TYPE } from '../formats/svg/index.js';
+import { assertFinite } from '../api/finite.js';
 import { jsonAnswer } from '../plugins/answers.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
@@ -47,6 +48,7 @@ const passes: FastifyPluginAsyncZod = async (app) => {
       const found = await app.pool.solve(passSearchJob(req, body, start.value, format === 'svg'));
       if (!found.ok) throw solverProblem(found);
       const answer = toPassesAnswer(req, hash, found.value);
+      assertFinite(answer); // the plots are drawn from the answer: the same check for both formats
       return format === 'json' ? jsonAnswer(answer) : { contentType: SVG_MEDIA_TYPE, body: Buffer.from(passesSvg(answer.window, req.stations, answer.passes)) };
     });
   });

@@ -1,11 +1,11 @@
 // POST /v1/two-body: two bodies -> barycentre, relative orbit, each body's orbit about the
 // barycentre and the integrals; optionally both tracks about the barycentre (streamed JSON).
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
-import { ProblemError, solverProblem } from '../errors.js';
-import { JSON_MEDIA_TYPE, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
+import { solverProblem } from '../errors.js';
+import { JSON_MEDIA_TYPE, STATE_COLUMNS, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
 import { assertPrintable, type TrackTable } from '../formats/track-table.js';
 import { epochTT as toEpochTT } from '../api/epoch.js';
-import { firstNonFinite } from '../api/finite.js';
+import { assertFinite, assertFiniteTable } from '../api/finite.js';
 import { gridEpochs } from '../api/grid.js';
 import { diagnosticsOf } from '../api/track.js';
 import { relativeCentralBody, toTwoBodyAnswer, trackNames, twoBodySolverInput } from '../api/two-body.js';
@@ -32,12 +32,6 @@ function* answerChunks(head: Omit<TwoBodyAnswer, 'tracks'>, tracks: Tracks | nul
   yield ',';
   yield* trackJsonChunks({ name: tracks.names[1] }, tracks.tables[1].epochsTT, tracks.tables[1].states, STATE_FIELDS);
   yield ']}}';
-}
-
-/** JSON would print a non-finite number as null: refuse such a scenario before anything is sent. */
-function assertFinite(value: unknown, path: string): void {
-  const bad = firstNonFinite(value, path);
-  if (bad !== null) throw new ProblemError('invalid-parameter', `the scenario overflows double-precision arithmetic (${bad} is not finite); bring the masses, separation or speeds closer to each other`);
 }
 
 const twoBody: FastifyPluginAsyncZod = async (app) => {
@@ -73,6 +67,8 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
         if (!solved.ok) throw solverProblem(solved);
         const relative = solved.value.track;
         const { body1, body2 } = bodyTracksAboutBarycentre(red, relative);
+        assertFiniteTable(body1.states, STATE_COLUMNS, 'answer.tracks.bodies.0.samples');
+        assertFiniteTable(body2.states, STATE_COLUMNS, 'answer.tracks.bodies.1.samples');
         assertPrintable(body1.states);
         assertPrintable(body2.states);
         const { drift } = relative;
@@ -86,7 +82,7 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
           names: trackNames(req),
           tables: [body1, body2],
         };
-        assertFinite(tracks.head, 'tracks');
+        assertFinite(tracks.head, 'answer.tracks');
       }
       return { contentType: JSON_MEDIA_TYPE, chunks: answerChunks(head, tracks) };
     });

@@ -301,9 +301,9 @@ describe('POST /v1/central-force: errors', () => {
     const cases: Array<[unknown, string]> = [
       // U = r^-20 overflows at the initial radius 1e-300.
       [{ mass: 1, potential: { terms: [{ kind: 'power', coefficient: 1, exponent: -20 }] }, initial: { radius: 1e-300, radialVelocity: 0, tangentialVelocity: 1 } }, '/problems/invalid-parameter'],
-      // A sample range of 600 decades: radii overflow.
-      [{ ...base, rMin: 1e-300, rMax: 1e300 }, '/problems/invalid-parameter'],
-      [{ ...base, rMin: 1e-300, rMax: 1e300, format: 'svg' }, '/problems/invalid-parameter'],
+      // A sample range of 600 decades: U_eff overflows (the answer would hold infinities).
+      [{ ...base, rMin: 1e-300, rMax: 1e300 }, '/problems/non-finite-result'],
+      [{ ...base, rMin: 1e-300, rMax: 1e300, format: 'svg' }, '/problems/non-finite-result'],
       // Periods of motion that has none: E > 0 in a Kepler well escapes.
       [{ ...base, energy: 0.5, track: { periods: 2 } }, '/problems/no-radial-period'],
       // More track samples than the service limit (1000 in this test app).

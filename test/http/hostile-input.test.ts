@@ -1,6 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
+import fc from 'fast-check';
 import { Problem } from '../../src/schemas/common.js';
+import { OrbitAnswer } from '../../src/schemas/orbit.js';
+import { PassesAnswer } from '../../src/schemas/passes.js';
+import { TrackAnswer } from '../../src/schemas/track.js';
 import { postJson, testApp } from '../helpers/app.js';
 import { GOOD } from '../helpers/batch.js';
 import { DEMO_ORBIT, DEMO_STATIONS, EPOCH } from '../helpers/demo.js';
@@ -136,4 +140,90 @@ describe('heavy work decided by its size', () => {
     expect(problem.detail).toMatch(/orbits.*integrator steps/);
     expect(app.pool.stats().completed).toBe(0); // no thread was asked
   });
+});
+
+describe('non-finite results are refused, never printed as null', () => {
+  // JSON has no NaN or Infinity (RFC 8259 sec. 6): a serialiser writes null, which a client reads
+  // as "no value". Every answer is checked before it is sent; a non-finite number is a 422 naming
+  // the field. The bodies below are the ones that answered 200 with nulls before the check.
+  const day = { start: EPOCH, stop: '2026-12-02T00:00:00Z' };
+  const cases: [string, string, unknown, string, string | null][] = [
+    ['semiMajorAxis 5e-324 (velocity overflows)', '/v1/orbit', { centralBody: 'earth', elements: { ...DEMO_ORBIT.elements, semiMajorAxis: 5e-324 } }, '/problems/non-finite-result', 'answer.state.velocity.0'],
+    ['the same orbit as an SVG plot', '/v1/orbit', { centralBody: 'earth', elements: { ...DEMO_ORBIT.elements, semiMajorAxis: 5e-324 }, format: 'svg' }, '/problems/non-finite-result', 'answer.state.velocity.0'],
+    ['carrierFrequency 1e308 (the Doppler shift overflows)', '/v1/passes', { ...DEMO_ORBIT, window: day, stations: [DEMO_STATIONS[0]], pointing: { step: 60, carrierFrequency: 1e308 } }, '/problems/non-finite-result', 'answer.passes.0.pointing.0.dopplerShift'],
+    // span / 5e-324 is Infinity: the sample count is refused before any allocation.
+    ['grid.step 5e-324', '/v1/track', { ...DEMO_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T00:10:00Z', step: 5e-324 } }, '/problems/too-many-samples', null],
+    ['grid.step 5e-324 on a zero-length span is one sample', '/v1/track', { ...DEMO_ORBIT, grid: { start: EPOCH, stop: EPOCH, step: 5e-324 } }, '', null],
+  ];
+  for (const [what, url, body, type, path] of cases) {
+    it(`${what}: ${type || '200 with one sample'}`, async () => {
+      const res = await postJson(app, url, body);
+      if (type === '') {
+        expect(res.statusCode, res.body).toBe(200);
+        expect(res.json().sampleCount).toBe(1);
+        expect(res.json().samples).toHaveLength(1);
+        return;
+      }
+      expect(res.statusCode, res.body).toBe(422);
+      const problem = problemOf(res);
+      expect(problem.type).toBe(type);
+      if (path !== null) {
+        expect(problem.errors?.map((e) => e.path)).toEqual([path]);
+        expect(problem.detail).toContain(path);
+      }
+    });
+  }
+
+  // Extreme but schema-valid numbers in the fields above: each answer is a coded 4xx problem, or a
+  // 200 whose numbers are all numbers (the answer schemas hold z.number() where a value is
+  // promised; the sample count is the number of samples and at least one).
+  const extreme = fc.oneof(
+    fc.constantFrom(5e-324, 1e-320, 1e-300, 1e-30, 1e-6, 1e6, 1e30, 1e100, 1e300, 1.7976931348623157e308),
+    fc.double({ min: 5e-324, max: 1.7976931348623157e308, noNaN: true }),
+  );
+  const problemOrNumbers = (res: { statusCode: number; body: string; headers: Record<string, unknown>; json: () => unknown }, label: string): unknown => {
+    expect(res.statusCode, `${label}: ${res.body.slice(0, 300)}`).toBeLessThan(500);
+    if (res.statusCode !== 200) {
+      expect(res.statusCode, label).toBeGreaterThanOrEqual(400);
+      problemOf(res);
+      return null;
+    }
+    return res.json();
+  };
+
+  it('semiMajorAxis: a 200 orbit answer parses with OrbitAnswer (no null state, energy or mean motion)', async () => {
+    await fc.assert(fc.asyncProperty(extreme, async (a) => {
+      const body = { centralBody: 'earth', elements: { ...DEMO_ORBIT.elements, semiMajorAxis: a } };
+      const answer = problemOrNumbers(await postJson(app, '/v1/orbit', body), `a = ${a}`);
+      if (answer !== null) OrbitAnswer.parse(answer);
+    }), { numRuns: 60, seed: 20_261_202 });
+  });
+
+  it('grid.step: a 200 track has sampleCount = samples.length >= 1, every number a number (JSON) and every CSV field a decimal', async () => {
+    await fc.assert(fc.asyncProperty(extreme, fc.constantFrom('json', 'csv'), async (step, format) => {
+      const body = { ...DEMO_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T00:10:00Z', step }, format };
+      const res = await postJson(app, '/v1/track', body);
+      if (res.statusCode !== 200 || format === 'json') {
+        const answer = problemOrNumbers(res, `step ${step}`);
+        if (answer === null) return;
+        const track = TrackAnswer.parse(answer);
+        expect(track.sampleCount).toBe(track.samples.length);
+        expect(track.sampleCount).toBeGreaterThanOrEqual(1);
+        return;
+      }
+      const records = res.body.trim().split('\r\n').slice(1);
+      expect(records.length).toBeGreaterThanOrEqual(1);
+      for (const r of records) for (const f of r.split(',').slice(1)) expect(f).toMatch(/^-?\d+\.\d+$/);
+    }), { numRuns: 60, seed: 20_261_203 });
+  });
+
+  it('carrierFrequency: every pointing sample of a 200 pass answer has a numeric Doppler shift', async () => {
+    await fc.assert(fc.asyncProperty(extreme, async (f) => {
+      const body = { ...DEMO_ORBIT, window: { start: EPOCH, stop: '2026-12-01T12:00:00Z' }, stations: [DEMO_STATIONS[0]], pointing: { step: 120, carrierFrequency: f } };
+      const answer = problemOrNumbers(await postJson(app, '/v1/passes', body), `f = ${f}`);
+      if (answer === null) return;
+      const passes = PassesAnswer.parse(answer).passes;
+      for (const p of passes) for (const s of p.pointing ?? []) expect(typeof s.dopplerShift).toBe('number');
+    }), { numRuns: 25, seed: 20_261_204 });
+  }, 60_000);
 });

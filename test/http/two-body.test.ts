@@ -271,7 +271,7 @@ describe('POST /v1/two-body', () => {
       ['rectilinear relative motion', pair(earth, { ...moon, velocity: [-1, 0, 0] }), '/problems/rectilinear-motion'],
       ['no relative motion', pair({ ...earth, velocity: [0, 1, 0] }, { ...moon, velocity: [0, 1, 0] }), '/problems/rectilinear-motion'],
       // Hostile: the periapsis speed of 1e-30 kg bodies 1e18 km apart moving at 1e-300 km/s overflows a double.
-      ['overflowing scenario', pair({ mass: 1e-30, position: [0, 0, 0], velocity: [0, 0, 0] }, { mass: 1e-30, position: [1e18, 0, 0], velocity: [0, 1e-300, 0] }), '/problems/invalid-parameter'],
+      ['overflowing scenario', pair({ mass: 1e-30, position: [0, 0, 0], velocity: [0, 0, 0] }, { mass: 1e-30, position: [1e18, 0, 0], velocity: [0, 1e-300, 0] }), '/problems/non-finite-result'],
     ];
     for (const [name, body, type, detail] of cases) {
       const res = await postJson(app, '/v1/two-body', body);

@@ -4,8 +4,9 @@
 export function regularGridCount(startTT: number, stopTT: number, stepS: number): number {
   if (!(stepS > 0)) throw new RangeError('step must be positive');
   const span = Math.abs(stopTT - startTT);
-  // Tolerance of a microsecond so that a stop on the grid does not add a sliver of a step.
-  const steps = Math.ceil(span / stepS - 1e-6 / stepS);
+  // Tolerance of a microsecond so that a stop on the grid does not add a sliver of a step. One
+  // division: a tiny step gives an infinite count (never Infinity - Infinity = NaN).
+  const steps = Math.ceil((span - 1e-6) / stepS);
   return Math.max(steps, 0) + 1;
 }
 

@@ -25,6 +25,11 @@ describe('regularGrid', () => {
     expect(g[123_456]).toBe(1e8 + 123_456 * 0.1);
   });
 
+  it('counts an infinite grid for a step so small that span / step overflows (never NaN)', () => {
+    expect(regularGridCount(0, 600, 5e-324)).toBe(Number.POSITIVE_INFINITY);
+    expect(regularGridCount(5, 5, 5e-324)).toBe(1);
+  });
+
   it('refuses a step that is not positive', () => {
     expect(() => regularGridCount(0, 1, 0)).toThrow(RangeError);
     expect(() => regularGridCount(0, 1, Number.NaN)).toThrow(RangeError);
