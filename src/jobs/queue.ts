@@ -117,4 +117,4 @@ export const CANCELLED_REASON = 'cancelled by the caller';
 export const deadlineReason = (deadline: string, done: number, items: number) =>
   `deadline ${deadline} passed with ${done} of ${items} items done`;
 
-export const jobLinks = (id: string) => ({ self: `/v1/jobs/${id}`, results: `/v1/jobs/${id}/results`, changes: `/v1/jobs/${id}/changes` });
+export const jobLinks = (id: string) => ({ self: `/v1/jobs/${id}`, results: `/v1/jobs/${id}/results`, archive: `/v1/jobs/${id}/archive`, changes: `/v1/jobs/${id}/changes` });

@@ -14,6 +14,7 @@ import { TimeGrid } from '../schemas/grid.js';
 import { regularGridCount } from '../solver/core/grid.js';
 import { INNER_REQUEST_HEADER } from '../plugins/metrics.js';
 import type { LineOut, RunLines } from './queue.js';
+import { isJsonMediaType, productTail } from './products.js';
 
 export interface RunnerOptions {
   /** Items solved at the same time; lines still come out in input order. */
@@ -100,12 +101,10 @@ export async function runItem(app: FastifyInstance, item: BatchItem, index: numb
     if (samples !== undefined && samples > opts.maxTrackSamples) {
       return localProblem(index, item, opts, 'too-many-samples', `the track has ${samples} samples; inside a batch the maximum is ${opts.maxTrackSamples} (BATCH_MAX_TRACK_SAMPLES): send it to /v1/${item.kind} alone for up to MAX_TRACK_SAMPLES`);
     }
-    const format = item.request.format;
-    if (typeof format === 'string' && format !== 'json') {
-      return localProblem(index, item, opts, 'not-acceptable', `answers inside a batch are JSON; format "${format}" is available from /v1/${item.kind} alone`);
-    }
+    // Any format the endpoint has (csv, oem, geojson, svg): the endpoint validates the name.
+    const format = typeof item.request.format === 'string' ? item.request.format : undefined;
     // A track without a format is asked for JSON explicitly (the same scenario hash as Accept: application/json).
-    const payload = item.kind === 'track' && format === undefined ? { ...item.request, format: 'json' } : item.request;
+    const payload = item.kind === 'track' && item.request.format === undefined ? { ...item.request, format: 'json' } : item.request;
     for (let attempt = 0; ; attempt++) {
       const res = await app.inject({
         method: 'POST',
@@ -126,20 +125,21 @@ export async function runItem(app: FastifyInstance, item: BatchItem, index: numb
         }
       }
       const contentType = String(res.headers['content-type'] ?? '');
-      const body = oneLine(res.rawPayload);
-      if (res.statusCode === 200 && contentType.startsWith('application/json')) {
+      if (res.statusCode === 200 && (format === undefined || format === 'json' ? contentType.startsWith('application/json') : contentType !== '')) {
         const hash = String(res.headers.etag ?? '').replaceAll('"', '');
-        if (body.length > opts.maxAnswerBytes) {
+        // JSON answers are spliced as they are (raw newlines dropped: whitespace); text products are escaped whole.
+        const tail = productTail(format, contentType, isJsonMediaType(contentType) ? oneLine(res.rawPayload) : res.rawPayload);
+        if (tail.length > opts.maxAnswerBytes) {
           return localProblem(index, item, opts, 'limit-exceeded',
-            `the answer is ${body.length} bytes; a batch line carries at most ${opts.maxAnswerBytes} (BATCH_MAX_ANSWER_BYTES): it is cached, GET /v1/results/${hash} while it stays in the cache, or send the item alone`, hash);
+            `the answer is ${tail.length} bytes in its line; a batch line carries at most ${opts.maxAnswerBytes} (BATCH_MAX_ANSWER_BYTES): it is cached, GET /v1/results/${hash} while it stays in the cache, or send the item alone`, hash);
         }
-        return { line: Buffer.concat([Buffer.from(`${lineHead(index, item, 200)},"scenarioHash":"${hash}","answer":`), body, Buffer.from('}\n')]), failed: false };
+        return { line: Buffer.concat([Buffer.from(`${lineHead(index, item, 200)},"scenarioHash":"${hash}"`), tail, Buffer.from('}\n')]), failed: false };
       }
       if (res.statusCode >= 400 && contentType.startsWith('application/problem+json')) {
-        return { line: Buffer.concat([Buffer.from(`${lineHead(index, item, res.statusCode)},"problem":`), body, Buffer.from('}\n')]), failed: true };
+        return { line: Buffer.concat([Buffer.from(`${lineHead(index, item, res.statusCode)},"problem":`), oneLine(res.rawPayload), Buffer.from('}\n')]), failed: true };
       }
       app.log.error({ index, kind: item.kind, status: res.statusCode, contentType }, 'batch item answered neither JSON nor a problem');
-      return localProblem(index, item, opts, 'internal', `the endpoint answered ${res.statusCode} ${contentType || 'without a media type'}, not JSON`);
+      return localProblem(index, item, opts, 'internal', `the endpoint answered ${res.statusCode} ${contentType || 'without a media type'}, neither its product nor a problem`);
     }
   } catch (error) {
     app.log.error({ err: error, index, kind: item.kind }, 'batch item failed');

@@ -29,7 +29,8 @@ const batch: FastifyPluginAsyncZod = async (app) => {
         '{"index","id","kind","status","scenarioHash","answer"} for an answer or {"index","id","kind","status","problem"} for a problem. ' +
         'A line\'s answer is byte for byte the JSON the endpoint answers for that request alone, and comes from the same cache; ' +
         'a line\'s problem is the problem the endpoint answers. One bad item (400, 406, 422, 500) never spoils the others: the status of the whole answer is 200. ' +
-        'Inside a batch answers are JSON only, tracks hold at most BATCH_MAX_TRACK_SAMPLES samples (default 10000) and an answer at most BATCH_MAX_ANSWER_BYTES (default 4 MiB). ' +
+        'An item may ask for any format its endpoint has (format csv, oem, geojson, svg): its line then carries format, mediaType and the product (answer for GeoJSON, product as a JSON string for text). ' +
+        'Inside a batch tracks hold at most BATCH_MAX_TRACK_SAMPLES samples (default 10000) and an answer at most BATCH_MAX_ANSWER_BYTES (default 4 MiB). ' +
         'The whole body is refused (400) only when it is not a list of items of the known kinds, or (422 limit-exceeded) when it holds more than BATCH_MAX_ITEMS items (default 1000).',
       body: BatchRequest,
       response: {

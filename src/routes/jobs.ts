@@ -14,6 +14,9 @@ import { itemChanges, lineId } from '../jobs/changes.js';
 import { MemoryJobQueue } from '../jobs/memory-queue.js';
 import { jobLinks, QueueUnavailableError, type JobQueue, type JobRecord } from '../jobs/queue.js';
 import { appRunner } from '../jobs/runner.js';
+import { archiveEntries, archiveStream } from '../jobs/archive.js';
+import { lineProduct } from '../jobs/products.js';
+import { chooseFormat } from '../plugins/negotiate.js';
 import {
   BatchLine, IDEMPOTENCY_KEY_PATTERN, JobAccepted, JobAnswer, JobId, JobList, JobListQuery, JobRequest, NDJSON_MEDIA_TYPE,
 } from '../schemas/batch.js';
@@ -57,6 +60,16 @@ const toAnswer = (job: JobRecord, nowMs = Date.now()): JobAnswer => ({
   error: job.error,
   links: jobLinks(job.id),
 });
+
+/** Results (and the archive) exist for a done or cancelled job: 409 job-not-done otherwise. */
+function finishedOrThrow(job: JobRecord): void {
+  if (job.status === 'failed') throw new ProblemError('job-not-done', `job ${job.id} failed and has no results: ${job.error ?? 'no reason recorded'}`);
+  if (job.status !== 'done' && job.status !== 'cancelled') {
+    throw new ProblemError('job-not-done', `job ${job.id} is ${job.status} (${job.done} of ${job.items} items done); retry after ${RESULTS_RETRY_AFTER_S} s`, {
+      headers: { 'retry-after': String(RESULTS_RETRY_AFTER_S) },
+    });
+  }
+}
 
 /** The caller that owns the jobs it submits (the API key's id once keys exist); null: the open service. */
 const callerOf = (request: FastifyRequest): string | null => (request as { callerId?: string | null }).callerId ?? null;
@@ -191,23 +204,30 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
     },
   }, async (request, reply) => {
     const job = await find(request, request.params.id);
-    if (job.status === 'failed') throw new ProblemError('job-not-done', `job ${job.id} failed and has no results: ${job.error ?? 'no reason recorded'}`);
-    if (job.status !== 'done' && job.status !== 'cancelled') {
-      throw new ProblemError('job-not-done', `job ${job.id} is ${job.status} (${job.done} of ${job.items} items done); retry after ${RESULTS_RETRY_AFTER_S} s`, {
-        headers: { 'retry-after': String(RESULTS_RETRY_AFTER_S) },
-      });
-    }
+    finishedOrThrow(job);
     return sendNdjson(reply, queue.results(job.id));
   });
 
   app.get('/v1/jobs/:id/results/:index', {
     schema: {
       tags: ['batch'],
-      summary: 'One item\'s line of a job, as soon as it is written',
+      summary: 'One item of a job, as soon as it is written: its product in its own media type (CSV, OEM, GeoJSON, SVG), or its line (JSON)',
+      description: 'For an item that asked for a format other than JSON and was answered, the default answer (no Accept, or an Accept that prefers it) is the product itself, byte for byte what the endpoint answers alone, ' +
+        'with the item\'s scenario hash as ETag; `Accept: application/json` answers the item\'s line instead. For a JSON item, and for an item that failed, the answer is its line (application/json), the same bytes as in the NDJSON results.',
       params: z.object({ id: JobId, index: z.coerce.number().int().min(0).max(1_000_000) }),
       response: {
-        200: { description: 'The item\'s line (one JSON object)', content: { 'application/json': { schema: BatchLine } } },
+        200: {
+          description: 'The item\'s product, or its line (one JSON object)',
+          content: {
+            'application/json': { schema: BatchLine },
+            'text/csv': { schema: z.string().describe('CSV product') },
+            'text/plain': { schema: z.string().describe('CCSDS OEM product (KVN)') },
+            'application/geo+json': { schema: z.unknown().describe('GeoJSON product') },
+            'image/svg+xml': { schema: z.string().describe('SVG product') },
+          },
+        },
         404: Problem.describe('job-not-found, item-not-written'),
+        406: Problem.describe('not-acceptable: Accept admits neither the product\'s media type nor application/json'),
         503: unavailable,
       },
     },
@@ -216,7 +236,50 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
     const { index } = request.params;
     const line = index < job.items ? await queued(queue.line(job.id, index)) : undefined;
     if (!line) throw new ProblemError('item-not-written', `job ${job.id} has ${job.items} items, ${job.done} written; item ${index} is not written`);
-    return reply.type('application/json; charset=utf-8').header('cache-control', 'no-store').send(line.subarray(0, line.length - 1) as never); // bytes as stored: not serialised
+    reply.header('cache-control', 'no-store').header('vary', 'accept');
+    const product = lineProduct(line);
+    if (product && product.format !== 'json') {
+      const bare = product.mediaType.split(';')[0]!.trim();
+      const choice = chooseFormat(request, undefined, [['product', bare], ['line', 'application/json']] as const);
+      if (choice === 'product') {
+        const hash = /"scenarioHash":"([0-9a-f]{64})"/.exec(line.subarray(0, 400).toString('latin1'))?.[1];
+        if (hash) reply.header('etag', `"${hash}"`);
+        return reply.type(product.mediaType).send(product.bytes as never);
+      }
+    }
+    return reply.type('application/json; charset=utf-8').send(line.subarray(0, line.length - 1) as never); // bytes as stored: not serialised
+  });
+
+  app.get('/v1/jobs/:id/archive', {
+    schema: {
+      tags: ['batch'],
+      summary: 'Every item\'s product of a done (or cancelled) job as one .tar.gz, with a manifest',
+      description: 'A gzip-compressed tar (POSIX ustar) holding job-<id>/manifest.json (the job; per item its index, id, kind, status, scenario hash, format, media type, file name and size) ' +
+        'and one file per item in input order: <index>-<item id or kind>.<format> (json, csv, oem, geojson, svg) for an answered item, <index>-<item id or kind>.problem.json for a failed one ' +
+        '(item ids are reduced to letters, digits, ".", "_", "-" and 60 characters). The products are the endpoints\' own bytes. ' +
+        'Bounded: the files together hold at most JOB_ARCHIVE_MAX_BYTES (default 512 MiB) before compression, else 422 limit-exceeded (read the items one by one: results/{index}). ' +
+        'A queued or running job answers 409 job-not-done with Retry-After; a failed one 409 with the reason.',
+      params: Params,
+      response: {
+        200: { description: 'The archive', content: { 'application/gzip': { schema: z.string().describe('tar.gz bytes') } } },
+        404: notFound,
+        409: Problem.describe('job-not-done'),
+        422: Problem.describe('limit-exceeded'),
+        503: unavailable,
+      },
+    },
+  }, async (request, reply) => {
+    const job = await find(request, request.params.id);
+    finishedOrThrow(job);
+    const { entries, bytes } = await queued(archiveEntries(job, queue.results(job.id)));
+    if (bytes > config.JOB_ARCHIVE_MAX_BYTES) {
+      throw new ProblemError('limit-exceeded', `the archive of job ${job.id} would hold ${bytes} bytes; the maximum is ${config.JOB_ARCHIVE_MAX_BYTES} (JOB_ARCHIVE_MAX_BYTES): read the items one by one (results/{index})`);
+    }
+    return reply
+      .type('application/gzip')
+      .header('content-disposition', `attachment; filename="job-${job.id}.tar.gz"`)
+      .header('cache-control', 'no-store')
+      .send(archiveStream(job, entries, queue.results(job.id)) as never); // a stream: not serialised
   });
 
   app.get('/v1/jobs/:id/changes', {

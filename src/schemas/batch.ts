@@ -17,7 +17,7 @@ export const BatchItem = z
     kind: z.enum(BATCH_KINDS).describe('Which endpoint answers the item: orbit -> POST /v1/orbit, two-body, central-force, track, passes likewise'),
     request: z.record(z.string(), z.unknown()).describe(
       'The JSON body of that endpoint, exactly as it would be sent alone (same fields, units and defaults). It is validated when the item runs: ' +
-      'an invalid request becomes that line\'s 400 problem. Answers inside a batch are JSON: a request with another format (csv, oem, geojson, svg) answers 406 not-acceptable. ' +
+      'an invalid request becomes that line\'s 400 problem. A request may name any format its endpoint has (format: csv, oem, geojson, svg): the line then carries the product (see the line\'s format, mediaType and product). ' +
       'Tracks (track grid, two-body track grid, central-force track samples) hold at most BATCH_MAX_TRACK_SAMPLES samples (default 10000), else 422 too-many-samples'),
   })
   .strict()
@@ -53,7 +53,10 @@ export const BatchLine = z
     kind: z.enum(BATCH_KINDS).describe('The item\'s kind'),
     status: z.number().int().describe('The HTTP status the endpoint answered for this item alone: 200, or the problem\'s status (400, 406, 422, 503, 500)'),
     scenarioHash: ScenarioHash.optional().describe('With status 200 (and with 422 limit-exceeded for an answer too big for a line): the item\'s scenario hash; GET /v1/results/{scenarioHash} serves the answer while it is cached'),
-    answer: z.unknown().optional().describe('With status 200: exactly the JSON the endpoint answers for this request alone (same fields, same bytes)'),
+    format: z.string().optional().describe('With status 200, when the request named a format other than json (csv, oem, geojson, svg): that format'),
+    mediaType: z.string().optional().describe('With format: the media type the endpoint answers that format with (e.g. text/csv; charset=utf-8; header=present)'),
+    answer: z.unknown().optional().describe('With status 200 and a JSON product (JSON, GeoJSON): exactly the JSON the endpoint answers for this request alone (same fields, same bytes)'),
+    product: z.string().optional().describe('With status 200 and a text product (CSV, CCSDS OEM, SVG): the endpoint\'s answer for this request alone as one JSON string (decoded, the same bytes); GET /v1/jobs/{id}/results/{index} serves it in its own media type'),
     problem: Problem.optional().describe('Otherwise: the RFC 9457 problem the endpoint answers for this request alone'),
   })
   .describe(`One line of the ${NDJSON_MEDIA_TYPE} answer: one per item, in input order, each a JSON object ending with a newline`);
@@ -85,6 +88,7 @@ export const JobId = z.string().min(1).max(100).describe('The job id (a UUID)');
 export const JobLinks = z.object({
   self: z.string().describe('GET: the job status; DELETE: cancel it'),
   results: z.string().describe('GET: the NDJSON results once the job is done'),
+  archive: z.string().describe('GET: every item\'s product as one .tar.gz with a manifest, once the job is done'),
   changes: z.string().describe('GET: with compareTo, what moved since the earlier job (NDJSON)'),
 });
 

@@ -117,6 +117,26 @@ describe.skipIf(!available)('BullMQ job queue (real Redis at 127.0.0.1:6379)', (
     await teardown();
   });
 
+  it('products per item through Redis: one item in its own media type and the archive, the endpoint\'s own bytes', async () => {
+    await replicas();
+    const track = { centralBody: 'earth', elements: ITEMS[0]!.request.elements, grid: { start: '2026-12-01T00:00:00Z', stop: '2026-12-01T00:10:00Z', step: 60 } };
+    const id = await submit([{ id: 'csv', kind: 'track', request: { ...track, format: 'csv' } }, { id: 'oem', kind: 'track', request: { ...track, format: 'oem' } }]);
+    worker(appRunner(solver));
+    await until('job done', async () => (await status(id)).status === 'done');
+    const fresh = await testApp();
+    for (const [i, format] of ['csv', 'oem'].entries()) {
+      const own = await postJson(fresh, '/v1/track', { ...track, format });
+      const one = await apiB.inject({ url: `/v1/jobs/${id}/results/${i}` });
+      expect(one.headers['content-type']).toBe(own.headers['content-type']);
+      expect(one.rawPayload.equals(own.rawPayload), format).toBe(true);
+    }
+    await fresh.close();
+    const archive = await apiA.inject({ url: `/v1/jobs/${id}/archive` });
+    expect(archive.statusCode).toBe(200);
+    expect(archive.rawPayload.subarray(0, 2).equals(Buffer.from([0x1f, 0x8b]))).toBe(true); // gzip magic (RFC 1952 sec. 2.3.1)
+    await teardown();
+  });
+
   it('a worker that stops on a signal hands its job back at once (long before its lock would lapse); the next worker resumes after the stored lines', async () => {
     await replicas();
     const id = await submit(ITEMS);
