@@ -5,13 +5,11 @@
 //
 // 1. Coarse scan. The separation c between the Earth's centre and the Sun's centre seen from the
 //    spacecraft is, within the solar parallax (|r| / |s| < 3e-4 rad at GEO), the angle between the
-//    direction -r_hat and the Sun's direction. -r_hat runs along the orbit's great circle at most
-//    at w = h / rp^2 (fastest at periapsis), the Sun moves by the Earth's mean motion (2e-7 rad/s),
-//    and the angle between a point running along a great circle and a fixed point has one minimum
-//    and one maximum per turn, half a turn apart: extrema of c are at least pi / w apart. With the
-//    step pi / (8 w') (w' = w + 2e-7 rad/s; 356 s at 500 km altitude, 10 s to 600 s) each step
-//    holds at most one extremum of the shadow margins a + b - c (penumbra) and b - a - c (umbra),
-//    the factor 8 leaving room for the slower changes of a and b with the distances.
+//    direction -r_hat and the Sun's direction; the Sun's direction moves at the Earth's mean
+//    motion (2e-7 rad/s). Step: propagation/scan-step.ts with that rate as the reference rate
+//    (356 s at 500 km altitude, 10 s to 600 s): each step holds at most one extremum of c, hence
+//    of the shadow margins a + b - c (penumbra) and b - a - c (umbra), the factor 8 leaving room
+//    for the slower changes of a and b with the distances.
 // 2. Crossings. Sign changes of a margin between samples are refined by a bracketed root to
 //    0.01 s; a step where the margin stays negative but its rate goes from + to - is searched for
 //    its maximum, so an eclipse shorter than a step (a grazing one) is not missed
@@ -29,9 +27,10 @@ import { BODIES } from '../bodies/bodies.js';
 import { ephemerisCache } from '../bodies/sun-moon.js';
 import { SPEED_OF_LIGHT_KM_S } from '../core/constants.js';
 import { failure, success, type Outcome } from '../core/result.js';
-import { cross, dot, norm, sub, type Vec3 } from '../core/vec3.js';
+import { norm, sub, type Vec3 } from '../core/vec3.js';
 import { goldenSectionMax } from '../numerics/golden-section.js';
 import { positiveIntervals, type PositiveInterval } from '../numerics/positive-intervals.js';
+import { scanStep } from '../propagation/scan-step.js';
 import { PropagationStopped, gcrfStateAt, unwrapState, type GcrfState, type StateAt, type StateBatch } from '../propagation/state-source.js';
 import { ascendingNodeLocalTime, betaAngle, isSunSynchronousOrbit } from './beta.js';
 import { hiddenFraction, penumbraMargin, penumbraMarginRate, shadowGeometry, umbraMargin, umbraMarginRate, type ShadowGeometry } from './shadow.js';
@@ -44,8 +43,6 @@ export const ECLIPSE_ROOT_TOLERANCE_S = 0.01;
 /** Mean lunar radius, km: IAU WGCCRE 2015 report (Archinal et al. 2018), 1737.4 km, from memory. */
 export const MOON_RADIUS_KM = 1737.4;
 
-const MAX_COARSE_STEP_S = 600;
-const MIN_COARSE_STEP_S = 10;
 /** The Earth's heliocentric mean motion, rad/s (bodies.ts): how fast the Sun's direction moves. */
 const SUN_RATE = BODIES.earth.heliocentricMeanMotionRadS ?? 2e-7;
 
@@ -106,16 +103,7 @@ export interface EclipseSearchResult {
 }
 
 /** Coarse step (s) of the eclipse search from an osculating state (the argument at the top). */
-export function eclipseCoarseStep(r: Vec3, v: Vec3, gm = BODIES.earth.gm): number {
-  const rMag = norm(r);
-  const h = norm(cross(r, v));
-  const energy = dot(v, v) / 2 - gm / rMag;
-  const e = Math.sqrt(Math.max(0, 1 + (2 * energy * h * h) / (gm * gm)));
-  // Periapsis radius p / (1 + e), p = h^2 / gm (Vallado 4th ed. Alg. 9, from memory).
-  const rp = h > 0 ? (h * h) / gm / (1 + e) : rMag;
-  const turnRate = (h > 0 ? h / (rp * rp) : norm(v) / rMag) + SUN_RATE;
-  return Math.min(MAX_COARSE_STEP_S, Math.max(MIN_COARSE_STEP_S, Math.PI / (8 * turnRate)));
-}
+export const eclipseCoarseStep = (r: Vec3, v: Vec3, gm = BODIES.earth.gm): number => scanStep(r, v, gm, SUN_RATE).stepS;
 
 interface Sample {
   readonly earth: ShadowGeometry;

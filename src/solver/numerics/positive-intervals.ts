@@ -4,7 +4,7 @@
 // - no sign change but the rate going from + to - is a maximum inside the step: it is found by
 //   golden-section search, and when it is positive the short interval around it is kept, so an
 //   interval shorter than a step is not missed.
-// Used by the eclipse search (inside the shadow).
+// Used by the pass search (above the horizon mask) and the eclipse search (inside the shadow).
 
 import { goldenSectionMax } from './golden-section.js';
 import { illinoisRoot } from './illinois.js';

@@ -1,15 +1,15 @@
 // Ground-station pass search: when is a spacecraft above each station's horizon mask?
 //
 // 1. Coarse scan. The spacecraft's Earth-fixed state is computed once per coarse step and shared
-//    by all stations. Step argument: the direction of the spacecraft seen from the Earth's centre
-//    turns, relative to the Earth, at most w = h / rp^2 + omegaEarth (fastest at periapsis).
-//    Elevation falls as the central angle psi between station and spacecraft grows, so an
-//    elevation maximum (psi near a minimum) and the next minimum (psi near a maximum) are at least
-//    pi / w apart. With step = pi / (8 w) (333 s at 500 km altitude; 10 s to 600 s) every step
-//    holds at most one extremum of elevation. A pass shorter
-//    than a step (a grazing one, max elevation just above the limit) has negative
-//    "elevation - limit" at both ends of its step, but the elevation rate changes sign from + to -
-//    there: each such step is searched for its maximum, so grazing passes are not missed.
+//    by all stations. Step: propagation/scan-step.ts with the Earth's rotation as the reference
+//    rate (the direction seen from the Earth's centre turns relative to the Earth at most at
+//    w = h / rp^2 + omegaEarth). Elevation falls as the central angle psi between station and
+//    spacecraft grows, so an elevation maximum (psi near a minimum) and the next minimum are at
+//    least pi / w apart, and each step of pi / (8 w) holds at most one extremum of elevation
+//    (333 s at 500 km altitude; 10 s to 600 s). A pass shorter than a step (a grazing one, max
+//    elevation just above the limit) has negative "elevation - limit" at both ends of its step,
+//    but the elevation rate changes sign from + to - there: each such step is searched for its
+//    maximum (numerics/positive-intervals.ts), so grazing passes are not missed.
 // 2. Prefilter. A station at radius R sees the spacecraft at radius r above geocentric elevation e
 //    only when psi <= acos(R/r cos e) - e (plane triangle centre-station-spacecraft; common
 //    practice, no source). psi and r change at bounded rates (1.5 x the two-body bounds) over a
@@ -32,11 +32,13 @@ import { EARTH_ROTATION_RATE_RAD_S, gcrfToItrfTabled, orientationTable, type Fra
 import { createHorizonMask, horizonLimit, horizonLimitSlope, isFlatMask, type HorizonMask, type MaskPoint } from './horizon-mask.js';
 import { BODIES } from '../bodies/bodies.js';
 import { goldenSectionMax } from '../numerics/golden-section.js';
-import { illinoisRoot } from '../numerics/illinois.js';
+import { positiveIntervals, type PositiveInterval } from '../numerics/positive-intervals.js';
+import { PropagationStopped, gcrfStateAt, unwrapState, type StateAt, type StateBatch } from '../propagation/state-source.js';
+import { scanStep } from '../propagation/scan-step.js';
 import { DEG, SECONDS_PER_DAY } from '../core/math.js';
-import { failure, success, type Failure, type Outcome } from '../core/result.js';
+import { failure, success, type Outcome } from '../core/result.js';
 import { dopplerFactor, lookAngles, stationFromGeodetic, type LookAngles, type Station } from './topocentric.js';
-import { cross, dot, norm, type Vec3 } from '../core/vec3.js';
+import { dot, norm, type Vec3 } from '../core/vec3.js';
 
 /** Longest pass-search window, s (31 days). */
 export const MAX_PASS_WINDOW_S = 31 * SECONDS_PER_DAY;
@@ -47,8 +49,6 @@ export const MAX_POINTING_SAMPLES = 500_000;
 /** Smallest pointing step, s. */
 export const MIN_POINTING_STEP_S = 0.1;
 
-const MAX_COARSE_STEP_S = 600;
-const MIN_COARSE_STEP_S = 10;
 const ROOT_TOLERANCE_S = 1e-3;
 const PEAK_TOLERANCE_S = 1e-2;
 const FINE_MAX_STEP_S = 10;
@@ -59,14 +59,7 @@ const RATE_MARGIN = 1.5;
 /** Added to the two-body bound on the radial speed, km/s. */
 const RADIAL_SPEED_FLOOR = 0.05;
 
-export interface GcrfState {
-  readonly r: Vec3;
-  readonly v: Vec3;
-}
-/** Propagator: GCRF state (km, km/s) at a TT epoch; may report an expected failure (impact...). */
-export type StateAt = (tt: number) => GcrfState | Outcome<GcrfState>;
-/** Optional batch propagator: 6 numbers (r, v) per epoch. */
-export type StateBatch = (epochs: Float64Array) => Float64Array | Outcome<Float64Array>;
+export type { GcrfState, StateAt, StateBatch } from '../propagation/state-source.js';
 
 export interface PassStation {
   /** Unique within one search. */
@@ -132,37 +125,16 @@ export interface PassSearchResult {
   readonly evaluations: number;
 }
 
-/** Thrown inside the search when the propagator reports a failure; caught in findPasses. */
-class PropagationStopped {
-  constructor(readonly failure: Failure) {}
-}
-
-function unwrap<T>(x: T | Outcome<T>, what: string): T {
-  if (typeof x === 'object' && x !== null && 'ok' in x) {
-    if (!x.ok) throw new PropagationStopped(x);
-    return x.value;
-  }
-  if (x === undefined || x === null) throw new TypeError(`propagator returned nothing for ${what}`);
-  return x as T;
-}
-
 /**
- * Coarse step (s) and the rate bounds behind it, from an osculating state: periapsis radius from
- * the specific angular momentum and eccentricity (Vallado 4th ed. Alg. 9, from memory).
+ * Coarse step (s) and the rate bounds behind it, from an osculating state (propagation/scan-step.ts).
  */
 export function coarseStepFor(r: Vec3, v: Vec3, gm = BODIES.earth.gm): RateBounds & { stepS: number } {
-  const rMag = norm(r);
-  const h = norm(cross(r, v));
-  const energy = dot(v, v) / 2 - gm / rMag;
-  const e = Math.sqrt(Math.max(0, 1 + (2 * energy * h * h) / (gm * gm)));
-  const rp = h > 0 ? (h * h) / gm / (1 + e) : rMag;
-  // Turn rate of the spacecraft direction relative to the Earth: at most h / rp^2 + omegaEarth.
-  const turnRate = (h > 0 ? h / (rp * rp) : norm(v) / rMag) + EARTH_ROTATION_RATE_RAD_S;
-  const stepS = Math.min(MAX_COARSE_STEP_S, Math.max(MIN_COARSE_STEP_S, Math.PI / (8 * turnRate)));
+  const scan = scanStep(r, v, gm, EARTH_ROTATION_RATE_RAD_S);
+  const [e, h] = [scan.eccentricity, scan.angularMomentum];
   // Radial speed |dr/dt| = (gm / h) e |sin(nu)| <= gm e / h (Vallado 4th ed. sec. 2.3, from memory);
   // the constant term covers perturbations of near-circular orbits (J2: a few m/s).
   const radialSpeedMax = h > 0 ? RATE_MARGIN * ((gm * e) / h) + RADIAL_SPEED_FLOOR : norm(v);
-  return { stepS, psiDotMax: RATE_MARGIN * turnRate, radialSpeedMax };
+  return { stepS: scan.stepS, psiDotMax: RATE_MARGIN * scan.turnRateRadS, radialSpeedMax };
 }
 
 /** Upper bounds on the Earth-fixed turn rate of the spacecraft direction (rad/s) and on |dr/dt| (km/s). */
@@ -216,10 +188,7 @@ interface Context {
 
 function earthFixedAt(ctx: Context, tt: number): StateVectors {
   ctx.calls++;
-  const s = unwrap(ctx.stateAt(tt), `epoch ${tt}`);
-  if (![...s.r, ...s.v].every(Number.isFinite)) {
-    throw new PropagationStopped(failure('invalid-parameter', `the propagator returned a non-finite state at TT ${tt} s`));
-  }
+  const s = gcrfStateAt(ctx.stateAt, tt);
   return gcrfToItrfTabled(ctx.table, tt, s.r, s.v);
 }
 
@@ -234,7 +203,7 @@ function coarseTrack(ctx: Context, batch: StateBatch | undefined, stepS: number)
   const times = new Float64Array(count);
   for (let k = 0; k < count; k++) times[k] = Math.min(ctx.startTT + k * stepS, ctx.stopTT);
   const states = new Float64Array(6 * count);
-  const gcrf = batch ? unwrap(batch(times), 'the coarse track') : undefined;
+  const gcrf = batch ? unwrapState(batch(times), 'the coarse track') : undefined;
   if (gcrf && gcrf.length !== 6 * count) throw new TypeError('stateBatch must return 6 numbers per epoch');
   for (let k = 0; k < count; k++) {
     const tt = times[k]!;
@@ -255,59 +224,8 @@ function coarseTrack(ctx: Context, batch: StateBatch | undefined, stepS: number)
 const trackR = (t: Track, k: number): Vec3 => [t.states[6 * k]!, t.states[6 * k + 1]!, t.states[6 * k + 2]!];
 const trackV = (t: Track, k: number): Vec3 => [t.states[6 * k + 3]!, t.states[6 * k + 4]!, t.states[6 * k + 5]!];
 
-
-
-/** An interval where some function of the look angles is positive. */
-interface Interval {
-  readonly start: number;
-  readonly stop: number;
-  readonly startsBefore: boolean;
-  readonly endsAfter: boolean;
-}
-
-/**
- * Intervals where margin(look) > 0, from look angles at sample times (`sample(k)`), an exact
- * evaluator for refinement, and `ruledOut(k)`: true when step k cannot hold any visibility.
- */
-function positiveIntervals(
-  times: ArrayLike<number>,
-  sample: (k: number) => LookAngles,
-  ruledOut: (k: number) => boolean,
-  lookAtTime: (t: number) => LookAngles,
-  margin: (l: LookAngles) => number,
-  marginRate: (l: LookAngles) => number,
-  edges: { startsBefore: boolean; endsAfter: boolean },
-): Interval[] {
-  const out: Interval[] = [];
-  const fn = (t: number): number => margin(lookAtTime(t));
-  const count = times.length;
-  let open: { start: number; startsBefore: boolean } | undefined;
-  for (let k = 0; k + 1 < count; k++) {
-    if (!open && ruledOut(k)) continue;
-    const la = sample(k);
-    const lb = sample(k + 1);
-    const ta = times[k]!;
-    const tb = times[k + 1]!;
-    const fa = margin(la);
-    const fb = margin(lb);
-    if (k === 0 && fa > 0) open = { start: ta, startsBefore: edges.startsBefore };
-    if (fa > 0 && fb <= 0) {
-      const stop = illinoisRoot(fn, ta, tb, fa, fb, ROOT_TOLERANCE_S);
-      out.push({ start: open?.start ?? ta, stop, startsBefore: open?.startsBefore ?? false, endsAfter: false });
-      open = undefined;
-    } else if (fa <= 0 && fb > 0) {
-      open = { start: illinoisRoot(fn, ta, tb, fa, fb, ROOT_TOLERANCE_S), startsBefore: false };
-    } else if (fa <= 0 && fb <= 0 && marginRate(la) > 0 && marginRate(lb) < 0) {
-      const peak = goldenSectionMax(fn, ta, tb, PEAK_TOLERANCE_S); // a maximum between two samples: a grazing pass?
-      if (peak.value > 0) {
-        const start = illinoisRoot(fn, ta, peak.t, fa, peak.value, ROOT_TOLERANCE_S);
-        out.push({ start, stop: illinoisRoot(fn, peak.t, tb, peak.value, fb, ROOT_TOLERANCE_S), startsBefore: false, endsAfter: false });
-      }
-    }
-  }
-  if (open) out.push({ start: open.start, stop: times[count - 1]!, startsBefore: open.startsBefore, endsAfter: edges.endsAfter });
-  return out;
-}
+/** An interval where the station sees the spacecraft. */
+type Interval = PositiveInterval;
 
 /** Fine sample times across [a, b]: steps of at most 10 s and 0.5 deg of azimuth or elevation. */
 function fineSamples(a: number, b: number, lookAtTime: (t: number) => LookAngles): { times: number[]; looks: LookAngles[] } {
@@ -335,29 +253,31 @@ function searchStation(ctx: Context, st: Prepared, track: Track, bounds: RateBou
     return lookAngles(st.station, s.r, s.v);
   };
   const low = st.mask.lowest;
-  const envelope = positiveIntervals(
-    track.times,
+  const tolerances = { rootTolS: ROOT_TOLERANCE_S, peakTolS: PEAK_TOLERANCE_S };
+  const envelope = positiveIntervals<LookAngles>({
+    times: track.times,
     sample,
-    (k) => !mayBeVisible(st, track, k, bounds),
-    lookAtTime,
-    (l) => l.elevation - low,
-    (l) => l.elevationRate,
-    { startsBefore: true, endsAfter: true },
-  );
+    ruledOut: (k) => !mayBeVisible(st, track, k, bounds),
+    at: lookAtTime,
+    value: (l) => l.elevation - low,
+    rate: (l) => l.elevationRate,
+    edges: { startsBefore: true, endsAfter: true },
+    ...tolerances,
+  });
   if (st.flat) return envelope;
   const mask = st.mask;
   const out: Interval[] = [];
   for (const iv of envelope) {
     const fine = fineSamples(iv.start, iv.stop, lookAtTime);
-    const inside = positiveIntervals(
-      fine.times,
-      (k) => fine.looks[k]!,
-      () => false,
-      lookAtTime,
-      (l) => l.elevation - horizonLimit(mask, l.azimuth),
-      (l) => l.elevationRate - horizonLimitSlope(mask, l.azimuth) * l.azimuthRate,
-      iv,
-    );
+    const inside = positiveIntervals<LookAngles>({
+      times: fine.times,
+      sample: (k) => fine.looks[k]!,
+      at: lookAtTime,
+      value: (l) => l.elevation - horizonLimit(mask, l.azimuth),
+      rate: (l) => l.elevationRate - horizonLimitSlope(mask, l.azimuth) * l.azimuthRate,
+      edges: iv,
+      ...tolerances,
+    });
     out.push(...inside);
   }
   return out;
@@ -465,7 +385,8 @@ export function findPasses(search: PassSearch): Outcome<PassSearchResult> {
   if (!prepared.ok) return prepared;
   const ctx: Context = { table: orientationTable(startTT, stopTT, options), stateAt: search.stateAt, startTT, stopTT, calls: 0 };
   try {
-    const first = gcrfStateAt(ctx, startTT);
+    ctx.calls++;
+    const first = gcrfStateAt(ctx.stateAt, startTT);
     const bounds = coarseStepFor(first.r, first.v, options.gm);
     const track = coarseTrack(ctx, search.stateBatch, bounds.stepS);
     const found: Array<{ st: Prepared; iv: Interval }> = [];
@@ -490,7 +411,3 @@ export function findPasses(search: PassSearch): Outcome<PassSearchResult> {
   }
 }
 
-function gcrfStateAt(ctx: Context, tt: number): GcrfState {
-  ctx.calls++;
-  return unwrap(ctx.stateAt(tt), `epoch ${tt}`);
-}
