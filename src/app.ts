@@ -22,6 +22,7 @@ import twoBody from './routes/two-body.js';
 import centralForce from './routes/central-force.js';
 import batch from './routes/batch.js';
 import jobs from './routes/jobs.js';
+import { callbackSender } from './jobs/callback.js';
 
 export interface BuildOptions {
   config?: Partial<Config>;
@@ -65,6 +66,9 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   app.decorate('config', config);
   // Readiness checks, added by the plugins that hold a dependency; GET /readyz runs them all.
   app.decorate('readiness', new Map());
+  // Completion callbacks of in-process jobs (routes/jobs.ts sends them; tests wait with idle()).
+  app.decorate('jobCallbacks', callbackSender(config, app.log));
+  app.addHook('onClose', async () => app.jobCallbacks.close());
 
   await app.register(problems);
   await app.register(body);

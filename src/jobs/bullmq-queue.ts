@@ -49,6 +49,7 @@ const JobData = z.object({
   compareTo: z.object({ job: z.string(), thresholdSeconds: z.number(), thresholdDegrees: z.number() }).nullable(),
   fingerprint: z.string().nullable(),
   seq: z.number().int(),
+  callbackUrl: z.string().nullable().default(null),
 });
 type JobData = z.output<typeof JobData>;
 
@@ -167,7 +168,7 @@ export class BullJobQueue implements JobQueue {
       const seq = await this.#redis.incr(k.seq());
       const data: JobData = {
         label: job.label ?? null, owner, items: job.items.length, deadlineMs: job.deadlineMs ?? null,
-        compareTo: job.compareTo ?? null, fingerprint: job.fingerprint ?? null, seq,
+        compareTo: job.compareTo ?? null, fingerprint: job.fingerprint ?? null, seq, callbackUrl: job.callbackUrl ?? null,
       };
       const stored = await this.#redis.multi()
         .set(k.items(id), JSON.stringify(job.items), 'EX', ttl)
@@ -226,6 +227,7 @@ export class BullJobQueue implements JobQueue {
       compareTo: data.compareTo,
       fingerprint: data.fingerprint,
       seq: data.seq,
+      callbackUrl: data.callbackUrl,
     };
   }
 
@@ -331,6 +333,8 @@ export interface BullWorkerOptions {
   /** Seconds one blocking wait for a job lasts (BullMQ drainDelay, default 2). */
   readonly drainDelayS?: number;
   readonly log?: WorkerLog;
+  /** Called once a job this worker ran (or failed) is done, failed or cancelled for good (completion callbacks). */
+  readonly onFinished?: (id: string) => void;
 }
 
 const StoredItems = z.array(BatchItem);
@@ -364,7 +368,12 @@ export class BullJobWorker {
       drainDelay: options.drainDelayS ?? 2,
     });
     this.#worker.on('error', (error) => this.#log.warn({ err: error }, 'queue worker: BullMQ error'));
-    this.#worker.on('failed', (job, error) => this.#log.warn({ job: job?.id, err: error.message }, 'queue worker: job failed'));
+    this.#worker.on('failed', (job, error) => {
+      this.#log.warn({ job: job?.id, err: error.message }, 'queue worker: job failed');
+      // A failure that will be retried leaves the job delayed or waiting; only a final one is reported.
+      if (job?.id && options.onFinished) void job.getState().then((state) => { if (state === 'failed') options.onFinished!(job.id!); }, () => {});
+    });
+    this.#worker.on('completed', (job) => { if (job.id) options.onFinished?.(job.id); });
   }
 
   get id(): string { return this.#worker.id; }

@@ -88,6 +88,7 @@ export class MemoryJobQueue implements JobQueue {
       compareTo: job.compareTo ?? null,
       fingerprint: job.fingerprint ?? null,
       seq: ++this.#seq,
+      callbackUrl: job.callbackUrl ?? null,
     };
     const idempotency = job.idempotencyKey === undefined ? undefined : idempotencySlot(job.owner, job.idempotencyKey);
     this.#jobs.set(id, { record, items: job.items, lines: [], touchedMs: this.#now(), deadlineMs: job.deadlineMs, idempotency, abort: new AbortController() });
@@ -119,6 +120,7 @@ export class MemoryJobQueue implements JobQueue {
       job.items = undefined;
       job.record = { ...job.record, status: 'cancelled', finishedAt: new Date(this.#now()).toISOString(), error: CANCELLED_REASON };
       job.touchedMs = this.#now();
+      this.#events?.finished?.(job.record);
     } else {
       job.abort.abort(); // #runJob marks it cancelled when the items in hand are done
       await this.#running;
@@ -225,5 +227,6 @@ export class MemoryJobQueue implements JobQueue {
       clearTimeout(timer);
       job.items = undefined;
     }
+    this.#events?.finished?.(job.record);
   }
 }

@@ -32,6 +32,8 @@ export interface JobRecord {
   readonly fingerprint: string | null;
   /** Submission order (unique, increasing): the list cursor. */
   readonly seq: number;
+  /** Where the job's status is POSTed once it is done, failed or cancelled; null: no callback. */
+  readonly callbackUrl: string | null;
 }
 
 /** What a job is compared with, and what counts as moved. */
@@ -52,6 +54,7 @@ export interface NewJob {
   /** With `fingerprint`: a second enqueue with the same (owner, key) answers the job stored first (whatever its body; the caller compares fingerprints). */
   readonly idempotencyKey?: string | undefined;
   readonly fingerprint?: string | undefined;
+  readonly callbackUrl?: string | undefined;
 }
 
 /** One NDJSON line of a batch (ending with a newline) and whether it carries a problem. */
@@ -66,6 +69,8 @@ export type RunLines = (job: { readonly id: string; readonly items: readonly Bat
 export interface JobEvents {
   stalled(): void;
   done(durationS: number): void;
+  /** The job reached done, failed or cancelled (in-process queue only; queue workers report their own). */
+  finished?(job: JobRecord): void;
 }
 
 export interface JobPage {

@@ -14,6 +14,8 @@ import { itemChanges, lineId } from '../jobs/changes.js';
 import { MemoryJobQueue } from '../jobs/memory-queue.js';
 import { jobLinks, QueueUnavailableError, type JobQueue, type JobRecord } from '../jobs/queue.js';
 import { appRunner } from '../jobs/runner.js';
+import { toAnswer } from '../jobs/answer.js';
+import { callbackRefusal, callbackSettings, type CallbackSender } from '../jobs/callback.js';
 import { archiveEntries, archiveStream } from '../jobs/archive.js';
 import { lineProduct } from '../jobs/products.js';
 import { chooseFormat } from '../plugins/negotiate.js';
@@ -38,28 +40,12 @@ async function queued<T>(work: Promise<T>): Promise<T> {
   }
 }
 
-/** Now plus the items left at the rate seen since the job started; null unless running with progress. */
-function estimatedFinish(job: JobRecord, nowMs: number): string | null {
-  if (job.status !== 'running' || job.startedAt === null || job.done === 0) return null;
-  const elapsedMs = Math.max(0, nowMs - Date.parse(job.startedAt));
-  return new Date(nowMs + (elapsedMs / job.done) * (job.items - job.done)).toISOString();
+declare module 'fastify' {
+  interface FastifyInstance {
+    /** Completion callbacks of in-process jobs (`idle()` waits for pending deliveries). */
+    jobCallbacks: CallbackSender;
+  }
 }
-
-const toAnswer = (job: JobRecord, nowMs = Date.now()): JobAnswer => ({
-  id: job.id,
-  label: job.label,
-  status: job.status,
-  counts: { items: job.items, done: job.done, failed: job.failed },
-  progress: { fraction: job.items === 0 ? 1 : job.done / job.items, estimatedFinishAt: estimatedFinish(job, nowMs) },
-  attempts: job.attempts,
-  createdAt: job.createdAt,
-  startedAt: job.startedAt,
-  finishedAt: job.finishedAt,
-  deadline: job.deadline,
-  compareTo: job.compareTo?.job ?? null,
-  error: job.error,
-  links: jobLinks(job.id),
-});
 
 /** Results (and the archive) exist for a done or cancelled job: 409 job-not-done otherwise. */
 function finishedOrThrow(job: JobRecord): void {
@@ -84,7 +70,14 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
     ? new BullJobQueue(config.REDIS_URL, { prefix: config.JOB_KEY_PREFIX, ttlS: config.JOB_RESULT_TTL_S, attempts: config.JOB_ATTEMPTS, backoffMs: config.JOB_BACKOFF_MS })
     : new MemoryJobQueue(appRunner(app), { maxKept: config.JOBS_MAX_KEPT, ttlS: config.JOB_RESULT_TTL_S });
   app.jobMetrics.counts(() => queue.counts());
-  queue.watch({ stalled: () => app.jobMetrics.stalled(), done: (s) => app.jobMetrics.done(s) });
+  const callbacks = app.jobCallbacks;
+  // In-process jobs finish here; queue workers send the callbacks of the jobs they run (src/queue-worker.ts).
+  queue.watch({
+    stalled: () => app.jobMetrics.stalled(),
+    done: (s) => app.jobMetrics.done(s),
+    finished: (job) => { if (job.callbackUrl) void callbacks.send(job.callbackUrl, toAnswer(job), { job: job.id }); },
+  });
+
   // The in-process queue stops before the app closes (its items run on this app); connections close last.
   app.addHook('preClose', async () => queue.stop());
   app.addHook('onClose', async () => queue.close());
@@ -118,16 +111,20 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
         'When the queue cannot take the job the answer is 503 queue-unavailable with Retry-After.',
       headers: z.object({ 'idempotency-key': z.string().regex(IDEMPOTENCY_KEY_PATTERN).optional().describe('Your key for this submission: a repeat with the same body answers the same job') }),
       body: JobRequest,
-      response: { 202: JobAccepted.describe('Queued'), ...problemResponses, 409: Problem.describe('idempotency-conflict'), 503: unavailable },
+      response: { 202: JobAccepted.describe('Queued'), ...problemResponses, 409: Problem.describe('idempotency-conflict'), 422: Problem.describe('limit-exceeded, job-not-comparable, callback-not-allowed'), 503: unavailable },
     },
   }, async (request, reply) => {
-    const { label, items, deadline, compareTo, thresholdSeconds, thresholdDegrees } = request.body;
+    const { label, items, deadline, compareTo, thresholdSeconds, thresholdDegrees, callbackUrl } = request.body;
     const owner = callerOf(request);
     const max = config.BATCH_MAX_ITEMS;
     if (items.length > max) throw new ProblemError('limit-exceeded', `the job holds ${items.length} items; the maximum is ${max} (BATCH_MAX_ITEMS): split it into several jobs`);
     const deadlineMs = deadline === undefined ? undefined : Date.parse(deadline);
     if (deadlineMs !== undefined && deadlineMs > Date.now() + config.JOB_MAX_DEADLINE_S * 1000) {
       throw new ProblemError('limit-exceeded', `the deadline is more than ${config.JOB_MAX_DEADLINE_S} s ahead (JOB_MAX_DEADLINE_S)`);
+    }
+    if (callbackUrl !== undefined) {
+      const refusal = callbackRefusal(callbackUrl, callbackSettings(config));
+      if (refusal) throw new ProblemError('callback-not-allowed', refusal);
     }
     if (compareTo !== undefined) {
       const earlier = await queued(queue.get(compareTo));
@@ -136,7 +133,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
     const key = request.headers['idempotency-key'];
     const fingerprint = key === undefined ? undefined : createHash('sha256').update(canonicalize(request.body) ?? '').digest('hex');
     const job = await queued(queue.enqueue({
-      label, items, owner, deadlineMs, idempotencyKey: key, fingerprint,
+      label, items, owner, deadlineMs, idempotencyKey: key, fingerprint, callbackUrl,
       compareTo: compareTo === undefined ? undefined : { job: compareTo, thresholdSeconds, thresholdDegrees },
     }));
     if (fingerprint !== undefined && job.fingerprint !== fingerprint) {

@@ -78,6 +78,11 @@ export const JobRequest = z
     compareTo: z.string().min(1).max(100).optional().describe('The id of an earlier job of yours: GET /v1/jobs/{id}/changes then lists, item by item (matched by item id), what moved since that job'),
     thresholdSeconds: z.number().min(0).max(86_400).default(1).describe('With compareTo: a pass whose AOS, LOS or TCA moved by more than this, seconds, is reported as moved'),
     thresholdDegrees: z.number().min(0).max(90).default(0.1).describe('With compareTo: a pass whose maximum elevation changed by more than this, degrees, is reported as moved'),
+    callbackUrl: z.string().min(1).max(2000).optional().describe(
+      'http(s) URL: once the job is done, failed or cancelled, its status (the answer of GET /v1/jobs/{id}) is POSTed there as JSON, ' +
+      'signed with HMAC-SHA256 under the service\'s JOB_CALLBACK_SECRET: header apsides-signature = "sha256=" + hex HMAC of "<apsides-signature-timestamp>.<body>"; ' +
+      'apsides-delivery is one id per callback (the same on retries). A non-2xx answer, a redirect (never followed) or no answer within JOB_CALLBACK_TIMEOUT_MS is retried ' +
+      'JOB_CALLBACK_ATTEMPTS times in all with exponential backoff from JOB_CALLBACK_BACKOFF_MS. Only hosts in JOB_CALLBACK_HOSTS are allowed: any other answers 422 callback-not-allowed'),
   })
   .strict()
   .meta({ description: 'A batch to run later: the same items as POST /v1/batch', examples: [{ label: 'nightly recalculation', items: DEMO_ITEMS }] });
@@ -117,6 +122,7 @@ export const JobAnswer = z.object({
   finishedAt: z.string().nullable().describe('When it became done, failed or cancelled, ISO 8601 UTC; null before'),
   deadline: z.string().nullable().describe('The deadline given at submission, or null'),
   compareTo: z.string().nullable().describe('The earlier job compared with, or null'),
+  callbackUrl: z.string().nullable().describe('Where the status is POSTed once the job is done, failed or cancelled, or null'),
   error: z.string().nullable().describe('Why a failed or cancelled job stopped; null otherwise'),
   links: JobLinks,
 });

@@ -1,6 +1,9 @@
 // Queue workers as separate processes on the real Redis: killed with SIGKILL mid-job, stopped with
 // SIGTERM mid-job, two of them on one queue. Every item's line once, in input order, and byte for
 // byte the answer the endpoint gives alone.
+import { createHmac } from 'node:crypto';
+import { createServer } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { Redis } from 'ioredis';
@@ -45,7 +48,7 @@ describe.skipIf(!available)('queue worker processes (real Redis at 127.0.0.1:637
   const setup = async (extra: Record<string, string> = {}) => {
     prefix = `${RUN}${++testNumber}:`;
     env = { REDIS_URL, JOB_KEY_PREFIX: prefix, CACHE_KEY_PREFIX: `${prefix}answer:`, ...extra };
-    api = await testApp({ config: { REDIS_URL, JOB_KEY_PREFIX: prefix, CACHE_KEY_PREFIX: `${prefix}answer:` } });
+    api = await testApp({ config: { REDIS_URL, JOB_KEY_PREFIX: prefix, CACHE_KEY_PREFIX: `${prefix}answer:`, ...extra } });
   };
   const spawnWorker = () => {
     const p = startWorker(env);
@@ -139,6 +142,34 @@ describe.skipIf(!available)('queue worker processes (real Redis at 127.0.0.1:637
     }
     for (const p of pair) p.child.kill('SIGTERM');
     await Promise.all(pair.map((p) => p.exited));
+    await api.close();
+  }, 120_000);
+
+  it('the worker that finishes a job POSTs its status to the callbackUrl, signed (HMAC-SHA256, RFC 2104, recomputed here)', async () => {
+    const got: { headers: Record<string, unknown>; body: string }[] = [];
+    const receiver = createServer((req, res) => {
+      let body = '';
+      req.on('data', (c: Buffer) => { body += c.toString('utf8'); });
+      req.on('end', () => { got.push({ headers: req.headers, body }); res.writeHead(204).end(); });
+    });
+    await new Promise<void>((resolve) => receiver.listen(0, '127.0.0.1', resolve));
+    const port = (receiver.address() as AddressInfo).port;
+    const secret = 'worker process callback secret';
+    await setup({ JOB_CALLBACK_HOSTS: `127.0.0.1:${port}`, JOB_CALLBACK_SECRET: secret });
+    const res = await postJson(api, '/v1/jobs', { items: orbitItems(3), callbackUrl: `http://127.0.0.1:${port}/done` });
+    expect(res.statusCode, res.body).toBe(202);
+    const id = res.json().id as string;
+    const worker = spawnWorker();
+    await worker.started;
+    await until('callback received', async () => got.length > 0, 6000);
+    const body = JobAnswer.parse(JSON.parse(got[0]!.body));
+    expect(body).toMatchObject({ id, status: 'done', counts: { items: 3, done: 3 } });
+    const t = String(got[0]!.headers['apsides-signature-timestamp']);
+    expect(got[0]!.headers['apsides-signature']).toBe(`sha256=${createHmac('sha256', secret).update(`${t}.${got[0]!.body}`).digest('hex')}`);
+    worker.child.kill('SIGTERM');
+    await worker.exited;
+    expect(got).toHaveLength(1);
+    await new Promise((resolve) => receiver.close(resolve));
     await api.close();
   }, 120_000);
 });
