@@ -7,6 +7,7 @@ import type { AnswerCache } from './cache/types.js';
 import { RedisCache, TieredCache } from './cache/redis.js';
 import problems, { clientErrorHandler, clip, frameworkErrors, MAX_PATH_SEGMENT_CHARS } from './plugins/problems.js';
 import body, { requestIds } from './plugins/body.js';
+import auth from './plugins/auth.js';
 import openapi from './plugins/openapi.js';
 import answers from './plugins/answers.js';
 import metrics from './plugins/metrics.js';
@@ -72,6 +73,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
 
   await app.register(problems);
   await app.register(body);
+  await app.register(auth);
   await app.register(openapi);
   await app.register(answers, {
     cache: options.cache ?? answerCache(config),

@@ -1,6 +1,7 @@
 // Environment parsed once at start. A bad value stops the start with a message naming it.
 import { availableParallelism } from 'node:os';
 import { z } from 'zod';
+import { parseKeyEntries } from './auth/keys.js';
 
 const int = (def: number, min: number, max: number) => z.coerce.number().int().min(min).max(max).default(def);
 
@@ -39,6 +40,15 @@ export const Config = z.object({
   JOB_STALLED_INTERVAL_MS: int(2000, 500, 600_000).describe('Redis queue: BullMQ stalledInterval, ms: how often each worker looks for stalled jobs (BullMQ default 30000)'),
   JOB_MAX_STALLED: int(5, 0, 1000).describe('Redis queue: BullMQ maxStalledCount: stalls (a worker died under the job) a job survives; one more and it fails (BullMQ default 1)'),
   JOB_MAX_DEADLINE_S: int(7 * 86_400, 1, 365 * 86_400).describe('Latest deadline a job may ask for, seconds after submission'),
+  API_KEYS: z.string().optional().superRefine((text, ctx) => {
+    try {
+      if (text !== undefined) parseKeyEntries(text);
+    } catch (error) {
+      ctx.addIssue({ code: 'custom', message: (error as Error).message });
+    }
+  }).describe('API keys, comma-separated entries id:scrypt:N:r:p:salt:hash from `npm run -s apikey -- <id>` (hashes only, never keys). Set: /v1 needs Authorization: Bearer <key>, jobs and stored results belong to their key. Unset: the service is open (a warning at start)'),
+  METRICS_TOKEN: z.string().min(16).max(200).optional().describe('Bearer token that also opens GET /metrics (for a scraper without an API key); with neither API_KEYS nor this set, /metrics is open'),
+  ASKERS_KEY_PREFIX: z.string().min(1).max(100).default('apsides:askers:').describe('Prefix of the Redis sets recording which keys asked each scenario (REDIS_URL set)'),
   JOB_KEY_PREFIX: z.string().min(1).max(100).default('apsides:jobs:').describe('Prefix of every Redis key of the job queue (REDIS_URL set)'),
 });
 export type Config = z.infer<typeof Config>;

@@ -413,7 +413,7 @@ export class BullJobWorker {
     let index = done;
     let reported = Date.now();
     try {
-      for await (const out of this.#run({ id, items: parsed.data }, done, signal)) {
+      for await (const out of this.#run({ id, items: parsed.data, owner: data.owner }, done, signal)) {
         const written = Number(await this.#redis.eval(APPEND, 4, k.lock(id), k.lines(id), k.meta(id), k.cancel(id),
           token, index, out.line, out.failed ? '1' : '0', this.#opts.ttlS));
         if (written === -3) throw new UnrecoverableError(CANCELLED_REASON);

@@ -207,7 +207,7 @@ export class MemoryJobQueue implements JobQueue {
     const timer = job.deadlineMs === undefined ? undefined : setTimeout(() => deadline.abort(), Math.max(0, job.deadlineMs - this.#now()));
     try {
       if (!pastDeadline()) {
-        for await (const out of this.#run({ id, items: job.items }, 0, signal)) {
+        for await (const out of this.#run({ id, items: job.items, owner: job.record.owner }, 0, signal)) {
           if (pastDeadline()) { deadline.abort(); break; }
           job.lines.push(out.line);
           update({ done: job.record.done + 1, failed: job.record.failed + (out.failed ? 1 : 0) });

@@ -64,7 +64,7 @@ export interface LineOut {
 }
 
 /** Runs a job's items from index `from` on, yielding their lines in input order; stops early when `signal` aborts. */
-export type RunLines = (job: { readonly id: string; readonly items: readonly BatchItem[] }, from: number, signal: AbortSignal) => AsyncIterable<LineOut>;
+export type RunLines = (job: { readonly id: string; readonly items: readonly BatchItem[]; readonly owner?: string | null }, from: number, signal: AbortSignal) => AsyncIterable<LineOut>;
 
 export interface JobEvents {
   stalled(): void;

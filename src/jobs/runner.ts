@@ -13,6 +13,7 @@ import { epochTT } from '../api/epoch.js';
 import { TimeGrid } from '../schemas/grid.js';
 import { regularGridCount } from '../solver/core/grid.js';
 import { INNER_REQUEST_HEADER } from '../plugins/metrics.js';
+import { CALLER_HEADER } from '../plugins/auth.js';
 import type { LineOut, RunLines } from './queue.js';
 import { isJsonMediaType, productTail } from './products.js';
 
@@ -27,9 +28,12 @@ export interface RunnerOptions {
   readonly requestIdPrefix: string;
   /** Stop starting items (and stop waiting to retry) when aborted. */
   readonly signal?: AbortSignal;
+  /** The caller the items run for (the batch's or the job's owner); null: the open service. */
+  readonly caller?: string | null;
 }
 
-export const runnerOptions = (config: Config, requestIdPrefix: string, signal?: AbortSignal): RunnerOptions => ({
+export const runnerOptions = (config: Config, requestIdPrefix: string, signal?: AbortSignal, caller: string | null = null): RunnerOptions => ({
+  caller,
   concurrency: config.BATCH_CONCURRENCY,
   maxTrackSamples: config.BATCH_MAX_TRACK_SAMPLES,
   maxAnswerBytes: config.BATCH_MAX_ANSWER_BYTES,
@@ -39,7 +43,7 @@ export const runnerOptions = (config: Config, requestIdPrefix: string, signal?: 
 
 /** A job runner on this app: the in-process queue and the queue workers use it. */
 export const appRunner = (app: FastifyInstance): RunLines =>
-  (job, from, signal) => runItems(app, job.items, from, runnerOptions(app.config, `job-${job.id}`, signal));
+  (job, from, signal) => runItems(app, job.items, from, runnerOptions(app.config, `job-${job.id}`, signal, job.owner ?? null));
 
 /** A 503 from the worker pool is retried this many times, after its Retry-After (at most MAX_RETRY_WAIT_S). */
 const OVERLOAD_RETRIES = 2;
@@ -113,6 +117,7 @@ export async function runItem(app: FastifyInstance, item: BatchItem, index: numb
         headers: {
           'content-type': 'application/json', accept: 'application/json', 'x-request-id': `${opts.requestIdPrefix}/${index}`,
           [INNER_REQUEST_HEADER]: app.jobMetrics.innerToken,
+          ...(opts.caller ? { [CALLER_HEADER]: opts.caller } : {}),
         },
       });
       const retryAfter = Number(res.headers['retry-after']);

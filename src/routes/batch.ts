@@ -48,7 +48,7 @@ const batch: FastifyPluginAsyncZod = async (app) => {
     if (items.length > max) throw new ProblemError('limit-exceeded', `the batch holds ${items.length} items; the maximum is ${max} (BATCH_MAX_ITEMS): split it, or submit it as several jobs`);
     // The generator starts items only while the client reads: a slow reader holds back the work, and
     // a client that goes away stops it (the stream is destroyed and the generator returns).
-    const lines = runItems(app, items, 0, runnerOptions(app.config, String(request.id)));
+    const lines = runItems(app, items, 0, runnerOptions(app.config, String(request.id), undefined, request.callerId));
     return sendNdjson(reply.header('cache-control', 'no-store'), bytes(lines));
   });
 };

@@ -57,8 +57,8 @@ function finishedOrThrow(job: JobRecord): void {
   }
 }
 
-/** The caller that owns the jobs it submits (the API key's id once keys exist); null: the open service. */
-const callerOf = (request: FastifyRequest): string | null => (request as { callerId?: string | null }).callerId ?? null;
+/** The caller that owns the jobs it submits (the API key's id); null: the open service. */
+const callerOf = (request: FastifyRequest): string | null => request.callerId;
 
 const Params = z.object({ id: JobId });
 const unavailable = Problem.describe('queue-unavailable: the queue\'s store does not answer, or the in-process queue is full; see Retry-After');
