@@ -19,6 +19,7 @@ import orbit from './routes/orbit.js';
 import results from './routes/results.js';
 import track from './routes/track.js';
 import passes from './routes/passes.js';
+import eclipses from './routes/eclipses.js';
 import twoBody from './routes/two-body.js';
 import centralForce from './routes/central-force.js';
 import batch from './routes/batch.js';
@@ -88,6 +89,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   await app.register(orbit);
   await app.register(track);
   await app.register(passes);
+  await app.register(eclipses);
   await app.register(twoBody);
   await app.register(centralForce);
   await app.register(results);

@@ -1,16 +1,15 @@
 // Passes between the API and the solver: stations (degrees) -> the solver's stations (radians),
 // and the solver's passes (TT seconds, radians) -> the answer (ISO epochs, degrees).
-import { ProblemError, solverProblem } from '../errors.js';
 import type { CentralBody } from '../solver/bodies/bodies.js';
 import { DEG, RAD } from '../solver/core/math.js';
 import type { Vec3 } from '../solver/core/vec3.js';
-import { propagateTrack } from '../solver/propagation/track.js';
 import type { Pass, PassSearchResult, PassStation } from '../solver/stations/passes.js';
 import { dopplerShift } from '../solver/stations/topocentric.js';
 import { formatUtcIso } from '../solver/time/time.js';
 import { SVG_POINTING_BUDGET_S, SVG_POINTING_STEP_S, type GroundStation, type PassesAnswer, type PassesRequest } from '../schemas/passes.js';
 import type { PassesJob } from '../workers/jobs.js';
 import { epochTT } from './epoch.js';
+import { searchWindow } from './search-window.js';
 
 /** A request's station for the pass search (degrees -> radians). */
 export const stationForSearch = (s: GroundStation): PassStation => ({
@@ -54,16 +53,9 @@ export function toPassAnswer(p: Pass, carrierFrequencyHz: number | undefined): P
   };
 }
 
-/** The worker job of a validated pass request; refuses a reversed window and (analytic models) a trajectory that meets the body within it. */
+/** The worker job of a validated pass request (the window checked by searchWindow). */
 export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, forPlots = false): PassesJob {
-  const [startTT, stopTT] = [epochTT(req.window.start), epochTT(req.window.stop)];
-  if (!(stopTT > startTT)) throw new ProblemError('validation-failed', 'the window stop must be after its start', { errors: [{ path: 'body.window.stop', message: 'must be after start' }] });
-  const spec = { body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT };
-  // The same surface check as /v1/track over the whole window (the numerical model checks while it integrates).
-  if (req.model !== 'numerical') {
-    const surface = propagateTrack({ ...spec, epochsTT: Float64Array.of(startTT, stopTT) });
-    if (!surface.ok) throw solverProblem(surface);
-  }
+  const { spec, startTT, stopTT } = searchWindow(req, body, start);
   // The sky plots need a pointing track: without one asked they use their own step, longer for long searches.
   const plotStepS = SVG_POINTING_STEP_S * Math.max(1, Math.ceil(((stopTT - startTT) * req.stations.length) / SVG_POINTING_BUDGET_S));
   const pointingStepS = req.pointing?.step ?? (forPlots ? plotStepS : undefined);

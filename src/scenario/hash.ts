@@ -6,7 +6,7 @@ import canonicalize from 'canonicalize';
 import { SOLVER_VERSION } from '../solver/core/version.js';
 
 /** Every kind of scenario the service solves: one per solving endpoint (POST /v1/<kind>), also the kinds of batch items. */
-export const SCENARIO_KINDS = ['orbit', 'two-body', 'central-force', 'track', 'passes'] as const;
+export const SCENARIO_KINDS = ['orbit', 'two-body', 'central-force', 'track', 'passes', 'eclipses'] as const;
 export type ScenarioKind = (typeof SCENARIO_KINDS)[number];
 
 export function canonicalJson(value: unknown): string {

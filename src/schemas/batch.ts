@@ -14,7 +14,7 @@ export const NDJSON_MEDIA_TYPE = 'application/x-ndjson';
 export const BatchItem = z
   .object({
     id: z.string().min(1).max(200).optional().describe('Your name for the item, echoed in its line (null when not given); need not be unique'),
-    kind: z.enum(BATCH_KINDS).describe('Which endpoint answers the item: orbit -> POST /v1/orbit, two-body, central-force, track, passes likewise'),
+    kind: z.enum(BATCH_KINDS).describe('Which endpoint answers the item: orbit -> POST /v1/orbit, two-body, central-force, track, passes, eclipses likewise'),
     request: z.record(z.string(), z.unknown()).describe(
       'The JSON body of that endpoint, exactly as it would be sent alone (same fields, units and defaults). It is validated when the item runs: ' +
       'an invalid request becomes that line\'s 400 problem. A request may name any format its endpoint has (format: csv, oem, geojson, svg): the line then carries the product (see the line\'s format, mediaType and product). ' +

@@ -8,6 +8,7 @@
 
 import { gcrfToItrfBatch } from '../solver/earth/frames.js';
 import { geodeticBatch } from '../solver/earth/geodetic.js';
+import { eclipseCoarseStep, findEclipses, type EclipseSearchOptions, type EclipseSearchResult } from '../solver/light/eclipses.js';
 import { findPasses, type Pass, type PassSearchOptions, type PassSearchResult, type PassStation, type PointingSample } from '../solver/stations/passes.js';
 import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest } from '../solver/central/radial-track.js';
 import { analyseCentralForce, type AnalysisOptions, type CentralForceAnalysis, type CentralForceProblem, type PotentialSample } from '../solver/central/radial.js';
@@ -36,6 +37,13 @@ const STEPS_PER_ORBIT = 5;
 const MIN_STEPS_PER_ORBIT = 2;
 /** Pass searches: work units per station-day without a pointing track (1 day x 4 stations ~ 20-35 ms was measured). */
 const UNITS_PER_STATION_DAY = 5000;
+/**
+ * Eclipse searches: work units per coarse step of the scan with the Earth's shadow (its sample and
+ * its share of the crossings; a 500 km LEO, 242 steps a day, took ~1.2 ms a day warm), and the
+ * factor when the Moon's shadow is searched too (measured ~2).
+ */
+const UNITS_PER_ECLIPSE_STEP = 100;
+const MOON_SHADOW_FACTOR = 2;
 
 /** Orbits covered by a numerical span (the integration runs from the epoch to each side's farthest sample). */
 function orbitsCovered(spec: PropagationSpec, epochsTT: ArrayLike<number>): number {
@@ -73,6 +81,12 @@ export function workEstimate(job: Job): number {
       if (job.options.pointingStepS !== undefined) units += INLINE_WORK_UNITS;
       return units;
     }
+    case 'eclipses': {
+      const steps = (job.stopTT - job.startTT) / eclipseCoarseStep(job.spec.r0, job.spec.v0, job.spec.body.gm);
+      let units = steps * UNITS_PER_ECLIPSE_STEP * (job.options.moon ? MOON_SHADOW_FACTOR : 1);
+      if (job.spec.model === 'numerical') units += orbitsCovered(job.spec, [job.startTT, job.stopTT]) * STEPS_PER_ORBIT * UNITS_PER_INTEGRATOR_STEP;
+      return units;
+    }
     case 'central-force':
       // The analysis alone (10 000 potential samples, ~10 ms) stays inline; a track's cost follows
       // its integrated span (up to 200 000 steps): always a worker.
@@ -90,7 +104,7 @@ export const runsInline = (job: Job): boolean => workEstimate(job) < INLINE_WORK
 export function refusedBeforeWork(job: Job): Failure | undefined {
   let orbits: number;
   if (job.kind === 'track' && job.input.model === 'numerical') orbits = orbitsCovered(job.input, job.input.epochsTT);
-  else if (job.kind === 'passes' && job.spec.model === 'numerical') orbits = orbitsCovered(job.spec, [job.startTT, job.stopTT]);
+  else if ((job.kind === 'passes' || job.kind === 'eclipses') && job.spec.model === 'numerical') orbits = orbitsCovered(job.spec, [job.startTT, job.stopTT]);
   else return undefined;
   const steps = Math.ceil(orbits * MIN_STEPS_PER_ORBIT);
   if (!(steps > DEFAULT_MAX_STEPS)) return undefined;
@@ -130,6 +144,15 @@ export interface PassesJob {
   readonly options: PassSearchOptions;
 }
 
+/** A whole eclipse search; the propagator is rebuilt in the worker from the propagation spec (plain data). */
+export interface EclipsesJob {
+  readonly kind: 'eclipses';
+  readonly spec: PropagationSpec;
+  readonly startTT: number;
+  readonly stopTT: number;
+  readonly options: EclipseSearchOptions;
+}
+
 /** Effective-potential analysis and, when asked, the track r(t), phi(t). */
 export interface CentralForceJob {
   readonly kind: 'central-force';
@@ -148,6 +171,7 @@ export interface CentralForceJobResult {
 interface JobTypes {
   track: { job: TrackJob; result: Outcome<TrackJobResult> };
   passes: { job: PassesJob; result: Outcome<PassSearchResult> };
+  eclipses: { job: EclipsesJob; result: Outcome<EclipseSearchResult> };
   'central-force': { job: CentralForceJob; result: CentralForceJobResult };
 }
 export type JobKind = keyof JobTypes;
@@ -162,6 +186,8 @@ export function runJob<J extends Job>(job: J): JobResult<J> {
       return runTrack(j) as JobResult<J>;
     case 'passes':
       return runPasses(j) as JobResult<J>;
+    case 'eclipses':
+      return runEclipses(j) as JobResult<J>;
     case 'central-force':
       return runCentralForce(j) as JobResult<J>;
     default:
@@ -188,6 +214,12 @@ function runPasses(job: PassesJob): Outcome<PassSearchResult> {
     stations: job.stations,
     options: job.options,
   });
+}
+
+function runEclipses(job: EclipsesJob): Outcome<EclipseSearchResult> {
+  const stateAt = stateFunction(job.spec, job.startTT, job.stopTT);
+  if (!stateAt.ok) return stateAt;
+  return findEclipses({ stateAt: stateAt.value, startTT: job.startTT, stopTT: job.stopTT, options: job.options });
 }
 
 function runCentralForce(job: CentralForceJob): CentralForceJobResult {
@@ -222,6 +254,9 @@ export function toWire(kind: JobKind, result: JobResult<Job>): Wire {
   const keep = (a: Float64Array): Float64Array => { transfer.add(a.buffer as ArrayBuffer); return a; };
   let value: unknown;
   switch (kind) {
+    case 'eclipses':
+      value = result; // small plain objects: cloned as they are
+      break;
     case 'track': {
       const r = result as Outcome<TrackJobResult>;
       if (r.ok) {
@@ -255,6 +290,7 @@ export function toWire(kind: JobKind, result: JobResult<Job>): Wire {
 export function fromWire<J extends Job>(kind: J['kind'], value: unknown): JobResult<J> {
   switch (kind) {
     case 'track':
+    case 'eclipses':
       return value as JobResult<J>;
     case 'passes': {
       const r = value as Outcome<PassSearchResult & { passes: WirePass[] }>;

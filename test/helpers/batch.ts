@@ -9,6 +9,7 @@ export const GOOD = {
   orbit: { centralBody: 'earth', elements: DEMO_ORBIT.elements },
   track: { ...DEMO_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T00:30:00Z', step: 60 }, object: { name: 'PLOVER-7', id: '2026-900A' } },
   passes: { ...DEMO_ORBIT, window: { start: EPOCH, stop: '2026-12-01T06:00:00Z' }, stations: [DEMO_STATIONS[0]] },
+  eclipses: { ...DEMO_ORBIT, window: { start: EPOCH, stop: '2026-12-01T06:00:00Z' } },
   'two-body': {
     epoch: EPOCH,
     bodies: [

@@ -5,6 +5,7 @@ import { Problem } from '../../src/schemas/common.js';
 import { OrbitAnswer } from '../../src/schemas/orbit.js';
 import { TrackAnswer } from '../../src/schemas/track.js';
 import { PassesAnswer } from '../../src/schemas/passes.js';
+import { EclipsesAnswer } from '../../src/schemas/eclipses.js';
 import { TwoBodyAnswer } from '../../src/schemas/two-body.js';
 import { CentralForceAnswer } from '../../src/schemas/central-force.js';
 import { postJson, testApp } from '../helpers/app.js';
@@ -15,7 +16,7 @@ let app: FastifyInstance;
 beforeAll(async () => { app = await testApp(); });
 afterAll(async () => { await app.close(); });
 
-const ANSWER_SCHEMAS = { orbit: OrbitAnswer, track: TrackAnswer, passes: PassesAnswer, 'two-body': TwoBodyAnswer, 'central-force': CentralForceAnswer };
+const ANSWER_SCHEMAS = { orbit: OrbitAnswer, track: TrackAnswer, passes: PassesAnswer, eclipses: EclipsesAnswer, 'two-body': TwoBodyAnswer, 'central-force': CentralForceAnswer };
 const KINDS = Object.keys(GOOD) as Kind[];
 
 /** An orbit that no other test asks for, so that the first request of it is a cache miss. */

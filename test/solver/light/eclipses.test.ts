@@ -1,18 +1,15 @@
-import { AstroTime, Body, GeoMoon, GeoVector } from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
 import { propagate } from '../../../src/solver/conic/universal.js';
 import { cross, dot, norm, sub, type Vec3 } from '../../../src/solver/core/vec3.js';
 import { ascendingNodeLocalTime, isSunSynchronousOrbit } from '../../../src/solver/light/beta.js';
-import { MAX_ECLIPSE_WINDOW_S, findEclipses, type Eclipse, type EclipseSearchResult } from '../../../src/solver/light/eclipses.js';
+import { MAX_ECLIPSE_WINDOW_S, findEclipses, type EclipseSearchResult } from '../../../src/solver/light/eclipses.js';
 import type { GcrfState, StateAt } from '../../../src/solver/propagation/state-source.js';
 import { parseUtcIso } from '../../../src/solver/time/time.js';
 import { expectClose } from '../../helpers/approx.js';
+import { MU_EARTH, R_EARTH, behindTheMoon, betaZeroDurations, earthShadowChanges, moonShadowRegion, reportedChanges, sunAt, unit } from '../../helpers/cone-shadow.js';
 
 const DEG = Math.PI / 180;
-const MU = 398_600.4418; // Earth GM, km^3/s^2 (NIMA TR8350.2 Table 3.1, from memory)
-const R_EARTH = 6378.137; // WGS-84 semi-major axis, km (NIMA TR8350.2 defining parameters)
-const R_SUN = 695_700; // IAU 2015 Resolution B3 nominal solar radius, km
-const AU_KM = 149_597_870.7; // IAU 2012 Resolution B2
+const MU = MU_EARTH;
 const J2 = 1.082_626_68e-3; // EGM-96 (from memory)
 const DAY = 86_400;
 const tt = (s: string): number => {
@@ -20,14 +17,6 @@ const tt = (s: string): number => {
   if (!r.ok) throw new Error(r.message);
   return r.value;
 };
-const unit = (a: Vec3): Vec3 => [a[0] / norm(a), a[1] / norm(a), a[2] / norm(a)];
-
-/** The apparent geocentric Sun (light-time and aberration) straight from astronomy-engine, km. */
-function sunAt(t: number): Vec3 {
-  const v = GeoVector(Body.Sun, AstroTime.FromTerrestrialTime(t / DAY), true);
-  return [v.x * AU_KM, v.y * AU_KM, v.z * AU_KM];
-}
-
 /** Circular orbit of radius a in the plane with unit axes p (position at t0) and q (velocity direction). */
 function circularIn(a: number, p: Vec3, q: Vec3, t0: number): StateAt {
   const n = Math.sqrt(MU / a ** 3);
@@ -53,61 +42,9 @@ function search(stateAt: StateAt, start: number, stop: number): EclipseSearchRes
   return r.value;
 }
 
-/**
- * Independent shadow test written from the cone geometry (not the apparent-disc angles of the
- * code): the penumbra cone has its apex toward the Sun at L_p = R D / (R_sun + R) from the
- * Earth's centre and half-angle asin((R_sun + R) / D); the umbra cone its apex behind the Earth
- * at L_u = R D / (R_sun - R) and half-angle asin((R_sun - R) / D). Returns 2 (umbra), 1
- * (penumbra) or 0 (lit). Both regions lie behind the Earth (x > 0 along the anti-Sun axis): the
- * cones touch the Earth within 30 km of its terminator plane, where a spacecraft above 100 km is
- * farther from the axis than either cone.
- */
-function coneRegion(r: Vec3, s: Vec3): number {
-  const d = norm(s);
-  const toSun = unit(s);
-  const x = -dot(r, toSun); // along the anti-Sun axis
-  const y = norm(sub(r, [-x * toSun[0], -x * toSun[1], -x * toSun[2]])); // distance from the axis
-  const lp = (R_EARTH * d) / (R_SUN + R_EARTH);
-  const alphaP = Math.asin((R_SUN + R_EARTH) / d);
-  if (!(x > 0 && y < (x + lp) * Math.tan(alphaP))) return 0;
-  const lu = (R_EARTH * d) / (R_SUN - R_EARTH);
-  const alphaU = Math.asin((R_SUN - R_EARTH) / d);
-  return y < (lu - x) * Math.tan(alphaU) ? 2 : 1;
-}
-
-/** Brute force: region every `step` s; each change of "region >= 1" and of "region = 2" bisected to 1 ms. */
-function bruteForce(stateAt: (t: number) => GcrfState, start: number, stop: number, step: number): Array<{ t: number; from: number; to: number }> {
-  const region = (t: number): number => coneRegion(stateAt(t).r, sunAt(t));
-  const out: Array<{ t: number; from: number; to: number }> = [];
-  let prev = region(start);
-  for (let t = start + step; t <= stop; t += step) {
-    const now = region(t);
-    for (const level of [1, 2]) {
-      const was = prev >= level;
-      if (was === now >= level) continue;
-      let [lo, hi] = [t - step, t];
-      while (hi - lo > 1e-3) {
-        const mid = (lo + hi) / 2;
-        if (region(mid) >= level === was) lo = mid;
-        else hi = mid;
-      }
-      out.push({ t: (lo + hi) / 2, from: was ? level : level - 1, to: was ? level - 1 : level });
-    }
-    prev = now;
-  }
-  return out.sort((x, y) => x.t - y.t);
-}
-
 describe('findEclipses: a circular orbit with the Sun in its plane (beta 0)', () => {
   it('umbra and penumbra last as long as the closed form of the conical shadow says (0.2 s)', () => {
-    // Closed form, derived here (plane geometry of the tangent cones; common practice, no source):
-    // in the orbit plane through the shadow axis, the umbra boundary is the line from the cone's
-    // apex at L_u = R D / (R_sun - R) behind the Earth, at half-angle alpha_u with sin alpha_u =
-    // (R_sun - R) / D. A point at radius r and angle theta from the anti-Sun axis lies on it when
-    // r sin(theta + alpha_u) = L_u sin alpha_u = R, so theta_u = asin(R / r) - alpha_u: the
-    // cylindrical half-angle asin(R / r) shortened by the cone. The penumbra likewise gives
-    // theta_p = asin(R / r) + alpha_p, sin alpha_p = (R_sun + R) / D. The orbit turns against the
-    // Sun's direction at n - omega_sun, so the umbra lasts 2 theta_u / (n - omega_sun).
+    // Closed form derived in test/helpers/cone-shadow.ts (betaZeroDurations).
     const t0 = tt('2026-09-01T00:00:00Z');
     const s0 = sunAt(t0);
     const s1 = sunAt(t0 + 60);
@@ -124,10 +61,7 @@ describe('findEclipses: a circular orbit with the Sun in its plane (beta 0)', ()
     const mid = (e.start + e.stop) / 2;
     const d = norm(sunAt(mid));
     const omegaSun = norm(cross(unit(sunAt(mid - 30)), unit(sunAt(mid + 30)))) / 60;
-    const alphaU = Math.asin((R_SUN - R_EARTH) / d);
-    const alphaP = Math.asin((R_SUN + R_EARTH) / d);
-    const umbra = (2 * (Math.asin(R_EARTH / a) - alphaU)) / (n - omegaSun);
-    const penumbra = (2 * (Math.asin(R_EARTH / a) + alphaP)) / (n - omegaSun);
+    const { umbraS: umbra, penumbraS: penumbra } = betaZeroDurations(a, d, omegaSun);
     expectClose(e.umbraDurationS!, umbra, 0.2, 'umbra duration');
     expectClose(e.durationS, penumbra, 0.2, 'penumbra duration');
     expect(e.depth).toBe(1);
@@ -155,12 +89,9 @@ describe('findEclipses: an invented LEO over 2 days', () => {
   it('every penumbra and umbra entry and exit within 1 s of an independent cone computation (Sun from astronomy-engine)', () => {
     const stop = t0 + 2 * DAY;
     const result = search(stateAt, t0, stop);
-    const events = bruteForce(plain, t0, stop, 10);
-    const ordered = (x: Eclipse) => x.umbraStart === null
-      ? [{ t: x.start, from: 0, to: 1 }, { t: x.stop, from: 1, to: 0 }]
-      : [{ t: x.start, from: 0, to: 1 }, { t: x.umbraStart, from: 1, to: 2 }, { t: x.umbraStop!, from: 2, to: 1 }, { t: x.stop, from: 1, to: 0 }];
+    const events = earthShadowChanges((t) => plain(t).r, t0, stop, 10);
     // Every crossing the search reports, less the window's own ends of clipped eclipses.
-    const found = result.eclipses.flatMap(ordered).filter((ev) => ev.t > t0 && ev.t < stop);
+    const found = reportedChanges(result.eclipses).filter((ev) => ev.t > t0 && ev.t < stop);
     expect(result.eclipses.length).toBeGreaterThan(25); // ~15 revolutions a day, eclipsed each one
     const inner = events;
     expect(found.length).toBe(inner.length);
@@ -247,18 +178,10 @@ describe('findEclipses: a dawn-dusk sun-synchronous orbit near the June solstice
 
 describe("findEclipses: the Moon's shadow (flagged separately)", () => {
   it('finds a point on the Sun-Moon axis at the 2026-08-12 solar eclipse in the lunar umbra, entries and exits within 1 s of an independent cone computation', () => {
-    // Total solar eclipse of 2026-08-12, greatest eclipse near 17:46 UTC (from memory). A point
-    // held fixed in GCRF 250 000 km behind the Moon on the Sun-Moon axis at 17:46 UTC.
-    const C_KM_S = 299_792.458; // SI definition of the metre
-    const R_MOON = 1737.4; // IAU WGCCRE 2015 mean radius, from memory
+    // A point held fixed in GCRF 250 000 km behind the Moon on the Sun-Moon axis at 17:46 UTC
+    // (test/helpers/cone-shadow.ts behindTheMoon).
     const tm = tt('2026-08-12T17:46:00Z');
-    const moonAt = (t: number): Vec3 => {
-      const v = GeoMoon(AstroTime.FromTerrestrialTime(t / DAY));
-      return [v.x * AU_KM, v.y * AU_KM, v.z * AU_KM];
-    };
-    const m = moonAt(tm);
-    const axis = unit(sub(m, sunAt(tm)));
-    const point: Vec3 = [m[0] + 250_000 * axis[0], m[1] + 250_000 * axis[1], m[2] + 250_000 * axis[2]];
+    const point = behindTheMoon(tm);
     const fixed: StateAt = () => ({ r: point, v: [0, 0, 0] });
     const r = findEclipses({ stateAt: fixed, startTT: tm - 3 * 3600, stopTT: tm + 3 * 3600, options: { moon: true } });
     if (!r.ok) throw new Error(r.message);
@@ -267,20 +190,8 @@ describe("findEclipses: the Moon's shadow (flagged separately)", () => {
     expect(moonEclipses).toHaveLength(1);
     const e = moonEclipses[0]!;
     expect(e.depth).toBe(1);
-    // Independent: the Moon's cones as coneRegion builds the Earth's, the Moon taken where the
-    // light reaching the point passed it (one light-time iteration), the Sun relative to it.
-    const region = (t: number): number => {
-      const seen = moonAt(t);
-      const mt = moonAt(t - norm(sub(seen, point)) / C_KM_S);
-      const rel = sub(point, mt);
-      const s = sub(sunAt(t), mt);
-      const d = norm(s);
-      const toSun = unit(s);
-      const x = -dot(rel, toSun);
-      const y = norm(sub(rel, [-x * toSun[0], -x * toSun[1], -x * toSun[2]]));
-      if (!(x > 0 && y < (x + (R_MOON * d) / (R_SUN + R_MOON)) * Math.tan(Math.asin((R_SUN + R_MOON) / d)))) return 0;
-      return y < ((R_MOON * d) / (R_SUN - R_MOON) - x) * Math.tan(Math.asin((R_SUN - R_MOON) / d)) ? 2 : 1;
-    };
+    // Independent: the Moon's cones as coneRegion builds the Earth's (moonShadowRegion).
+    const region = (t: number): number => moonShadowRegion(point, t);
     const crossing = (lo: number, hi: number, level: number): number => {
       const was = region(lo) >= level;
       while (hi - lo > 1e-3) {

@@ -1,0 +1,55 @@
+// POST /v1/eclipses: when the spacecraft is in the Earth's shadow (and the Moon's, when asked), with the beta angle.
+import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
+import { z } from 'zod';
+import { ProblemError, solverProblem } from '../errors.js';
+import { CSV_MEDIA_TYPE } from '../formats/csv.js';
+import { ECLIPSES_CSV_HEADER, eclipsesCsv } from '../formats/eclipses-csv.js';
+import { jsonAnswer } from '../plugins/answers.js';
+import { chooseFormat } from '../plugins/negotiate.js';
+import { resolveBody } from '../api/body.js';
+import { eclipseSearchJob, toEclipsesAnswer } from '../api/eclipses.js';
+import { initialState } from '../api/orbit.js';
+import { problemResponses } from '../schemas/common.js';
+import { ECLIPSE_FORMATS, EclipsesAnswer, EclipsesRequest } from '../schemas/eclipses.js';
+
+const eclipses: FastifyPluginAsyncZod = async (app) => {
+  app.post('/v1/eclipses', {
+    schema: {
+      tags: ['orbits'],
+      summary: 'Eclipses: penumbra and umbra entry and exit, depth, beta angle, node local time of sun-synchronous orbits (JSON or CSV)',
+      description: 'Searches the window for every interval in which the spacecraft sees the solar disc partly or wholly hidden by the Earth ' +
+        '(conical shadow, spherical Earth of the equatorial radius, spherical Sun; Montenbruck & Gill 2000 sec. 3.4.2), and by the Moon when asked. ' +
+        'Entries and exits are refined to 0.01 s; an eclipse shorter than the scan step is not missed. No atmosphere: real sunlight fades over a few seconds around the computed entry.',
+      body: EclipsesRequest,
+      response: {
+        200: {
+          description: 'The eclipses (JSON or CSV)',
+          content: {
+            'application/json': { schema: EclipsesAnswer },
+            'text/csv': { schema: z.string().describe(`RFC 4180 CSV, one row per eclipse in time order: ${ECLIPSES_CSV_HEADER}`) },
+          },
+        },
+        ...problemResponses,
+      },
+    },
+  }, async (request, reply) => {
+    const { format: asked, ...req } = request.body;
+    const format = chooseFormat(request, asked, ECLIPSE_FORMATS);
+    if (req.centralBody !== 'earth') throw new ProblemError('unsupported-frame', 'eclipses need the built-in centralBody "earth"');
+    // JSON answers keep the scenario (and hash) of a request without the format field.
+    const scenario = format === 'json' ? req : { ...req, format };
+    return app.answers.respond(request, reply, 'eclipses', scenario, async (hash) => {
+      const body = resolveBody(req.centralBody);
+      const start = initialState(body, req);
+      if (!start.ok) throw solverProblem(start);
+      // Long windows run on a worker thread; the propagator is rebuilt there from this state.
+      const found = await app.pool.solve(eclipseSearchJob(req, body, start.value));
+      if (!found.ok) throw solverProblem(found);
+      const answer = toEclipsesAnswer(req, hash, found.value);
+      if (format === 'json') return jsonAnswer(answer);
+      return { contentType: CSV_MEDIA_TYPE, body: Buffer.from(eclipsesCsv(answer.eclipses, answer.moonEclipses)) };
+    });
+  });
+};
+
+export default eclipses;
