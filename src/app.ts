@@ -8,6 +8,7 @@ import { RedisCache, TieredCache } from './cache/redis.js';
 import problems, { clientErrorHandler, clip, frameworkErrors, MAX_PATH_SEGMENT_CHARS } from './plugins/problems.js';
 import body, { requestIds } from './plugins/body.js';
 import auth from './plugins/auth.js';
+import limits from './plugins/limits.js';
 import openapi from './plugins/openapi.js';
 import answers from './plugins/answers.js';
 import metrics from './plugins/metrics.js';
@@ -44,6 +45,13 @@ function logRequest(request: FastifyRequest) {
   return { method: request.method, url: clip(request.url), requestId: request.id };
 }
 
+/** TRUST_PROXY: a hop count, or addresses and CIDR ranges. */
+function trustProxy(text: string): string[] | ((address: string, hop: number) => boolean) {
+  if (!/^\d+$/.test(text)) return text.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  const hops = Number(text);
+  return (_address, hop) => hop < hops;
+}
+
 export async function buildApp(options: BuildOptions = {}): Promise<FastifyInstance> {
   const config: Config = { ...defaultConfig(), ...options.config };
   const logger = options.logger ?? { level: config.LOG_LEVEL };
@@ -55,6 +63,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
     genReqId: requestIds(),
     routerOptions: { ignoreTrailingSlash: true, maxParamLength: MAX_PATH_SEGMENT_CHARS },
     frameworkErrors,
+    ...(config.TRUST_PROXY === undefined ? {} : { trustProxy: trustProxy(config.TRUST_PROXY) }),
     clientErrorHandler,
     keepAliveTimeout: config.KEEP_ALIVE_TIMEOUT_S * 1000,
     // Whole-request bound for Node itself; the body's own bound (BODY_TIMEOUT_S) answers first.
@@ -85,6 +94,8 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
 
   await app.register(page);
   await app.register(health);
+  // Budgets attach to the routes registered after this (all of /v1).
+  await app.register(limits);
   await app.register(bodies);
   await app.register(orbit);
   await app.register(track);

@@ -48,6 +48,11 @@ export const Config = z.object({
     }
   }).describe('API keys, comma-separated entries id:scrypt:N:r:p:salt:hash from `npm run -s apikey -- <id>` (hashes only, never keys). Set: /v1 needs Authorization: Bearer <key>, jobs and stored results belong to their key. Unset: the service is open (a warning at start)'),
   METRICS_TOKEN: z.string().min(16).max(200).optional().describe('Bearer token that also opens GET /metrics (for a scraper without an API key); with neither API_KEYS nor this set, /metrics is open'),
+  RATE_LIMIT_PER_MIN: int(1200, 0, 10_000_000).describe('Requests a minute under /v1 per API key (per client address when the service is open) for cheap work: reads and POST /v1/orbit; past it 429 rate-limited with Retry-After. 0: no limit'),
+  RATE_LIMIT_HEAVY_PER_MIN: int(120, 0, 10_000_000).describe('Requests a minute per key (or address), counted apart, for heavy work: every POST under /v1 other than /v1/orbit (tracks, passes, batches, jobs, ...). 0: no limit'),
+  RATE_LIMIT_WINDOW_S: int(60, 1, 3600).describe('Length of the rate-limit window, seconds; a window allows its share of the per-minute budgets (at least 1)'),
+  RATE_LIMIT_KEY_PREFIX: z.string().min(1).max(100).default('apsides:ratelimit:').describe('Prefix of the rate-limit counters in Redis (REDIS_URL set: replicas share the counts)'),
+  TRUST_PROXY: z.string().optional().describe('Unset: the client address is the connection\'s. Behind a load balancer: its address or CIDR list (comma-separated), or a hop count, so that X-Forwarded-For gives the client address that open-service rate limits count by'),
   ASKERS_KEY_PREFIX: z.string().min(1).max(100).default('apsides:askers:').describe('Prefix of the Redis sets recording which keys asked each scenario (REDIS_URL set)'),
   JOB_KEY_PREFIX: z.string().min(1).max(100).default('apsides:jobs:').describe('Prefix of every Redis key of the job queue (REDIS_URL set)'),
 });

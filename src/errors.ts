@@ -23,6 +23,7 @@ const SERVICE_ERRORS = {
   'unsupported-media-type': { status: 415, title: 'Unsupported media type', meaning: 'POST bodies must be application/json.' },
   'not-acceptable': { status: 406, title: 'No acceptable representation', meaning: 'The Accept header names no format this endpoint can produce.' },
   'unauthorized': { status: 401, title: 'API key missing or not valid', meaning: 'With API keys configured, requests under /v1 need `Authorization: Bearer <key>` with a key listed in API_KEYS, and /metrics a key or METRICS_TOKEN; WWW-Authenticate says whether the key was missing or not valid (RFC 6750).' },
+  'rate-limited': { status: 429, title: 'Too many requests', meaning: 'This API key (or, when the service is open, this client address) sent more requests this minute than RATE_LIMIT_PER_MIN (reads and POST /v1/orbit) or RATE_LIMIT_HEAVY_PER_MIN (other POSTs under /v1); retry after the seconds in Retry-After. RateLimit-Limit, RateLimit-Remaining and RateLimit-Reset say where the budget stands.' },
   'not-found': { status: 404, title: 'Not found', meaning: 'No such route.' },
   'result-not-cached': { status: 404, title: 'Result not in the cache', meaning: 'No answer is stored under this scenario hash (never computed, or evicted): send the scenario again to recompute it.' },
   'problem-type-unknown': { status: 404, title: 'Unknown problem type', meaning: 'GET /problems/{code} was asked for a code that is not in the table.' },

@@ -87,8 +87,8 @@ export class KeyVerifier {
     return this.#entries.size;
   }
 
-  /** The key's id when the key is valid, else null. */
-  async verify(key: string): Promise<string | null> {
+  /** The key's id when the key is valid, else null. `beforeHashing` runs (and may throw) before scrypt on a key not seen before. */
+  async verify(key: string, beforeHashing: () => Promise<void> = async () => {}): Promise<string | null> {
     if (key.length === 0 || key.length > MAX_KEY_CHARS) return null;
     const digest = sha256(key);
     const known = this.#verified.get(digest);
@@ -98,6 +98,7 @@ export class KeyVerifier {
     const entry = dot > 0 ? this.#entries.get(key.slice(0, dot)) : undefined;
     let ok = false;
     if (entry) {
+      await beforeHashing();
       const derived = await derive(key.slice(dot + 1), entry.salt, entry.hash.length, { N: entry.N, r: entry.r, p: entry.p });
       ok = timingSafeEqual(derived, entry.hash);
     }

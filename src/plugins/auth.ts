@@ -44,7 +44,7 @@ export default fp(async function auth(app: FastifyInstance) {
     if (token === undefined) {
       throw unauthorized(request.headers.authorization === undefined ? 'this endpoint needs an API key: send Authorization: Bearer <key>' : 'the Authorization header is not "Bearer <key>"', false);
     }
-    const id = await verifier!.verify(token);
+    const id = await verifier!.verify(token, () => app.keyCheckBudget?.(request) ?? Promise.resolve());
     if (id === null) throw unauthorized('the API key is not valid', true);
     return id;
   }

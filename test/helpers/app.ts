@@ -1,9 +1,9 @@
 import type { FastifyInstance } from 'fastify';
 import { buildApp, type BuildOptions } from '../../src/app.js';
 
-/** A quiet app for inject-based tests. */
+/** A quiet app for inject-based tests; no rate limits unless the test sets them (test/http/limits.test.ts does). */
 export async function testApp(options: BuildOptions = {}): Promise<FastifyInstance> {
-  const app = await buildApp({ logger: false, ...options });
+  const app = await buildApp({ logger: false, ...options, config: { RATE_LIMIT_PER_MIN: 0, RATE_LIMIT_HEAVY_PER_MIN: 0, ...options.config } });
   await app.ready();
   return app;
 }
