@@ -3,11 +3,12 @@
 import type { CentralBody } from '../solver/bodies/bodies.js';
 import { DEG, RAD } from '../solver/core/math.js';
 import type { Vec3 } from '../solver/core/vec3.js';
-import type { Pass, PassSearchResult, PassStation } from '../solver/stations/passes.js';
+import type { Pass, PassStation } from '../solver/stations/passes.js';
 import { dopplerShift } from '../solver/stations/topocentric.js';
 import { formatUtcIso } from '../solver/time/time.js';
 import { SVG_POINTING_BUDGET_S, SVG_POINTING_STEP_S, type GroundStation, type PassesAnswer, type PassesRequest } from '../schemas/passes.js';
-import type { PassesJob } from '../workers/jobs.js';
+import type { PassesJob, PassesJobResult } from '../workers/jobs.js';
+import type { LightAt, PassLight } from '../solver/light/pass-light.js';
 import { epochTT } from './epoch.js';
 import { searchWindow } from './search-window.js';
 
@@ -21,8 +22,11 @@ export const stationForSearch = (s: GroundStation): PassStation => ({
   ...(s.horizonMask ? { mask: s.horizonMask.map((p) => ({ azimuth: p.azimuth * DEG, elevation: p.elevation * DEG })) } : {}),
 });
 
-/** Solver pass (TT seconds, radians) -> API pass (ISO epochs, degrees). */
-export function toPassAnswer(p: Pass, carrierFrequencyHz: number | undefined): PassesAnswer['passes'][number] {
+/** The light at one instant (radians -> degrees). */
+const lightAnswer = (l: LightAt) => ({ sunlit: l.sunlit, sunElevation: l.sunElevation * RAD, visible: l.visible });
+
+/** Solver pass and its light (TT seconds, radians) -> API pass (ISO epochs, degrees). */
+export function toPassAnswer(p: Pass, light: PassLight, carrierFrequencyHz: number | undefined): PassesAnswer['passes'][number] {
   const deg = (rad: number) => rad * RAD;
   return {
     station: p.station,
@@ -37,9 +41,10 @@ export function toPassAnswer(p: Pass, carrierFrequencyHz: number | undefined): P
     rangeTca: p.rangeTca,
     startsBeforeWindow: p.startsBeforeWindow,
     endsAfterWindow: p.endsAfterWindow,
+    light: { aos: lightAnswer(light.aos), tca: lightAnswer(light.tca), los: lightAnswer(light.los) },
     ...(p.pointing
       ? {
-        pointing: p.pointing.map((s) => ({
+        pointing: p.pointing.map((s, i) => ({
           epoch: formatUtcIso(s.tt),
           azimuth: deg(s.azimuth),
           elevation: deg(s.elevation),
@@ -47,6 +52,7 @@ export function toPassAnswer(p: Pass, carrierFrequencyHz: number | undefined): P
           rangeRate: s.rangeRate,
           dopplerFactor: s.dopplerFactor,
           dopplerShift: carrierFrequencyHz === undefined ? null : dopplerShift(carrierFrequencyHz, s.rangeRate),
+          ...lightAnswer(light.pointing![i]!),
         })),
       }
       : {}),
@@ -65,17 +71,18 @@ export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralB
     startTT,
     stopTT,
     stations: req.stations.map(stationForSearch),
+    lighting: { twilightLimit: req.twilightLimit * DEG },
     options: { dut1: req.ut1MinusUtc, gm: body.gm, ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
   };
 }
 
 /** The /v1/passes answer for a finished search. */
-export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string, found: PassSearchResult): PassesAnswer {
+export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string, found: PassesJobResult): PassesAnswer {
   return {
     scenarioHash: hash,
     model: req.model,
     window: { start: formatUtcIso(epochTT(req.window.start)), stop: formatUtcIso(epochTT(req.window.stop)) },
     coarseStep: found.coarseStepS,
-    passes: found.passes.map((p) => toPassAnswer(p, req.pointing?.carrierFrequency)),
+    passes: found.passes.map((p, i) => toPassAnswer(p, found.light[i]!, req.pointing?.carrierFrequency)),
   };
 }

@@ -47,6 +47,8 @@ export const PassesRequest = z
       .optional()
       .describe('Ask for an antenna pointing track of each pass'),
     ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (0 when not given: up to ~0.4 km of along-track error on the ground)'),
+    twilightLimit: z.number().min(-90).max(90).default(-6)
+      .describe('deg (default -6, civil twilight): a pass point is visible (optically) when the spacecraft is sunlit and the Sun\'s elevation at the station is below this'),
     format: plotFormatField(`a timeline of the passes by station, and a sky plot per station with the horizon mask and AOS/TCA/LOS; without pointing the plot uses a pointing step of ${SVG_POINTING_STEP_S} s, longer when the window times the stations exceeds ${SVG_POINTING_BUDGET_S} s`),
   })
   .strict()
@@ -66,6 +68,13 @@ export const PassesRequest = z
   });
 export type PassesRequest = z.output<typeof PassesRequest>;
 
+const LIGHT_FIELDS = {
+  sunlit: z.boolean().describe('The spacecraft sees the centre of the solar disc (not in the Earth\'s umbra nor the inner half of its penumbra; conical shadow)'),
+  sunElevation: z.number().describe('deg: geometric elevation of the Sun at the station'),
+  visible: z.boolean().describe('sunlit and the Sun\'s elevation at the station below twilightLimit: the spacecraft can be seen optically'),
+};
+const Light = z.object(LIGHT_FIELDS).describe('Light at one instant of the pass');
+
 const PointingSample = z.object({
   epoch: EpochOut,
   azimuth: z.number().describe('deg'),
@@ -74,6 +83,7 @@ const PointingSample = z.object({
   rangeRate: z.number().describe('km/s, positive receding'),
   dopplerFactor: z.number().describe('received / transmitted frequency, 1 - rangeRate / c (first order)'),
   dopplerShift: z.number().nullable().describe('Hz at the carrier frequency (null without one)'),
+  ...LIGHT_FIELDS,
 });
 
 export const Pass = z.object({
@@ -89,6 +99,7 @@ export const Pass = z.object({
   rangeTca: z.number().describe('km at TCA'),
   startsBeforeWindow: z.boolean().describe('Already up at the window start: aos is the window start'),
   endsAfterWindow: z.boolean().describe('Still up at the window stop: los is the window stop'),
+  light: z.object({ aos: Light, tca: Light, los: Light }).describe('Sunlight on the spacecraft and the Sun\'s elevation at the station at AOS, TCA and LOS'),
   pointing: z.array(PointingSample).optional(),
 });
 

@@ -9,6 +9,7 @@
 import { gcrfToItrfBatch } from '../solver/earth/frames.js';
 import { geodeticBatch } from '../solver/earth/geodetic.js';
 import { eclipseCoarseStep, findEclipses, type EclipseSearchOptions, type EclipseSearchResult } from '../solver/light/eclipses.js';
+import { lightPasses, type LightAt, type LightingOptions, type PassLight } from '../solver/light/pass-light.js';
 import { findPasses, type Pass, type PassSearchOptions, type PassSearchResult, type PassStation, type PointingSample } from '../solver/stations/passes.js';
 import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest } from '../solver/central/radial-track.js';
 import { analyseCentralForce, type AnalysisOptions, type CentralForceAnalysis, type CentralForceProblem, type PotentialSample } from '../solver/central/radial.js';
@@ -142,6 +143,13 @@ export interface PassesJob {
   readonly stopTT: number;
   readonly stations: readonly PassStation[];
   readonly options: PassSearchOptions;
+  /** The twilight limit of `visible` (rad; default -6 deg); the frame options come from `options`. */
+  readonly lighting?: Pick<LightingOptions, 'twilightLimit'>;
+}
+
+/** A pass search and the light on each pass (same order). */
+export interface PassesJobResult extends PassSearchResult {
+  readonly light: readonly PassLight[];
 }
 
 /** A whole eclipse search; the propagator is rebuilt in the worker from the propagation spec (plain data). */
@@ -170,7 +178,7 @@ export interface CentralForceJobResult {
 
 interface JobTypes {
   track: { job: TrackJob; result: Outcome<TrackJobResult> };
-  passes: { job: PassesJob; result: Outcome<PassSearchResult> };
+  passes: { job: PassesJob; result: Outcome<PassesJobResult> };
   eclipses: { job: EclipsesJob; result: Outcome<EclipseSearchResult> };
   'central-force': { job: CentralForceJob; result: CentralForceJobResult };
 }
@@ -204,16 +212,20 @@ function runTrack(job: TrackJob): Outcome<TrackJobResult> {
   return success({ track: run.value, earthFixed, geodetic });
 }
 
-function runPasses(job: PassesJob): Outcome<PassSearchResult> {
+function runPasses(job: PassesJob): Outcome<PassesJobResult> {
   const stateAt = stateFunction(job.spec, job.startTT, job.stopTT);
   if (!stateAt.ok) return stateAt;
-  return findPasses({
+  const found = findPasses({
     stateAt: stateAt.value,
     startTT: job.startTT,
     stopTT: job.stopTT,
     stations: job.stations,
     options: job.options,
   });
+  if (!found.ok) return found;
+  // The pass search's frame options (UT1 - UTC, EOP) serve the Sun's elevation too.
+  const light = lightPasses(found.value.passes, job.stations, stateAt.value, job.startTT, job.stopTT, { ...job.options, ...job.lighting });
+  return light.ok ? success({ ...found.value, light: light.value }) : light;
 }
 
 function runEclipses(job: EclipsesJob): Outcome<EclipseSearchResult> {
@@ -241,8 +253,11 @@ export interface Wire {
 
 const POINTING_FIELDS = 6;
 const POTENTIAL_FIELDS = 3;
+/** Light per pointing sample: sunlit (0/1), Sun elevation, visible (0/1). */
+const LIGHT_FIELDS = 3;
 
 type WirePass = Omit<Pass, 'pointing'> & { readonly pointing: Float64Array | null };
+type WirePassLight = Omit<PassLight, 'pointing'> & { readonly pointing: Float64Array | null };
 type WireAnalysis = Omit<CentralForceAnalysis, 'effectivePotential'> & { readonly effectivePotential: Float64Array };
 type WireRadialTrack = Omit<RadialTrack, 't' | 'r' | 'rDot' | 'phi'> & {
   readonly t: Float64Array; readonly r: Float64Array; readonly rDot: Float64Array; readonly phi: Float64Array;
@@ -270,8 +285,8 @@ export function toWire(kind: JobKind, result: JobResult<Job>): Wire {
       break;
     }
     case 'passes': {
-      const r = result as Outcome<PassSearchResult>;
-      value = r.ok ? success({ ...r.value, passes: r.value.passes.map((p) => packPass(p, keep)) }) : r;
+      const r = result as Outcome<PassesJobResult>;
+      value = r.ok ? success({ ...r.value, passes: r.value.passes.map((p) => packPass(p, keep)), light: r.value.light.map((l) => packLight(l, keep)) }) : r;
       break;
     }
     case 'central-force': {
@@ -293,8 +308,8 @@ export function fromWire<J extends Job>(kind: J['kind'], value: unknown): JobRes
     case 'eclipses':
       return value as JobResult<J>;
     case 'passes': {
-      const r = value as Outcome<PassSearchResult & { passes: WirePass[] }>;
-      return (r.ok ? success({ ...r.value, passes: r.value.passes.map(unpackPass) }) : r) as JobResult<J>;
+      const r = value as Outcome<PassSearchResult & { passes: WirePass[]; light: WirePassLight[] }>;
+      return (r.ok ? success({ ...r.value, passes: r.value.passes.map(unpackPass), light: r.value.light.map(unpackLight) }) : r) as JobResult<J>;
     }
     case 'central-force': {
       const r = value as { analysis: Outcome<WireAnalysis>; track: Outcome<WireRadialTrack> | null };
@@ -335,6 +350,29 @@ function unpackPass(p: WirePass): Pass {
   const pointing: PointingSample[] = new Array(packed.length / POINTING_FIELDS);
   for (let i = 0, o = 0; i < pointing.length; i++, o += POINTING_FIELDS) {
     pointing[i] = { tt: packed[o]!, azimuth: packed[o + 1]!, elevation: packed[o + 2]!, range: packed[o + 3]!, rangeRate: packed[o + 4]!, dopplerFactor: packed[o + 5]! };
+  }
+  return { ...rest, pointing };
+}
+
+function packLight(l: PassLight, keep: (a: Float64Array) => Float64Array): WirePassLight {
+  const { pointing, ...rest } = l;
+  if (!pointing) return { ...rest, pointing: null };
+  const out = new Float64Array(LIGHT_FIELDS * pointing.length);
+  pointing.forEach((s, i) => {
+    const o = LIGHT_FIELDS * i;
+    out[o] = s.sunlit ? 1 : 0;
+    out[o + 1] = s.sunElevation;
+    out[o + 2] = s.visible ? 1 : 0;
+  });
+  return { ...rest, pointing: keep(out) };
+}
+
+function unpackLight(l: WirePassLight): PassLight {
+  const { pointing: packed, ...rest } = l;
+  if (!packed) return rest;
+  const pointing: LightAt[] = new Array(packed.length / LIGHT_FIELDS);
+  for (let i = 0, o = 0; i < pointing.length; i++, o += LIGHT_FIELDS) {
+    pointing[i] = { sunlit: packed[o] === 1, sunElevation: packed[o + 1]!, visible: packed[o + 2] === 1 };
   }
   return { ...rest, pointing };
 }

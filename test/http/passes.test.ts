@@ -1,3 +1,4 @@
+import { Body, DeltaT_EspenakMeeus, Equator, Horizon, MakeTime, Observer, SetDeltaTFunction } from 'astronomy-engine';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { PassesAnswer } from '../../src/schemas/passes.js';
@@ -77,6 +78,41 @@ describe('POST /v1/passes', () => {
     expect(answer.passes.map((p) => p.station)).toEqual(['below']);
     expect(answer.passes[0]).toMatchObject({ startsBeforeWindow: true, endsAfterWindow: true });
     expectClose(answer.passes[0]!.maxElevation, 90, 0.5, 'zenith');
+  });
+
+  it('each pass and pointing sample says whether the spacecraft is sunlit, how high the Sun is at the station, and whether it is visible', async () => {
+    // The Sun's elevation from astronomy-engine at the station (UT1 = UTC: TT - UT1 = 69.184 s in 2026,
+    // 32.184 s + 37 leap seconds; from memory), geometric (no refraction).
+    SetDeltaTFunction(() => 69.184);
+    const sunElevation = (iso: string, st: { latitude: number; longitude: number; altitude: number }): number => {
+      const time = MakeTime(new Date(iso));
+      const observer = new Observer(st.latitude, st.longitude, st.altitude * 1000);
+      const eq = Equator(Body.Sun, time, observer, true, true);
+      return Horizon(time, observer, eq.ra, eq.dec).altitude;
+    };
+    try {
+      const body = { ...demo, stations: [demo.stations[1]], pointing: { step: 60 } };
+      const answer = PassesAnswer.parse((await postJson(app, '/v1/passes', body)).json());
+      const combos = new Set<string>();
+      for (const p of answer.passes) {
+        for (const [epoch, l] of [[p.aos, p.light.aos], [p.tca, p.light.tca], [p.los, p.light.los]] as const) {
+          expectClose(l.sunElevation, sunElevation(epoch, demo.stations[1]!), 0.01, 'Sun elevation, deg');
+          expect(l.visible).toBe(l.sunlit && l.sunElevation < -6);
+          combos.add(`${l.sunlit}/${l.sunElevation < -6}`);
+        }
+        const first = p.pointing![0]!;
+        expect({ sunlit: first.sunlit, sunElevation: first.sunElevation, visible: first.visible }).toEqual(p.light.aos);
+        for (const s of p.pointing!) expect(s.visible).toBe(s.sunlit && s.sunElevation < -6);
+      }
+      // A 78 deg N station in the polar night: the spacecraft rises in the Earth's shadow and comes into sunlight over it.
+      expect(combos.has('true/true')).toBe(true);
+      expect(combos.has('false/true')).toBe(true);
+      // A twilight limit of 90 deg makes every sunlit point visible.
+      const any = PassesAnswer.parse((await postJson(app, '/v1/passes', { ...body, twilightLimit: 90 })).json());
+      for (const p of any.passes) expect(p.light.tca.visible).toBe(p.light.tca.sunlit);
+    } finally {
+      SetDeltaTFunction(DeltaT_EspenakMeeus); // the library's default
+    }
   });
 
   it('refuses bad requests with problems naming the reason', async () => {

@@ -12,6 +12,7 @@ import type { Vec3 } from '../../src/solver/core/vec3.js';
 import {
   INLINE_WORK_UNITS,
   refusedBeforeWork,
+  runJob,
   runsInline,
   workEstimate,
   type CentralForceJob,
@@ -113,7 +114,14 @@ describe('SolverPool.inWorker gives the numbers of the inline solver', () => {
     if (!direct.ok) throw new Error(direct.message);
     expect(direct.value.passes.length).toBeGreaterThan(10);
     expect(direct.value.passes.every((p) => p.pointing !== undefined && p.pointing.length > 1)).toBe(true);
-    expect(await pool.inWorker(passesJob(2, STATIONS, 10))).toEqual(direct);
+    const viaWorker = await pool.inWorker(passesJob(2, STATIONS, 10));
+    if (!viaWorker.ok) throw new Error(viaWorker.message);
+    const { light, ...search } = viaWorker.value;
+    expect(search).toEqual(direct.value);
+    // The light on each pass (with its pointing samples, packed for the trip) as the inline job gives it.
+    const inline = runJob(passesJob(2, STATIONS, 10));
+    expect(inline.ok && inline.value.light).toEqual(light);
+    expect(light.every((l, i) => l.pointing!.length === direct.value.passes[i]!.pointing!.length)).toBe(true);
   });
 
   it('passes: without pointing the passes carry no pointing key; an over-long window is the same failure', async () => {
