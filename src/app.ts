@@ -7,6 +7,8 @@ import type { AnswerCache } from './cache/types.js';
 import { RedisCache, TieredCache } from './cache/redis.js';
 import problems, { clientErrorHandler, clip, frameworkErrors, MAX_PATH_SEGMENT_CHARS } from './plugins/problems.js';
 import body, { requestIds } from './plugins/body.js';
+import edge from './plugins/edge.js';
+import pressure from './plugins/pressure.js';
 import auth from './plugins/auth.js';
 import limits from './plugins/limits.js';
 import openapi from './plugins/openapi.js';
@@ -82,6 +84,9 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   app.addHook('onClose', async () => app.jobCallbacks.close());
 
   await app.register(problems);
+  // CORS (preflight before the key check), security headers and compression for every route after.
+  await app.register(edge);
+  await app.register(pressure);
   await app.register(body);
   await app.register(auth);
   await app.register(openapi);

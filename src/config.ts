@@ -53,6 +53,11 @@ export const Config = z.object({
   RATE_LIMIT_WINDOW_S: int(60, 1, 3600).describe('Length of the rate-limit window, seconds; a window allows its share of the per-minute budgets (at least 1)'),
   RATE_LIMIT_KEY_PREFIX: z.string().min(1).max(100).default('apsides:ratelimit:').describe('Prefix of the rate-limit counters in Redis (REDIS_URL set: replicas share the counts)'),
   TRUST_PROXY: z.string().optional().describe('Unset: the client address is the connection\'s. Behind a load balancer: its address or CIDR list (comma-separated), or a hop count, so that X-Forwarded-For gives the client address that open-service rate limits count by'),
+  CORS_ORIGINS: z.string().optional().describe('Origins (scheme://host[:port], comma-separated) whose browser pages may call the API; unset: no CORS headers (browsers allow same-origin only)'),
+  COMPRESS_MIN_BYTES: int(1024, 0, 1024 ** 3).describe('Answers of at least this many bytes are compressed (br or gzip, as Accept-Encoding asks), streamed ones included; 0: never'),
+  MAX_EVENT_LOOP_DELAY_MS: int(1000, 0, 600_000).describe('Event-loop delay, ms, past which /v1 requests answer 503 overloaded and /readyz fails; 0: not checked'),
+  MAX_HEAP_USED_BYTES: z.coerce.number().int().min(0).optional().describe('Heap used, bytes, past which /v1 requests answer 503 overloaded; unset: 90 % of the V8 heap limit; 0: not checked'),
+  MAX_RSS_BYTES: int(0, 0, 1024 ** 4).describe('Resident memory, bytes, past which /v1 requests answer 503 overloaded; 0: not checked (set it below the container limit)'),
   ASKERS_KEY_PREFIX: z.string().min(1).max(100).default('apsides:askers:').describe('Prefix of the Redis sets recording which keys asked each scenario (REDIS_URL set)'),
   JOB_KEY_PREFIX: z.string().min(1).max(100).default('apsides:jobs:').describe('Prefix of every Redis key of the job queue (REDIS_URL set)'),
 });

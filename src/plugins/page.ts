@@ -18,4 +18,6 @@ export function publicRoot(): string {
 
 export default fp(async function page(app: FastifyInstance) {
   await app.register(fastifyStatic, { root: publicRoot(), prefix: '/', wildcard: false, index: ['index.html'], cacheControl: true, maxAge: 60_000 });
+  // Browsers ask for it by themselves; no icon, and no 404 in their consoles.
+  app.get('/favicon.ico', { schema: { hide: true } }, async (_request, reply) => reply.code(204).header('cache-control', 'public, max-age=86400').send());
 }, { name: 'page' });

@@ -1,9 +1,13 @@
 import type { FastifyInstance } from 'fastify';
 import { buildApp, type BuildOptions } from '../../src/app.js';
 
-/** A quiet app for inject-based tests; no rate limits unless the test sets them (test/http/limits.test.ts does). */
+/**
+ * A quiet app for inject-based tests; no rate limits and no event-loop-delay refusals unless the
+ * test sets them (test/http/limits.test.ts and edge.test.ts do): a test that holds the loop on
+ * purpose must not make the next test's request a 503.
+ */
 export async function testApp(options: BuildOptions = {}): Promise<FastifyInstance> {
-  const app = await buildApp({ logger: false, ...options, config: { RATE_LIMIT_PER_MIN: 0, RATE_LIMIT_HEAVY_PER_MIN: 0, ...options.config } });
+  const app = await buildApp({ logger: false, ...options, config: { RATE_LIMIT_PER_MIN: 0, RATE_LIMIT_HEAVY_PER_MIN: 0, MAX_EVENT_LOOP_DELAY_MS: 0, ...options.config } });
   await app.ready();
   return app;
 }
