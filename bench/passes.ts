@@ -1,37 +1,19 @@
 // Pass search for one LEO spacecraft over 10 stations and 7 days, measured against the bare
 // Earth-fixed track of the same window at the search's coarse step (propagate + GCRF -> ITRF),
 // in the same run, interleaved, fixed iteration counts, best round kept.
-// The spacecraft moves on a closed-form circular orbit (invented; no propagator file needed).
+// The spacecraft moves on a closed-form circular orbit (invented; bench/leo.ts).
 
-import { gcrfToItrfBatch } from '../src/solver/earth/frames.js';
-import { coarseStepFor, findPasses, type PassStation, type StateAt } from '../src/solver/stations/passes.js';
+import { coarseStepFor, findPasses, type PassStation } from '../src/solver/stations/passes.js';
 import { parseUtcIso } from '../src/solver/time/time.js';
 import type { Vec3 } from '../src/solver/core/vec3.js';
+import { bareEarthFixedTrack, circularLeo } from './leo.js';
 import type { BenchResult } from './types.js';
 
 const DEG = Math.PI / 180;
-const MU = 398_600.4418;
 const WINDOW_S = 7 * 86_400;
 const ROUNDS = 5;
 const TRACKS_PER_ROUND = 10;
 const SEARCHES_PER_ROUND = 2;
-
-function circularOrbit(t0: number): StateAt {
-  const a = 6378.137 + 520;
-  const n = Math.sqrt(MU / a ** 3);
-  const inc = 97.5 * DEG;
-  const raan = 0.8;
-  const p: Vec3 = [Math.cos(raan), Math.sin(raan), 0];
-  const q: Vec3 = [-Math.sin(raan) * Math.cos(inc), Math.cos(raan) * Math.cos(inc), Math.sin(inc)];
-  return (t) => {
-    const u = n * (t - t0);
-    const [c, s] = [Math.cos(u), Math.sin(u)];
-    return {
-      r: [a * (c * p[0] + s * q[0]), a * (c * p[1] + s * q[1]), a * (c * p[2] + s * q[2])],
-      v: [a * n * (-s * p[0] + c * q[0]), a * n * (-s * p[1] + c * q[1]), a * n * (-s * p[2] + c * q[2])],
-    };
-  };
-}
 
 // Ten invented stations spread over latitudes -70..75 deg; two carry horizon masks.
 const STATIONS: PassStation[] = Array.from({ length: 10 }, (_, i) => ({
@@ -49,23 +31,13 @@ export async function benchPasses(): Promise<BenchResult[]> {
   const start = parseUtcIso('2026-12-01T00:00:00Z');
   if (!start.ok) throw new Error(start.message);
   const t0 = start.value;
-  const stateAt = circularOrbit(t0);
+  const stateAt = circularLeo(t0, 97.5);
   const first = stateAt(t0) as { r: Vec3; v: Vec3 };
   const { stepS } = coarseStepFor(first.r, first.v);
   const count = Math.ceil(WINDOW_S / stepS) + 1;
 
-  const bareTrack = (): number => {
-    const epochs = new Float64Array(count);
-    const states = new Float64Array(6 * count);
-    for (let k = 0; k < count; k++) {
-      const t = Math.min(t0 + k * stepS, t0 + WINDOW_S);
-      epochs[k] = t;
-      const s = stateAt(t) as { r: Vec3; v: Vec3 };
-      states.set(s.r, 6 * k);
-      states.set(s.v, 6 * k + 3);
-    }
-    return gcrfToItrfBatch(epochs, states)[6 * count - 6]!;
-  };
+  const bareTrack = (): number => bareEarthFixedTrack(stateAt, t0, WINDOW_S, stepS);
+
   let passCount = 0;
   let calls = 0;
   const search = (): number => {

@@ -2,6 +2,7 @@
 // Prints a table and the machine it ran on. Not a test: figures vary with the machine's load.
 import { cpus, totalmem } from 'node:os';
 import type { BenchResult } from './types.js';
+import { benchEclipses } from './eclipses.js';
 import { benchFrames } from './frames.js';
 import { benchJobs } from './jobs.js';
 import { benchKepler } from './kepler.js';
@@ -14,6 +15,7 @@ const suites: Array<[string, () => Promise<BenchResult[]>]> = [
   ['track-kernel', benchTrackKernel],
   ['track-http', benchTrackHttp],
   ['passes', benchPasses],
+  ['eclipses', benchEclipses],
   ['frames', benchFrames],
   ['jobs', benchJobs],
 ];

@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { ProblemError, solverProblem } from '../errors.js';
 import { CSV_MEDIA_TYPE } from '../formats/csv.js';
 import { ECLIPSES_CSV_HEADER, eclipsesCsv } from '../formats/eclipses-csv.js';
+import { eclipsesSvg, SVG_MEDIA_TYPE } from '../formats/svg/index.js';
 import { jsonAnswer } from '../plugins/answers.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
@@ -16,17 +17,18 @@ const eclipses: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/eclipses', {
     schema: {
       tags: ['orbits'],
-      summary: 'Eclipses: penumbra and umbra entry and exit, depth, beta angle, node local time of sun-synchronous orbits (JSON or CSV)',
+      summary: 'Eclipses: penumbra and umbra entry and exit, depth, beta angle, node local time of sun-synchronous orbits (JSON, CSV or an SVG timeline)',
       description: 'Searches the window for every interval in which the spacecraft sees the solar disc partly or wholly hidden by the Earth ' +
         '(conical shadow, spherical Earth of the equatorial radius, spherical Sun; Montenbruck & Gill 2000 sec. 3.4.2), and by the Moon when asked. ' +
         'Entries and exits are refined to 0.01 s; an eclipse shorter than the scan step is not missed. No atmosphere: real sunlight fades over a few seconds around the computed entry.',
       body: EclipsesRequest,
       response: {
         200: {
-          description: 'The eclipses (JSON or CSV)',
+          description: 'The eclipses (JSON, CSV or SVG)',
           content: {
             'application/json': { schema: EclipsesAnswer },
             'text/csv': { schema: z.string().describe(`RFC 4180 CSV, one row per eclipse in time order: ${ECLIPSES_CSV_HEADER}`) },
+            'image/svg+xml': { schema: z.string().describe('Standalone SVG: a timeline of sunlight, penumbra and umbra, one row per UTC day (a second lane for the Moon\'s shadow when asked)') },
           },
         },
         ...problemResponses,
@@ -47,6 +49,7 @@ const eclipses: FastifyPluginAsyncZod = async (app) => {
       if (!found.ok) throw solverProblem(found);
       const answer = toEclipsesAnswer(req, hash, found.value);
       if (format === 'json') return jsonAnswer(answer);
+      if (format === 'svg') return { contentType: SVG_MEDIA_TYPE, body: Buffer.from(eclipsesSvg(answer)) };
       return { contentType: CSV_MEDIA_TYPE, body: Buffer.from(eclipsesCsv(answer.eclipses, answer.moonEclipses)) };
     });
   });

@@ -12,6 +12,7 @@ import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 export const ECLIPSE_FORMATS = [
   ['json', 'application/json'],
   ['csv', 'text/csv'],
+  ['svg', 'image/svg+xml'],
 ] as const;
 export type EclipseFormat = (typeof ECLIPSE_FORMATS)[number][0];
 
@@ -25,7 +26,7 @@ export const EclipsesRequest = z
       .describe('Also search the Moon\'s shadow (conical, mean lunar radius 1737.4 km); its eclipses are listed apart, in moonEclipses'),
     ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (0 when not given): enters only the local time of the ascending node'),
     format: z.enum(ECLIPSE_FORMATS.map(([f]) => f) as [EclipseFormat, ...EclipseFormat[]]).optional()
-      .describe('json | csv (RFC 4180, one row per eclipse, Earth and Moon together in time order). Without it the Accept header chooses (application/json, text/csv); default json'),
+      .describe('json | csv (RFC 4180, one row per eclipse, Earth and Moon together in time order) | svg (a timeline of sunlight, penumbra and umbra, one row per UTC day). Without it the Accept header chooses (application/json, text/csv, image/svg+xml); default json'),
   })
   .strict()
   .superRefine(requireOneOrbitInput)

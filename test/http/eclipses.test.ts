@@ -8,6 +8,7 @@ import { formatUtcIso, parseUtcIso } from '../../src/solver/time/time.js';
 import { postJson, testApp } from '../helpers/app.js';
 import { expectClose } from '../helpers/approx.js';
 import { parseLines, until } from '../helpers/batch.js';
+import { byClass, parseSvg } from '../helpers/svg.js';
 import { MU_EARTH, R_EARTH, behindTheMoon, betaZeroDurations, earthShadowChanges, moonShadowRegion, regionChanges, reportedChanges, sunAt, unit } from '../helpers/cone-shadow.js';
 
 let app: FastifyInstance;
@@ -204,6 +205,29 @@ describe('POST /v1/eclipses', () => {
     await until('job done', async () => (await app.inject({ url: `/v1/jobs/${id}` })).json().status === 'done');
     const [jobLine] = parseLines((await app.inject({ url: `/v1/jobs/${id}/results` })).rawPayload);
     expect(JSON.stringify(jobLine!.answer)).toBe(first.body);
+  });
+
+  it('format svg: a timeline with one row per UTC day whose umbra bars start at the answer\'s umbra entries (time of day across 520 px)', async () => {
+    const t0 = tt('2026-09-30T12:00:00Z');
+    const request = { ...geostationary(t0), window: window(t0, t0 + 3 * DAY) };
+    const json = EclipsesAnswer.parse((await postJson(app, '/v1/eclipses', request)).json());
+    const res = await postJson(app, '/v1/eclipses', { ...request, format: 'svg' });
+    expect(res.statusCode).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^image\/svg\+xml/);
+    const { elements } = parseSvg(res.body);
+    // The layout of src/formats/svg/eclipse-timeline.ts: the plot runs from x = 70 to 620 over 24 h.
+    const xOf = (iso: string): number => 70 + (550 * ((Date.parse(iso) / 1000) % DAY)) / DAY;
+    const umbraStarts = byClass(elements, 'umbra').map((e) => Number(e.attrs.x));
+    const entries = json.eclipses.filter((e) => !e.startsBeforeWindow).map((e) => xOf(e.umbraStart!));
+    expect(json.eclipses.length).toBeGreaterThanOrEqual(3);
+    for (const x of entries) expect(umbraStarts.some((u) => Math.abs(u - x) < 0.01), `an umbra bar at x = ${x}`).toBe(true);
+    // Four rows (09-30 to 10-03 UTC); no Moon lane unless asked.
+    const labels = elements.filter((e) => e.tag === 'text').length;
+    expect(labels).toBeGreaterThan(4);
+    expect(byClass(elements, 'moon')).toHaveLength(0);
+    expect(res.body).toContain('>09-30<');
+    expect(res.body).toContain('>10-03<');
+    expect(res.body).not.toContain('>10-04<');
   });
 
   it('refuses a window over 31 days (422), a reversed window (400), a body other than the Earth (422) and unknown fields (400)', async () => {

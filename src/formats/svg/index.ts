@@ -4,6 +4,7 @@ import type { PotentialTerm } from '../../solver/central/potential.js';
 import type { CentralForceAnalysis } from '../../solver/central/radial.js';
 import { stackPanels } from './common.js';
 import { axisUnits, effectivePotentialPanel, PLOT_WIDTH, type EffectivePotentialOptions } from './effective-potential.js';
+import { eclipseTimelinePanel, type EclipseTimelineInput } from './eclipse-timeline.js';
 import { groundTrackPanel, type GroundSample, type GroundTrackOptions } from './ground-track.js';
 import { orbitPlanePanel, type OrbitPlaneInput } from './orbit-plane.js';
 import { passTimelinePanel, type TimelinePass } from './pass-timeline.js';
@@ -33,3 +34,6 @@ export function passesSvg(window: { start: string; stop: string }, stations: rea
     ...stations.map((s) => skyPlotPanel(s, passes.filter((p) => p.station === s.id))),
   ]);
 }
+
+/** /v1/eclipses: the timeline of sun and shadow, one row per UTC day. */
+export const eclipsesSvg = (input: EclipseTimelineInput): string => stackPanels(PLOT_WIDTH, 'Eclipses', [eclipseTimelinePanel(input)]);

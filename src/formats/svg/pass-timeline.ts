@@ -17,8 +17,7 @@ export interface TimelineRow {
 }
 
 /**
- * A timeline panel: rows of bars over [start, stop] (ISO UTC). Shared by the pass timeline and the
- * eclipse timeline; `barLabel` and `markLabel` name the bar and its tick in the legend.
+ * A timeline panel: rows of bars over [start, stop] (ISO UTC), for the pass timeline; `barLabel` and `markLabel` name the bar and its tick in the legend.
  */
 export function timelinePanel(title: string, window: { start: string; stop: string }, rows: readonly TimelineRow[], legend: { bar: string; mark?: string }): Panel {
   const t0 = unixSeconds(window.start);
