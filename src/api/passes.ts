@@ -9,6 +9,7 @@ import { formatUtcIso } from '../solver/time/time.js';
 import { SVG_POINTING_BUDGET_S, SVG_POINTING_STEP_S, type GroundStation, type PassesAnswer, type PassesRequest } from '../schemas/passes.js';
 import type { PassesJob, PassesJobResult } from '../workers/jobs.js';
 import type { LightAt, PassLight } from '../solver/light/pass-light.js';
+import { BENNETT_PRESSURE_HPA, BENNETT_TEMPERATURE_C, type RefractionSpec } from '../solver/stations/refraction.js';
 import { epochTT } from './epoch.js';
 import { searchWindow } from './search-window.js';
 
@@ -72,8 +73,16 @@ export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralB
     stopTT,
     stations: req.stations.map(stationForSearch),
     lighting: { twilightLimit: req.twilightLimit * DEG },
-    options: { dut1: req.ut1MinusUtc, gm: body.gm, ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
+    options: { dut1: req.ut1MinusUtc, gm: body.gm, ...refractionOption(req), ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
   };
+}
+
+/** The refraction of a request as the search takes it (nothing for none). */
+function refractionOption(req: Omit<PassesRequest, 'format'>): { refraction?: RefractionSpec } {
+  if (req.refraction === undefined || req.refraction === 'none') return {};
+  if (req.refraction === 'radio') return { refraction: { model: 'radio' } };
+  const air = req.atmosphere ?? { pressure: BENNETT_PRESSURE_HPA, temperature: BENNETT_TEMPERATURE_C };
+  return { refraction: { model: 'optical', pressureHpa: air.pressure, temperatureC: air.temperature } };
 }
 
 /** The /v1/passes answer for a finished search. */
@@ -83,6 +92,10 @@ export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string,
     model: req.model,
     window: { start: formatUtcIso(epochTT(req.window.start)), stop: formatUtcIso(epochTT(req.window.stop)) },
     coarseStep: found.coarseStepS,
+    ...(req.refraction === 'radio' ? { refraction: { model: 'radio' as const } } : {}),
+    ...(req.refraction === 'optical'
+      ? { refraction: { model: 'optical' as const, pressure: req.atmosphere?.pressure ?? BENNETT_PRESSURE_HPA, temperature: req.atmosphere?.temperature ?? BENNETT_TEMPERATURE_C } }
+      : {}),
     passes: found.passes.map((p, i) => toPassAnswer(p, found.light[i]!, req.pointing?.carrierFrequency)),
   };
 }

@@ -19,7 +19,7 @@ const passes: FastifyPluginAsyncZod = async (app) => {
       tags: ['orbits'],
       summary: 'Ground-station passes: AOS, TCA, LOS, maximum elevation, azimuths, optional pointing and Doppler (JSON or SVG)',
       description: 'Searches the window for every interval in which the spacecraft is above each station\'s elevation limit and horizon mask. ' +
-        'AOS/LOS are refined to better than 0.1 s and TCA by maximisation. Geometric elevation (no refraction). ' +
+        'AOS/LOS are refined to better than 0.1 s and TCA by maximisation. Geometric elevations unless refraction (radio or optical) is asked. ' +
         'Pass predictions do not grant a licence to transmit: radio transmission needs licensing and frequency coordination.',
       body: PassesRequest,
       response: {
@@ -34,7 +34,10 @@ const passes: FastifyPluginAsyncZod = async (app) => {
       },
     },
   }, async (request, reply) => {
-    const { format: asked, ...req } = request.body;
+    const { format: asked, ...body } = request.body;
+    // refraction "none" is the default: it leaves the scenario (and its hash and bytes) as without the field.
+    const { refraction, ...rest } = body;
+    const req = refraction === 'none' ? rest : body;
     const format = chooseFormat(request, asked, PLOT_FORMATS);
     if (req.centralBody !== 'earth') throw new ProblemError('unsupported-frame', 'ground-station passes need the built-in centralBody "earth"');
     // JSON answers keep the scenario (and hash) they had before the format field existed.

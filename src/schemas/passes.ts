@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTING_STEP_S } from '../solver/stations/passes.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
+import { BENNETT_PRESSURE_HPA, BENNETT_TEMPERATURE_C, REFRACTION_MODELS } from '../solver/stations/refraction.js';
 import { DEMO_EPOCH, Epoch, EpochOut } from './common.js';
 import { modelFields } from './forces.js';
 import { DEMO_ELEMENTS, orbitFields, plotFormatField, requireOneOrbitInput } from './orbit.js';
@@ -47,12 +48,21 @@ export const PassesRequest = z
       .optional()
       .describe('Ask for an antenna pointing track of each pass'),
     ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (0 when not given: up to ~0.4 km of along-track error on the ground)'),
+    refraction: z.enum(REFRACTION_MODELS).optional()
+      .describe('none (default: geometric elevations) | radio (4/3 effective Earth radius) | optical (Bennett 1982): AOS/LOS are then where the apparent elevation crosses the limit, and maxElevation and the pointing elevations are apparent'),
+    atmosphere: z.object({
+      pressure: z.number().min(0).max(1200).default(BENNETT_PRESSURE_HPA).describe(`Air pressure at the station, hPa (default ${BENNETT_PRESSURE_HPA})`),
+      temperature: z.number().min(-90).max(60).default(BENNETT_TEMPERATURE_C).describe(`Air temperature at the station, deg C (default ${BENNETT_TEMPERATURE_C})`),
+    }).strict().optional().describe('With refraction optical only: the conditions Bennett\'s refraction is scaled to'),
     twilightLimit: z.number().min(-90).max(90).default(-6)
       .describe('deg (default -6, civil twilight): a pass point is visible (optically) when the spacecraft is sunlit and the Sun\'s elevation at the station is below this'),
     format: plotFormatField(`a timeline of the passes by station, and a sky plot per station with the horizon mask and AOS/TCA/LOS; without pointing the plot uses a pointing step of ${SVG_POINTING_STEP_S} s, longer when the window times the stations exceeds ${SVG_POINTING_BUDGET_S} s`),
   })
   .strict()
   .superRefine(requireOneOrbitInput)
+  .superRefine((req, ctx) => {
+    if (req.atmosphere !== undefined && req.refraction !== 'optical') ctx.addIssue({ code: 'custom', path: ['atmosphere'], message: 'atmosphere applies to refraction "optical" only' });
+  })
   .meta({
     description: 'A spacecraft, ground stations and a window',
     examples: [{
@@ -78,7 +88,7 @@ const Light = z.object(LIGHT_FIELDS).describe('Light at one instant of the pass'
 const PointingSample = z.object({
   epoch: EpochOut,
   azimuth: z.number().describe('deg'),
-  elevation: z.number().describe('deg (geometric, no refraction)'),
+  elevation: z.number().describe('deg: geometric, or apparent when refraction was asked'),
   range: z.number().describe('km'),
   rangeRate: z.number().describe('km/s, positive receding'),
   dopplerFactor: z.number().describe('received / transmitted frequency, 1 - rangeRate / c (first order)'),
@@ -92,7 +102,7 @@ export const Pass = z.object({
   tca: EpochOut.describe('Time of maximum elevation'),
   los: EpochOut.describe('Loss of signal: elevation falls through the limit (or the window stop)'),
   duration: z.number().describe('s'),
-  maxElevation: z.number().describe('deg'),
+  maxElevation: z.number().describe('deg: geometric, or apparent when refraction was asked'),
   azimuthAos: z.number().describe('deg'),
   azimuthTca: z.number().describe('deg'),
   azimuthLos: z.number().describe('deg'),
@@ -108,6 +118,11 @@ export const PassesAnswer = z.object({
   model: z.enum(TRACK_MODELS),
   window: z.object({ start: EpochOut, stop: EpochOut }),
   coarseStep: z.number().describe('s: the scan step sized from the orbit so no pass above the limit is missed'),
+  refraction: z.object({
+    model: z.enum(['radio', 'optical']),
+    pressure: z.number().optional().describe('hPa (optical)'),
+    temperature: z.number().optional().describe('deg C (optical)'),
+  }).optional().describe('Present when refraction was asked: the elevations of the answer (limits, AOS/LOS, maxElevation, pointing) are apparent ones. Absent: geometric elevations'),
   passes: z.array(Pass).describe('In time order of AOS, then station order'),
 });
 export type PassesAnswer = z.infer<typeof PassesAnswer>;

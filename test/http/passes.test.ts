@@ -115,6 +115,70 @@ describe('POST /v1/passes', () => {
     }
   });
 
+  describe('refraction', () => {
+    // An invented spacecraft on a circular equatorial orbit over an invented station on the equator: every pass is
+    // overhead, the station's vertical is radial (the ellipsoid's equator is a circle) and the direction to the
+    // spacecraft turns against the station at exactly n - omega_E in the equatorial plane.
+    const a = 6378.137 + 550;
+    const equatorial = {
+      centralBody: 'earth',
+      elements: { epoch: EPOCH, semiMajorAxis: a, eccentricity: 0, inclination: 0, raan: 0, argPeriapsis: 0, trueAnomaly: 0 },
+      window: { start: EPOCH, stop: '2026-12-01T06:00:00Z' },
+      stations: [{ id: 'marren-quay', latitude: 0, longitude: 31.4, altitude: 0, minElevation: 0 }],
+    };
+    const passes = async (extra: object) => PassesAnswer.parse((await postJson(app, '/v1/passes', { ...equatorial, ...extra })).json());
+
+    it('optical: AOS earlier and LOS later than the geometric ones by the seconds the horizon refraction takes to cross (0.05 s)', async () => {
+      // Expected, derived here: a point at central angle psi from the station, at radius r, has the geometric
+      // elevation e with r cos(e + psi) = R cos e (plane triangle centre-station-spacecraft; common practice, no
+      // source). The geometric AOS is at e = 0: psi_g = acos(R / r). The apparent AOS (apparent elevation 0) is at the
+      // geometric elevation -R0, R0 = Bennett's refraction at apparent 0, cot(7.31 / 4.4 deg) arcmin (J. Navig. 35
+      // (1982) 255): psi_a = acos(R cos R0 / r) + R0. psi changes at n - omega_E, so AOS comes
+      // (psi_a - psi_g) / (n - omega_E) earlier, LOS as much later.
+      const R = 6378.137; // WGS-84 equatorial radius, km
+      const MU = 398_600.4418; // km^3/s^2 (NIMA TR8350.2, from memory)
+      const OMEGA_E = 7.292_115e-5; // rad/s, Earth rotation rate (IERS Conventions 2010, from memory)
+      const R0 = (1 / Math.tan((7.31 / 4.4) * (Math.PI / 180))) * (Math.PI / 180 / 60);
+      const psiG = Math.acos(R / a);
+      const psiA = Math.acos((R * Math.cos(R0)) / a) + R0;
+      const expected = (psiA - psiG) / (Math.sqrt(MU / a ** 3) - OMEGA_E);
+      expect(expected).toBeGreaterThan(8); // about 9.7 s at 550 km
+      const geometric = await passes({});
+      const optical = await passes({ refraction: 'optical' });
+      expect(geometric.refraction).toBeUndefined();
+      expect(optical.refraction).toEqual({ model: 'optical', pressure: 1010, temperature: 10 });
+      const whole = (x: PassesAnswer) => x.passes.filter((p) => !p.startsBeforeWindow && !p.endsAfterWindow);
+      expect(whole(optical).length).toBe(whole(geometric).length);
+      expect(whole(geometric).length).toBeGreaterThanOrEqual(2);
+      for (const [i, g] of whole(geometric).entries()) {
+        const o = whole(optical)[i]!;
+        expectClose((ms(g.aos) - ms(o.aos)) / 1000, expected, 0.05, `AOS earlier, s (pass ${i})`);
+        expectClose((ms(o.los) - ms(g.los)) / 1000, expected, 0.05, `LOS later, s (pass ${i})`);
+        expect(o.maxElevation).toBeGreaterThanOrEqual(g.maxElevation); // apparent >= geometric
+      }
+      // Colder, denser air bends more: P / 1010 * 283 / (273 + T) (Meeus, 2nd ed. ch. 16, from memory).
+      const cold = await passes({ refraction: 'optical', atmosphere: { pressure: 1030, temperature: -20 } });
+      expect(ms(whole(geometric)[0]!.aos) - ms(whole(cold)[0]!.aos)).toBeGreaterThan(1000 * expected * 1.05);
+    });
+
+    it('radio: AOS earlier still (the 4/3-Earth bending at the horizon exceeds the optical one); "none" answers the bytes of a request without the field', async () => {
+      const geometric = await postJson(app, '/v1/passes', equatorial);
+      const none = await postJson(app, '/v1/passes', { ...equatorial, refraction: 'none' });
+      expect(none.body).toBe(geometric.body);
+      expect(none.headers.etag).toBe(geometric.headers.etag);
+      const radio = await passes({ refraction: 'radio' });
+      const optical = await passes({ refraction: 'optical' });
+      expect(radio.refraction).toEqual({ model: 'radio' });
+      const g = PassesAnswer.parse(geometric.json()).passes.find((p) => !p.startsBeforeWindow)!;
+      const r = radio.passes.find((p) => !p.startsBeforeWindow)!;
+      const o = optical.passes.find((p) => !p.startsBeforeWindow)!;
+      expect(ms(r.aos)).toBeLessThan(ms(o.aos));
+      expect(ms(o.aos)).toBeLessThan(ms(g.aos));
+      const bad = await postJson(app, '/v1/passes', { ...equatorial, refraction: 'radio', atmosphere: { pressure: 1000 } });
+      expect(bad.statusCode).toBe(400);
+    });
+  });
+
   it('refuses bad requests with problems naming the reason', async () => {
     const cases: Array<[unknown, number, string]> = [
       [{ ...demo, window: { start: EPOCH, stop: '2027-01-15T00:00:00Z' } }, 422, '/problems/window-too-long'],

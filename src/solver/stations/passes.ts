@@ -23,6 +23,9 @@
 //    interval a fine scan (steps of at most 10 s and 0.5 deg of azimuth or elevation) finds where
 //    the spacecraft is above the mask itself. A mask notch narrower than 0.5 deg of azimuth can
 //    hide a sub-second window.
+// 5. Refraction (optional, stations/refraction.ts): every elevation the search reads is the
+//    apparent one, a rising function of the geometric elevation, so the extrema and the step
+//    argument stay as they are; the prefilter's bound is lowered by the largest refraction.
 // Limits: orbits whose Earth-fixed track loops (near the apoapsis of high orbits) may show two
 // elevation extrema within one step; a visibility shorter than a step that begins and ends with
 // the same elevation trend can then be missed. Passes already up at the window start or still up
@@ -37,6 +40,7 @@ import { PropagationStopped, gcrfStateAt, unwrapState, type StateAt, type StateB
 import { scanStep } from '../propagation/scan-step.js';
 import { DEG, SECONDS_PER_DAY } from '../core/math.js';
 import { failure, success, type Outcome } from '../core/result.js';
+import { refractionOf, type Refraction, type RefractionSpec } from './refraction.js';
 import { dopplerFactor, lookAngles, stationFromGeodetic, type LookAngles, type Station } from './topocentric.js';
 import { dot, norm, type Vec3 } from '../core/vec3.js';
 
@@ -78,6 +82,12 @@ export interface PassSearchOptions extends FrameOptions {
   readonly pointingStepS?: number;
   /** GM used to size the coarse step (default Earth's), km^3/s^2. */
   readonly gm?: number;
+  /**
+   * Atmospheric refraction (stations/refraction.ts): elevations become apparent ones, so AOS/LOS
+   * are where the apparent elevation crosses the limit, and maxElevation and the pointing
+   * elevations are apparent. Absent or "none": geometric elevations.
+   */
+  readonly refraction?: RefractionSpec;
 }
 
 export interface PassSearch {
@@ -155,7 +165,8 @@ interface Prepared {
   readonly geocentricLow: number;
 }
 
-function prepareStations(stations: readonly PassStation[]): Outcome<Prepared[]> {
+/** `lift`: the largest refraction (rad), by which the prefilter's geometric bound is lowered. */
+function prepareStations(stations: readonly PassStation[], lift: number): Outcome<Prepared[]> {
   const seen = new Set<string>();
   const out: Prepared[] = [];
   for (const [index, s] of stations.entries()) {
@@ -172,7 +183,7 @@ function prepareStations(stations: readonly PassStation[]): Outcome<Prepared[]> 
     const radius = norm(station.position);
     const unit: Vec3 = [station.position[0] / radius, station.position[1] / radius, station.position[2] / radius];
     const deflection = Math.acos(Math.min(1, dot(unit, station.up)));
-    out.push({ id: s.id, index, station, mask: mask.value, flat: isFlatMask(mask.value), unit, radius, geocentricLow: mask.value.lowest - deflection - 1e-6 });
+    out.push({ id: s.id, index, station, mask: mask.value, flat: isFlatMask(mask.value), unit, radius, geocentricLow: mask.value.lowest - deflection - lift - 1e-6 });
   }
   return success(out);
 }
@@ -183,7 +194,18 @@ interface Context {
   readonly stateAt: StateAt;
   readonly startTT: number;
   readonly stopTT: number;
+  /** Look angles with the elevation (and its rate) apparent when refraction is asked. */
+  readonly look: (station: Station, r: Vec3, v: Vec3) => LookAngles;
   calls: number;
+}
+
+/** Look angles as the search reads them: lookAngles itself without refraction. */
+function lookWith(refraction: Refraction | null): (station: Station, r: Vec3, v: Vec3) => LookAngles {
+  if (!refraction) return lookAngles;
+  return (station, r, v) => {
+    const l = lookAngles(station, r, v);
+    return { ...l, elevation: refraction.apparent(l.elevation), elevationRate: refraction.slope(l.elevation) * l.elevationRate };
+  };
 }
 
 function earthFixedAt(ctx: Context, tt: number): StateVectors {
@@ -247,10 +269,10 @@ function fineSamples(a: number, b: number, lookAtTime: (t: number) => LookAngles
 function searchStation(ctx: Context, st: Prepared, track: Track, bounds: RateBounds): Interval[] {
   const count = track.times.length;
   const cache = new Array<LookAngles | undefined>(count);
-  const sample = (k: number): LookAngles => (cache[k] ??= lookAngles(st.station, trackR(track, k), trackV(track, k)));
+  const sample = (k: number): LookAngles => (cache[k] ??= ctx.look(st.station, trackR(track, k), trackV(track, k)));
   const lookAtTime = (t: number): LookAngles => {
     const s = earthFixedAt(ctx, t);
-    return lookAngles(st.station, s.r, s.v);
+    return ctx.look(st.station, s.r, s.v);
   };
   const low = st.mask.lowest;
   const tolerances = { rootTolS: ROOT_TOLERANCE_S, peakTolS: PEAK_TOLERANCE_S };
@@ -306,14 +328,14 @@ function mayBeVisible(st: Prepared, track: Track, k: number, bounds: RateBounds)
 }
 
 /** Bracket of the highest elevation in [a, b]: around the best coarse sample inside (long passes may hold several maxima). */
-function peakBracket(st: Prepared, track: Track, a: number, b: number): [number, number] {
+function peakBracket(ctx: Context, st: Prepared, track: Track, a: number, b: number): [number, number] {
   const { times } = track;
   let best = -1;
   let bestEl = -Infinity;
   const first = Math.max(0, Math.floor((a - times[0]!) / (times[1]! - times[0]!)));
   for (let k = first; k < times.length && times[k]! < b; k++) {
     if (times[k]! <= a) continue;
-    const el = lookAngles(st.station, trackR(track, k), trackV(track, k)).elevation;
+    const el = ctx.look(st.station, trackR(track, k), trackV(track, k)).elevation;
     if (el > bestEl) {
       bestEl = el;
       best = k;
@@ -326,11 +348,11 @@ function peakBracket(st: Prepared, track: Track, a: number, b: number): [number,
 function describe(ctx: Context, st: Prepared, track: Track, iv: Interval, pointingStepS: number | undefined): Pass {
   const lookAt = (t: number): LookAngles => {
     const s = earthFixedAt(ctx, t);
-    return lookAngles(st.station, s.r, s.v);
+    return ctx.look(st.station, s.r, s.v);
   };
   const aos = lookAt(iv.start);
   const los = lookAt(iv.stop);
-  const [a, b] = peakBracket(st, track, iv.start, iv.stop);
+  const [a, b] = peakBracket(ctx, st, track, iv.start, iv.stop);
   let tca = b - a > PEAK_TOLERANCE_S ? goldenSectionMax((t) => lookAt(t).elevation, a, b, PEAK_TOLERANCE_S).t : a;
   let top = lookAt(tca);
   for (const [t, l] of [[iv.start, aos], [iv.stop, los]] as const) {
@@ -381,9 +403,10 @@ export function findPasses(search: PassSearch): Outcome<PassSearchResult> {
   if (step !== undefined && !(step >= MIN_POINTING_STEP_S && Number.isFinite(step))) {
     return failure('invalid-parameter', `pointing step ${step} s: it must be at least ${MIN_POINTING_STEP_S} s`);
   }
-  const prepared = prepareStations(stations);
+  const refraction = options.refraction ? refractionOf(options.refraction) : null;
+  const prepared = prepareStations(stations, refraction?.max ?? 0);
   if (!prepared.ok) return prepared;
-  const ctx: Context = { table: orientationTable(startTT, stopTT, options), stateAt: search.stateAt, startTT, stopTT, calls: 0 };
+  const ctx: Context = { table: orientationTable(startTT, stopTT, options), stateAt: search.stateAt, startTT, stopTT, look: lookWith(refraction), calls: 0 };
   try {
     ctx.calls++;
     const first = gcrfStateAt(ctx.stateAt, startTT);
