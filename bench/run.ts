@@ -5,6 +5,7 @@ import type { BenchResult } from './types.js';
 import { benchEclipses } from './eclipses.js';
 import { benchFrames } from './frames.js';
 import { benchJobs } from './jobs.js';
+import { benchJobsMemory } from './jobs-memory.js';
 import { benchKepler } from './kepler.js';
 import { benchPasses } from './passes.js';
 import { benchTrackHttp } from './track-http.js';
@@ -18,6 +19,7 @@ const suites: Array<[string, () => Promise<BenchResult[]>]> = [
   ['eclipses', benchEclipses],
   ['frames', benchFrames],
   ['jobs', benchJobs],
+  ['jobs-memory', benchJobsMemory],
 ];
 
 const only = process.argv[2];

@@ -65,6 +65,8 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
     genReqId: requestIds(),
     routerOptions: { ignoreTrailingSlash: true, maxParamLength: MAX_PATH_SEGMENT_CHARS },
     frameworkErrors,
+    // Requests that arrive while closing get our 503 shutting-down problem (src/plugins/pressure.ts), not fastify's plain 503.
+    return503OnClosing: false,
     ...(config.TRUST_PROXY === undefined ? {} : { trustProxy: trustProxy(config.TRUST_PROXY) }),
     clientErrorHandler,
     keepAliveTimeout: config.KEEP_ALIVE_TIMEOUT_S * 1000,

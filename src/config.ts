@@ -26,6 +26,7 @@ export const Config = z.object({
   JOB_CALLBACK_ATTEMPTS: int(5, 1, 50).describe('Attempts to deliver one callback'),
   JOB_CALLBACK_BACKOFF_MS: int(1000, 0, 3_600_000).describe('Wait before the second attempt of a callback, ms; doubled for each further one'),
   JOB_CALLBACK_TIMEOUT_MS: int(10_000, 100, 120_000).describe('Time one callback attempt may take, ms'),
+  JOBS_MAX_BYTES: int(256 * 1024 * 1024, 1024, 64 * 1024 ** 3).describe('In-process job queue only: bytes of items waiting and result lines kept, all jobs together; past it the oldest finished jobs are dropped, then POST /v1/jobs answers 503 queue-unavailable with Retry-After, and a running job whose results would pass it fails'),
   JOB_RESULT_TTL_S: int(7 * 86_400, 60, 365 * 86_400).describe('Seconds a job record and its results are kept after the job was submitted or last made progress'),
   REQUEST_DEADLINE_S: z.coerce.number().positive().max(86_400).optional().describe('Seconds heavy work of one request (or one batch or job item) may take on a worker thread; past it the thread is stopped and the request answers 504 deadline-exceeded. Unset: no deadline'),
   MAX_JSON_DEPTH: int(64, 4, 1000).describe('Deepest nesting of objects and arrays accepted in a JSON body; deeper answers 400 json-too-deep before anything else looks at it'),

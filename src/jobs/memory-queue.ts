@@ -3,6 +3,9 @@
 // the oldest finished ones first, and when every kept job is unfinished the new one is refused.
 // Finished jobs are also dropped `ttlS` (JOB_RESULT_TTL_S) after their last progress. Nothing
 // survives a restart: a job running when the service stops is marked failed; use Redis to keep jobs.
+// Memory is bounded in bytes too (`maxBytes`, JOBS_MAX_BYTES: the items waiting to run and the
+// lines kept): past it the oldest finished jobs are dropped, a new job is refused when that is not
+// enough, and a running job whose lines would pass it fails (its lines written stay readable).
 import { randomUUID } from 'node:crypto';
 import type { JobCounts } from '../plugins/metrics.js';
 import type { BatchItem, JobStatus } from '../schemas/batch.js';
@@ -16,6 +19,8 @@ export interface MemoryQueueOptions {
   readonly maxKept: number;
   /** Seconds a finished job is kept after its last progress. */
   readonly ttlS: number;
+  /** Bytes of items and lines kept, all jobs together (Infinity: no bound). */
+  readonly maxBytes?: number;
   /** Clock, ms since 1970 (tests). */
   readonly now?: () => number;
 }
@@ -31,6 +36,8 @@ interface MemoryJob {
   readonly deadlineMs: number | undefined;
   readonly idempotency: string | undefined;
   readonly abort: AbortController;
+  /** Bytes this job holds: its items (as submitted JSON) until it has run, and its lines. */
+  bytes: number;
 }
 
 export const finished = (status: JobStatus) => status === 'done' || status === 'failed' || status === 'cancelled';
@@ -48,6 +55,8 @@ export class MemoryJobQueue implements JobQueue {
   #running: Promise<void> | undefined;
   #seq = 0;
   #events: JobEvents | undefined;
+  /** Bytes held by all kept jobs. */
+  #bytes = 0;
 
   constructor(run: RunLines, options: MemoryQueueOptions) {
     if (!Number.isInteger(options.maxKept) || options.maxKept < 1) throw new RangeError('maxKept must be an integer >= 1');
@@ -70,6 +79,10 @@ export class MemoryJobQueue implements JobQueue {
     if (this.#jobs.size >= this.#options.maxKept) {
       throw new QueueUnavailableError(`the in-process queue holds ${this.#jobs.size} unfinished jobs (JOBS_MAX_KEPT ${this.#options.maxKept}); retry after ${RETRY_AFTER_S} s`, RETRY_AFTER_S);
     }
+    const itemBytes = Buffer.byteLength(JSON.stringify(job.items));
+    if (!this.#makeRoom(itemBytes)) {
+      throw new QueueUnavailableError(`the in-process queue holds as many bytes of jobs and results as it may (JOBS_MAX_BYTES); retry after ${RETRY_AFTER_S} s, when finished jobs have been read and expire`, RETRY_AFTER_S);
+    }
     const id = randomUUID();
     const record: JobRecord = {
       id,
@@ -91,7 +104,8 @@ export class MemoryJobQueue implements JobQueue {
       callbackUrl: job.callbackUrl ?? null,
     };
     const idempotency = job.idempotencyKey === undefined ? undefined : idempotencySlot(job.owner, job.idempotencyKey);
-    this.#jobs.set(id, { record, items: job.items, lines: [], touchedMs: this.#now(), deadlineMs: job.deadlineMs, idempotency, abort: new AbortController() });
+    this.#jobs.set(id, { record, items: job.items, lines: [], touchedMs: this.#now(), deadlineMs: job.deadlineMs, idempotency, abort: new AbortController(), bytes: itemBytes });
+    this.#bytes += itemBytes;
     if (idempotency !== undefined) this.#idempotent.set(idempotency, id);
     this.#waiting.push(id);
     this.#pump();
@@ -117,6 +131,7 @@ export class MemoryJobQueue implements JobQueue {
     const at = this.#waiting.indexOf(id);
     if (at >= 0) {
       this.#waiting.splice(at, 1);
+      this.#release(job, Buffer.byteLength(JSON.stringify(job.items)));
       job.items = undefined;
       job.record = { ...job.record, status: 'cancelled', finishedAt: new Date(this.#now()).toISOString(), error: CANCELLED_REASON };
       job.touchedMs = this.#now();
@@ -170,7 +185,28 @@ export class MemoryJobQueue implements JobQueue {
   #drop(id: string): void {
     const job = this.#jobs.get(id);
     if (job?.idempotency !== undefined) this.#idempotent.delete(job.idempotency);
+    if (job) this.#bytes -= job.bytes;
     this.#jobs.delete(id);
+  }
+
+  #release(job: MemoryJob, bytes: number): void {
+    job.bytes -= bytes;
+    this.#bytes -= bytes;
+  }
+
+  /** Bytes held by all kept jobs (items waiting and lines). */
+  get bytes(): number {
+    return this.#bytes;
+  }
+
+  /** Drop the oldest finished jobs until `more` bytes fit under maxBytes; false when they cannot. */
+  #makeRoom(more: number): boolean {
+    const max = this.#options.maxBytes ?? Infinity;
+    for (const [id, kept] of this.#jobs) {
+      if (this.#bytes + more <= max) break;
+      if (finished(kept.record.status)) this.#drop(id);
+    }
+    return this.#bytes + more <= max;
   }
 
   /** Drop finished jobs past their time to live. */
@@ -205,11 +241,16 @@ export class MemoryJobQueue implements JobQueue {
     const deadline = new AbortController();
     const signal = AbortSignal.any([stop, deadline.signal]);
     const timer = job.deadlineMs === undefined ? undefined : setTimeout(() => deadline.abort(), Math.max(0, job.deadlineMs - this.#now()));
+    const itemBytes = Buffer.byteLength(JSON.stringify(job.items));
+    let tooBig = false;
     try {
       if (!pastDeadline()) {
         for await (const out of this.#run({ id, items: job.items, owner: job.record.owner }, 0, signal)) {
           if (pastDeadline()) { deadline.abort(); break; }
+          if (!this.#makeRoom(out.line.length)) { tooBig = true; break; }
           job.lines.push(out.line);
+          job.bytes += out.line.length;
+          this.#bytes += out.line.length;
           update({ done: job.record.done + 1, failed: job.record.failed + (out.failed ? 1 : 0) });
         }
       }
@@ -218,6 +259,7 @@ export class MemoryJobQueue implements JobQueue {
         update({ status: 'done', finishedAt: iso() });
         this.#events?.done((Date.parse(job.record.finishedAt!) - Date.parse(job.record.startedAt!)) / 1000);
       }
+      else if (tooBig) update({ status: 'failed', finishedAt: iso(), error: `its results passed the bytes the in-process queue may hold (JOBS_MAX_BYTES) after ${done} of ${items} items; split the job, or run the service with REDIS_URL` });
       else if (job.abort.signal.aborted) update({ status: 'cancelled', finishedAt: iso(), error: CANCELLED_REASON });
       else if (deadline.signal.aborted || pastDeadline()) update({ status: 'failed', finishedAt: iso(), error: deadlineReason(job.record.deadline!, done, items) });
       else update({ status: 'failed', finishedAt: iso(), error: `the service stopped after ${done} of ${items} items; the in-process queue does not keep jobs across restarts: submit it again` });
@@ -226,6 +268,7 @@ export class MemoryJobQueue implements JobQueue {
     } finally {
       clearTimeout(timer);
       job.items = undefined;
+      if (this.#jobs.get(id) === job) this.#release(job, itemBytes);
     }
     this.#events?.finished?.(job.record);
   }

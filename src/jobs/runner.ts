@@ -30,6 +30,13 @@ export interface RunnerOptions {
   readonly signal?: AbortSignal;
   /** The caller the items run for (the batch's or the job's owner); null: the open service. */
   readonly caller?: string | null;
+  /**
+   * Aborted when the service shuts down: no item starts after it; the items in hand finish, and
+   * every item not run gets a 503 shutting-down line, so the stream still ends with a line per item.
+   */
+  readonly stopping?: AbortSignal;
+  /** Items in the whole batch (named in a shutting-down line). */
+  readonly total?: number;
 }
 
 export const runnerOptions = (config: Config, requestIdPrefix: string, signal?: AbortSignal, caller: string | null = null): RunnerOptions => ({
@@ -98,6 +105,13 @@ function oneLine(json: Buffer): Buffer {
   return Buffer.from(json.filter((byte) => byte !== NEWLINE && byte !== RETURN));
 }
 
+/** The line of an item not run because the service is shutting down. */
+function notRun(index: number, item: BatchItem, opts: RunnerOptions, first: number, total: number): LineOut {
+  const left = total - first;
+  return localProblem(index, item, opts, 'shutting-down',
+    `the service is shutting down: items ${first} to ${total - 1} (${left} of ${total}) were not run; send them again (another instance answers, or this one after its restart)`);
+}
+
 /** Solve one item through its endpoint and write its line. Never throws. */
 export async function runItem(app: FastifyInstance, item: BatchItem, index: number, opts: RunnerOptions): Promise<LineOut> {
   try {
@@ -121,7 +135,7 @@ export async function runItem(app: FastifyInstance, item: BatchItem, index: numb
         },
       });
       const retryAfter = Number(res.headers['retry-after']);
-      if (res.statusCode === 503 && attempt < OVERLOAD_RETRIES && Number.isFinite(retryAfter) && !opts.signal?.aborted) {
+      if (res.statusCode === 503 && attempt < OVERLOAD_RETRIES && Number.isFinite(retryAfter) && !opts.signal?.aborted && !opts.stopping?.aborted) {
         try {
           await sleep(Math.min(Math.max(retryAfter, 0), MAX_RETRY_WAIT_S) * 1000, undefined, opts.signal ? { signal: opts.signal } : {});
           continue;
@@ -147,6 +161,8 @@ export async function runItem(app: FastifyInstance, item: BatchItem, index: numb
       return localProblem(index, item, opts, 'internal', `the endpoint answered ${res.statusCode} ${contentType || 'without a media type'}, neither its product nor a problem`);
     }
   } catch (error) {
+    // The app began to close between the last check and this item's start.
+    if ((error as { code?: string }).code === 'FST_ERR_REOPENED_CLOSE_SERVER') return notRun(index, item, opts, index, opts.total ?? index + 1);
     app.log.error({ err: error, index, kind: item.kind }, 'batch item failed');
     return localProblem(index, item, opts, 'internal', 'The service failed while answering this item; the request id identifies the fault in the logs.');
   }
@@ -160,9 +176,9 @@ export async function* runItems(app: FastifyInstance, items: readonly BatchItem[
   const inFlight: Promise<LineOut>[] = [];
   let next = from;
   const launch = () => {
-    while (inFlight.length < opts.concurrency && next < items.length && !opts.signal?.aborted) {
+    while (inFlight.length < opts.concurrency && next < items.length && !opts.signal?.aborted && !opts.stopping?.aborted) {
       const index = next++;
-      inFlight.push(runItem(app, items[index]!, index, opts));
+      inFlight.push(runItem(app, items[index]!, index, { ...opts, total: items.length }));
     }
   };
   launch();
@@ -172,4 +188,6 @@ export async function* runItems(app: FastifyInstance, items: readonly BatchItem[
     launch();
     yield line;
   }
+  // Shutting down: what was not started gets its line, so the stream ends clearly.
+  for (let index = next, first = next; index < items.length; index++) yield notRun(index, items[index]!, opts, first, items.length);
 }

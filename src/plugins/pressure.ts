@@ -3,12 +3,13 @@
 // requests answer 503 overloaded with Retry-After before the process degrades further, and
 // /readyz names `load` as missing, so a balancer sends the work elsewhere. Health, readiness,
 // /metrics, the docs and the page are still answered. The detail names what is over its limit,
-// never the figures.
+// never the figures. While the app closes, new /v1 requests answer 503 shutting-down.
 import { getHeapStatistics } from 'node:v8';
 import fp from 'fastify-plugin';
 import underPressure from '@fastify/under-pressure';
 import type { FastifyInstance, FastifyRequest } from 'fastify';
 import { ProblemError } from '../errors.js';
+import { INNER_REQUEST_HEADER } from './metrics.js';
 
 /** Seconds an overloaded instance asks callers to wait. */
 export const PRESSURE_RETRY_AFTER_S = 5;
@@ -41,6 +42,17 @@ export default fp(async function pressure(app: FastifyInstance) {
         headers: { 'retry-after': String(PRESSURE_RETRY_AFTER_S) },
       });
     },
+  });
+  // While closing, new /v1 requests (on connections still open) answer 503 shutting-down; readiness says closing.
+  let closing = false;
+  app.addHook('preClose', async () => { closing = true; });
+  app.addHook('onRequest', async (request, reply) => {
+    // Batch and job items in hand are work already accepted: they finish.
+    if (!closing || exempt(request) || request.headers[INNER_REQUEST_HEADER] === app.jobMetrics.innerToken) return;
+    reply.header('connection', 'close');
+    throw new ProblemError('shutting-down', `this instance is shutting down and takes no new work; retry after ${PRESSURE_RETRY_AFTER_S} s`, {
+      headers: { 'retry-after': String(PRESSURE_RETRY_AFTER_S) },
+    });
   });
   app.readiness.set('load', async () => (app.isUnderPressure() ? 'under pressure (event loop delay or memory over its limit)' : null));
 }, { name: 'pressure' });

@@ -20,6 +20,9 @@ async function* bytes(lines: AsyncIterable<LineOut>): AsyncGenerator<Buffer> {
 }
 
 const batch: FastifyPluginAsyncZod = async (app) => {
+  // At shutdown a batch in flight finishes the items in hand and answers the rest as 503 shutting-down lines.
+  const stopping = new AbortController();
+  app.addHook('preClose', async () => { stopping.abort(); });
   app.post('/v1/batch', {
     schema: {
       tags: ['batch'],
@@ -48,7 +51,7 @@ const batch: FastifyPluginAsyncZod = async (app) => {
     if (items.length > max) throw new ProblemError('limit-exceeded', `the batch holds ${items.length} items; the maximum is ${max} (BATCH_MAX_ITEMS): split it, or submit it as several jobs`);
     // The generator starts items only while the client reads: a slow reader holds back the work, and
     // a client that goes away stops it (the stream is destroyed and the generator returns).
-    const lines = runItems(app, items, 0, runnerOptions(app.config, String(request.id), undefined, request.callerId));
+    const lines = runItems(app, items, 0, { ...runnerOptions(app.config, String(request.id), undefined, request.callerId), stopping: stopping.signal });
     return sendNdjson(reply.header('cache-control', 'no-store'), bytes(lines));
   });
 };

@@ -68,7 +68,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   const config = app.config;
   const queue: JobQueue = config.REDIS_URL
     ? new BullJobQueue(config.REDIS_URL, { prefix: config.JOB_KEY_PREFIX, ttlS: config.JOB_RESULT_TTL_S, attempts: config.JOB_ATTEMPTS, backoffMs: config.JOB_BACKOFF_MS })
-    : new MemoryJobQueue(appRunner(app), { maxKept: config.JOBS_MAX_KEPT, ttlS: config.JOB_RESULT_TTL_S });
+    : new MemoryJobQueue(appRunner(app), { maxKept: config.JOBS_MAX_KEPT, maxBytes: config.JOBS_MAX_BYTES, ttlS: config.JOB_RESULT_TTL_S });
   app.jobMetrics.counts(() => queue.counts());
   const callbacks = app.jobCallbacks;
   // In-process jobs finish here; queue workers send the callbacks of the jobs they run (src/queue-worker.ts).

@@ -88,4 +88,63 @@ describe('shutdown', () => {
     expect(code).not.toBeNull();
     expect(out).toMatch(/closing/);
   }, 90_000);
+
+  it('SIGTERM with a /v1/batch in flight: the items in hand finish, the rest are 503 shutting-down lines, the stream ends whole, and the process exits', async () => {
+    const env: NodeJS.ProcessEnv = { ...process.env, PORT: '0', LOG_LEVEL: 'info', SHUTDOWN_DEADLINE_S: '30', BATCH_CONCURRENCY: '1', WORKER_THREADS: '1', RATE_LIMIT_PER_MIN: '0', RATE_LIMIT_HEAVY_PER_MIN: '0' };
+    delete env.REDIS_URL;
+    const child = spawn(process.execPath, ['--import', 'tsx', 'src/server.ts'], { env, stdio: ['ignore', 'pipe', 'pipe'] });
+    let out = '';
+    child.stdout.on('data', (d) => { out += d.toString(); });
+    child.stderr.on('data', (d) => { out += d.toString(); });
+    const exited = once(child, 'exit') as Promise<[number | null]>;
+    const port = await new Promise<number>((resolve, reject) => {
+      const timer = setTimeout(() => reject(new Error(`no listen line: ${out}`)), 60_000);
+      child.stdout.on('data', () => {
+        const m = /listening at http:\/\/127\.0\.0\.1:(\d+)/.exec(out);
+        if (m) { clearTimeout(timer); resolve(Number(m[1])); }
+      });
+    });
+    // 30 distinct pass searches of 3 days over 3 stations (invented sites), one at a time: seconds of work.
+    const stations = [
+      { id: 'korrin-hill', latitude: 61.2, longitude: 24.9, altitude: 0.21 },
+      { id: 'vell-mesa', latitude: -23.4, longitude: 133.8, altitude: 0.6 },
+      { id: 'tarn-ridge', latitude: 45.1, longitude: -110.2, altitude: 1.2 },
+    ];
+    const items = Array.from({ length: 30 }, (_, i) => ({
+      id: `p${i}`, kind: 'passes',
+      request: {
+        centralBody: 'earth',
+        elements: { semiMajorAxis: 6928.14 + i, eccentricity: 0.001, inclination: 97.6, raan: 10 + i, argPeriapsis: 0, trueAnomaly: 0, epoch: '2026-12-01T00:00:00Z' },
+        window: { start: '2026-12-01T00:00:00Z', stop: '2026-12-04T00:00:00Z' },
+        stations,
+      },
+    }));
+    const res = await fetch(`http://127.0.0.1:${port}/v1/batch`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ items }) });
+    expect(res.status).toBe(200);
+    const reader = res.body!.getReader();
+    let text = '';
+    let signalled = false;
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      text += Buffer.from(value).toString();
+      if (!signalled && text.includes('\n')) {
+        signalled = true;
+        child.kill('SIGTERM');
+      }
+    }
+    const [code] = await exited;
+    expect(text.endsWith('\n')).toBe(true);
+    const lines = text.trim().split('\n').map((l) => JSON.parse(l) as { index: number; status: number; problem?: { type: string; detail: string } });
+    expect(lines.map((l) => l.index)).toEqual(items.map((_, i) => i));
+    const done = lines.filter((l) => l.status === 200).length;
+    const notRun = lines.filter((l) => l.status === 503);
+    expect(done).toBeGreaterThanOrEqual(1);
+    expect(notRun.length).toBeGreaterThan(0);
+    expect(done + notRun.length).toBe(items.length);
+    // The answered lines come first, then only shutting-down lines naming the range not run.
+    expect(lines.slice(done).every((l) => l.status === 503 && l.problem?.type === '/problems/shutting-down')).toBe(true);
+    expect(notRun[0]!.problem!.detail).toContain(`items ${done} to ${items.length - 1}`);
+    expect(code).toBe(0);
+  }, 120_000);
 });

@@ -110,3 +110,55 @@ describe('MemoryJobQueue', () => {
     await expect(queue.ping()).rejects.toBeInstanceOf(QueueUnavailableError);
   });
 });
+
+describe('MemoryJobQueue bounded in bytes (JOBS_MAX_BYTES)', () => {
+  const LINE = 1000;
+  /** Every line is LINE bytes (a newline-terminated JSON string). */
+  const fixedRunner: RunLines = async function* (job, from): AsyncGenerator<LineOut> {
+    for (let i = from; i < job.items.length; i++) {
+      await nextTurn();
+      yield { line: Buffer.from(`"${'x'.repeat(LINE - 3)}"\n`), failed: false };
+    }
+  };
+  const settle = async (queue: MemoryJobQueue, id: string) => {
+    for (let i = 0; i < 1000 && !['done', 'failed', 'cancelled'].includes((await queue.get(id))!.status); i++) await nextTurn();
+    return (await queue.get(id))!;
+  };
+
+  it('drops the oldest finished jobs to make room, and counts their bytes back', async () => {
+    const queue = new MemoryJobQueue(fixedRunner, { maxKept: 100, ttlS: 60, maxBytes: 12_000 });
+    const a = await queue.enqueue({ items: items(5) });
+    expect((await settle(queue, a.id)).status).toBe('done');
+    const b = await queue.enqueue({ items: items(5) });
+    expect((await settle(queue, b.id)).status).toBe('done');
+    expect(queue.bytes).toBe(10 * LINE); // items are let go once run; the lines stay
+    const c = await queue.enqueue({ items: items(5) });
+    expect((await settle(queue, c.id)).status).toBe('done');
+    expect(await queue.get(a.id)).toBeUndefined();
+    expect(await queue.get(b.id)).toBeDefined();
+    expect(queue.bytes).toBe(10 * LINE);
+  });
+
+  it('refuses a new job when only unfinished jobs hold the bytes', async () => {
+    const gate = gatedRunner();
+    const big = Array.from({ length: 4 }, (_, i) => ({ id: `i${i}`, kind: 'orbit' as const, request: { note: 'y'.repeat(600) } }));
+    const queue = new MemoryJobQueue(gate.run, { maxKept: 100, ttlS: 60, maxBytes: 3000 });
+    await queue.enqueue({ items: big });
+    const refused = queue.enqueue({ items: big });
+    await expect(refused).rejects.toBeInstanceOf(QueueUnavailableError);
+    await expect(refused).rejects.toThrow(/JOBS_MAX_BYTES/);
+    await expect(refused).rejects.toMatchObject({ retryAfterS: 30 });
+    await queue.stop();
+  });
+
+  it('a running job whose lines would pass the bound fails, with the lines written kept within it', async () => {
+    const queue = new MemoryJobQueue(fixedRunner, { maxKept: 100, ttlS: 60, maxBytes: 3500 });
+    const job = await queue.enqueue({ items: items(10) });
+    const end = await settle(queue, job.id);
+    expect(end.status).toBe('failed');
+    expect(end.error).toMatch(/JOBS_MAX_BYTES/);
+    expect(end.done).toBe(3);
+    expect(queue.bytes).toBe(3 * LINE);
+    expect((await queue.line(job.id, 2))?.length).toBe(LINE);
+  });
+});
