@@ -9,6 +9,7 @@ import { formatUtcIso } from '../solver/time/time.js';
 import { SVG_POINTING_BUDGET_S, SVG_POINTING_STEP_S, type GroundStation, type PassesAnswer, type PassesRequest } from '../schemas/passes.js';
 import type { PassesJob, PassesJobResult } from '../workers/jobs.js';
 import type { LightAt, PassLight } from '../solver/light/pass-light.js';
+import type { SunAvoidance } from '../solver/light/sun-avoidance.js';
 import { BENNETT_PRESSURE_HPA, BENNETT_TEMPERATURE_C, type RefractionSpec } from '../solver/stations/refraction.js';
 import { epochTT } from './epoch.js';
 import { searchWindow } from './search-window.js';
@@ -27,7 +28,7 @@ export const stationForSearch = (s: GroundStation): PassStation => ({
 const lightAnswer = (l: LightAt) => ({ sunlit: l.sunlit, sunElevation: l.sunElevation * RAD, visible: l.visible });
 
 /** Solver pass and its light (TT seconds, radians) -> API pass (ISO epochs, degrees). */
-export function toPassAnswer(p: Pass, light: PassLight, carrierFrequencyHz: number | undefined): PassesAnswer['passes'][number] {
+export function toPassAnswer(p: Pass, light: PassLight, carrierFrequencyHz: number | undefined, avoid?: { readonly result: SunAvoidance; readonly limit: number }): PassesAnswer['passes'][number] {
   const deg = (rad: number) => rad * RAD;
   return {
     station: p.station,
@@ -43,6 +44,16 @@ export function toPassAnswer(p: Pass, light: PassLight, carrierFrequencyHz: numb
     startsBeforeWindow: p.startsBeforeWindow,
     endsAfterWindow: p.endsAfterWindow,
     light: { aos: lightAnswer(light.aos), tca: lightAnswer(light.tca), los: lightAnswer(light.los) },
+    ...(avoid
+      ? {
+        sunAvoidance: {
+          sunInBeam: avoid.result.intervals.length > 0,
+          minAngle: deg(avoid.result.minAngle),
+          minAngleAt: formatUtcIso(avoid.result.minAt),
+          intervals: avoid.result.intervals.map((i) => ({ start: formatUtcIso(i.start), stop: formatUtcIso(i.stop), duration: i.stop - i.start })),
+        },
+      }
+      : {}),
     ...(p.pointing
       ? {
         pointing: p.pointing.map((s, i) => ({
@@ -54,6 +65,9 @@ export function toPassAnswer(p: Pass, light: PassLight, carrierFrequencyHz: numb
           dopplerFactor: s.dopplerFactor,
           dopplerShift: carrierFrequencyHz === undefined ? null : dopplerShift(carrierFrequencyHz, s.rangeRate),
           ...lightAnswer(light.pointing![i]!),
+          ...(avoid?.result.pointingAngles
+            ? { sunAngle: deg(avoid.result.pointingAngles[i]!), sunInBeam: avoid.result.pointingAngles[i]! < avoid.limit }
+            : {}),
         })),
       }
       : {}),
@@ -73,6 +87,7 @@ export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralB
     stopTT,
     stations: req.stations.map(stationForSearch),
     lighting: { twilightLimit: req.twilightLimit * DEG },
+    ...(req.sunAvoidance ? { sunAvoidance: { angle: req.sunAvoidance.angle * DEG } } : {}),
     options: { dut1: req.ut1MinusUtc, gm: body.gm, ...refractionOption(req), ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
   };
 }
@@ -96,6 +111,7 @@ export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string,
     ...(req.refraction === 'optical'
       ? { refraction: { model: 'optical' as const, pressure: req.atmosphere?.pressure ?? BENNETT_PRESSURE_HPA, temperature: req.atmosphere?.temperature ?? BENNETT_TEMPERATURE_C } }
       : {}),
-    passes: found.passes.map((p, i) => toPassAnswer(p, found.light[i]!, req.pointing?.carrierFrequency)),
+    passes: found.passes.map((p, i) => toPassAnswer(p, found.light[i]!, req.pointing?.carrierFrequency,
+      found.sunAvoidance && req.sunAvoidance ? { result: found.sunAvoidance[i]!, limit: req.sunAvoidance.angle * DEG } : undefined)),
   };
 }

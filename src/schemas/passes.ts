@@ -54,6 +54,9 @@ export const PassesRequest = z
       pressure: z.number().min(0).max(1200).default(BENNETT_PRESSURE_HPA).describe(`Air pressure at the station, hPa (default ${BENNETT_PRESSURE_HPA})`),
       temperature: z.number().min(-90).max(60).default(BENNETT_TEMPERATURE_C).describe(`Air temperature at the station, deg C (default ${BENNETT_TEMPERATURE_C})`),
     }).strict().optional().describe('With refraction optical only: the conditions Bennett\'s refraction is scaled to'),
+    sunAvoidance: z.object({
+      angle: z.number().gt(0).max(90).describe('deg: the least allowed angle between the antenna boresight and the Sun'),
+    }).strict().optional().describe('Flag each pass (and pointing sample) where the angle between the boresight (toward the spacecraft) and the Sun falls below angle, with the intervals'),
     twilightLimit: z.number().min(-90).max(90).default(-6)
       .describe('deg (default -6, civil twilight): a pass point is visible (optically) when the spacecraft is sunlit and the Sun\'s elevation at the station is below this'),
     format: plotFormatField(`a timeline of the passes by station, and a sky plot per station with the horizon mask and AOS/TCA/LOS; without pointing the plot uses a pointing step of ${SVG_POINTING_STEP_S} s, longer when the window times the stations exceeds ${SVG_POINTING_BUDGET_S} s`),
@@ -94,6 +97,8 @@ const PointingSample = z.object({
   dopplerFactor: z.number().describe('received / transmitted frequency, 1 - rangeRate / c (first order)'),
   dopplerShift: z.number().nullable().describe('Hz at the carrier frequency (null without one)'),
   ...LIGHT_FIELDS,
+  sunAngle: z.number().optional().describe('deg, with sunAvoidance: the angle between the boresight and the Sun'),
+  sunInBeam: z.boolean().optional().describe('With sunAvoidance: sunAngle below the limit'),
 });
 
 export const Pass = z.object({
@@ -110,6 +115,12 @@ export const Pass = z.object({
   startsBeforeWindow: z.boolean().describe('Already up at the window start: aos is the window start'),
   endsAfterWindow: z.boolean().describe('Still up at the window stop: los is the window stop'),
   light: z.object({ aos: Light, tca: Light, los: Light }).describe('Sunlight on the spacecraft and the Sun\'s elevation at the station at AOS, TCA and LOS'),
+  sunAvoidance: z.object({
+    sunInBeam: z.boolean().describe('The angle falls below the limit somewhere in the pass'),
+    minAngle: z.number().describe('deg: the least boresight-Sun angle over the pass'),
+    minAngleAt: EpochOut.describe('When it is least'),
+    intervals: z.array(z.object({ start: EpochOut, stop: EpochOut, duration: z.number().describe('s') })).describe('Where the angle is below the limit, in time order'),
+  }).optional().describe('With sunAvoidance in the request'),
   pointing: z.array(PointingSample).optional(),
 });
 

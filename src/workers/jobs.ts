@@ -9,6 +9,7 @@
 import { gcrfToItrfBatch } from '../solver/earth/frames.js';
 import { geodeticBatch } from '../solver/earth/geodetic.js';
 import { eclipseCoarseStep, findEclipses, type EclipseSearchOptions, type EclipseSearchResult } from '../solver/light/eclipses.js';
+import { sunAvoidance, type SunAvoidance } from '../solver/light/sun-avoidance.js';
 import { lightPasses, type LightAt, type LightingOptions, type PassLight } from '../solver/light/pass-light.js';
 import { findPasses, type Pass, type PassSearchOptions, type PassSearchResult, type PassStation, type PointingSample } from '../solver/stations/passes.js';
 import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest } from '../solver/central/radial-track.js';
@@ -80,6 +81,8 @@ export function workEstimate(job: Job): number {
       if (job.spec.model === 'numerical') units += orbitsCovered(job.spec, [job.startTT, job.stopTT]) * STEPS_PER_ORBIT * UNITS_PER_INTEGRATOR_STEP;
       // A pointing track's cost follows the pass time, known only after the search: never inline.
       if (job.options.pointingStepS !== undefined) units += INLINE_WORK_UNITS;
+      // Likewise the Sun-avoidance scan (a sample every few seconds of pass time).
+      if (job.sunAvoidance) units += INLINE_WORK_UNITS;
       return units;
     }
     case 'eclipses': {
@@ -145,11 +148,15 @@ export interface PassesJob {
   readonly options: PassSearchOptions;
   /** The twilight limit of `visible` (rad; default -6 deg); the frame options come from `options`. */
   readonly lighting?: Pick<LightingOptions, 'twilightLimit'>;
+  /** Flag where the boresight-Sun angle falls below this limit (rad); none when absent. */
+  readonly sunAvoidance?: { readonly angle: number };
 }
 
 /** A pass search and the light on each pass (same order). */
 export interface PassesJobResult extends PassSearchResult {
   readonly light: readonly PassLight[];
+  /** With job.sunAvoidance: per pass (same order). */
+  readonly sunAvoidance?: readonly SunAvoidance[];
 }
 
 /** A whole eclipse search; the propagator is rebuilt in the worker from the propagation spec (plain data). */
@@ -225,7 +232,10 @@ function runPasses(job: PassesJob): Outcome<PassesJobResult> {
   if (!found.ok) return found;
   // The pass search's frame options (UT1 - UTC, EOP) serve the Sun's elevation too.
   const light = lightPasses(found.value.passes, job.stations, stateAt.value, job.startTT, job.stopTT, { ...job.options, ...job.lighting });
-  return light.ok ? success({ ...found.value, light: light.value }) : light;
+  if (!light.ok) return light;
+  if (!job.sunAvoidance) return success({ ...found.value, light: light.value });
+  const avoid = sunAvoidance(found.value.passes, job.stations, stateAt.value, job.startTT, job.stopTT, job.sunAvoidance.angle, job.options);
+  return avoid.ok ? success({ ...found.value, light: light.value, sunAvoidance: avoid.value }) : avoid;
 }
 
 function runEclipses(job: EclipsesJob): Outcome<EclipseSearchResult> {
@@ -286,6 +296,7 @@ export function toWire(kind: JobKind, result: JobResult<Job>): Wire {
     }
     case 'passes': {
       const r = result as Outcome<PassesJobResult>;
+      if (r.ok) for (const a of r.value.sunAvoidance ?? []) if (a.pointingAngles) keep(a.pointingAngles);
       value = r.ok ? success({ ...r.value, passes: r.value.passes.map((p) => packPass(p, keep)), light: r.value.light.map((l) => packLight(l, keep)) }) : r;
       break;
     }

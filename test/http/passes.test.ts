@@ -1,4 +1,4 @@
-import { Body, DeltaT_EspenakMeeus, Equator, Horizon, MakeTime, Observer, SetDeltaTFunction } from 'astronomy-engine';
+import { Body, DeltaT_EspenakMeeus, Equator, GeoVector, Horizon, MakeTime, Observer, ObserverVector, SetDeltaTFunction } from 'astronomy-engine';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { PassesAnswer } from '../../src/schemas/passes.js';
@@ -177,6 +177,83 @@ describe('POST /v1/passes', () => {
       const bad = await postJson(app, '/v1/passes', { ...equatorial, refraction: 'radio', atmosphere: { pressure: 1000 } });
       expect(bad.statusCode).toBe(400);
     });
+  });
+
+  it('sunAvoidance: a geostationary spacecraft seen from a station below it at the March equinox, when the Sun passes behind it; intervals within 1 s of an independent computation', async () => {
+    // Independent: astronomy-engine's station position (ObserverVector, J2000 equator), its apparent Sun, and the
+    // spacecraft on its closed-form circular orbit; UT1 = UTC (TT - UT1 = 69.184 s in 2026, from memory).
+    SetDeltaTFunction(() => 69.184);
+    try {
+      const AU = 149_597_870.7; // km, IAU 2012 Resolution B2
+      const a = 42_164.17; // geostationary radius, km (common practice, no source)
+      const n = Math.sqrt(398_600.4418 / a ** 3); // GM: NIMA TR8350.2, from memory
+      const noon = '2026-03-20T14:46:00Z'; // the equinox, 2026-03-20 ~14:46 UTC (from memory); the station's local noon
+      const time0 = MakeTime(new Date(noon));
+      const lon = -(14 + 46 / 60 - 12) * 15; // the Sun on the station's meridian at that time (within the equation of time)
+      const observer = new Observer(0, lon, 0);
+      const station0 = ObserverVector(time0, observer, false);
+      const ra0 = Math.atan2(station0.y, station0.x); // the spacecraft straight above at `noon`
+      const t0 = Date.parse(noon) / 1000;
+      const scAt = (unix: number): [number, number, number] => {
+        const u = ra0 + n * (unix - t0);
+        return [a * Math.cos(u), a * Math.sin(u), 0];
+      };
+      const angleAt = (unix: number): number => {
+        const time = MakeTime(new Date(unix * 1000));
+        const o = ObserverVector(time, observer, false);
+        const s = GeoVector(Body.Sun, time, true);
+        const st: [number, number, number] = [o.x * AU, o.y * AU, o.z * AU];
+        const toSc = scAt(unix).map((x, i) => x - st[i]!);
+        const toSun = [s.x * AU - st[0], s.y * AU - st[1], s.z * AU - st[2]];
+        const d = toSc[0]! * toSun[0]! + toSc[1]! * toSun[1]! + toSc[2]! * toSun[2]!;
+        return (Math.acos(Math.min(1, d / (Math.hypot(...toSc) * Math.hypot(...toSun)))) * 180) / Math.PI;
+      };
+      const [r0, v0] = [scAt(t0), [-a * n * Math.sin(ra0), a * n * Math.cos(ra0), 0]];
+      const body = {
+        centralBody: 'earth',
+        state: { epoch: noon, position: r0, velocity: v0 },
+        window: { start: '2026-03-20T12:00:00Z', stop: '2026-03-20T17:30:00Z' },
+        stations: [{ id: 'tellin-atoll', latitude: 0, longitude: lon, altitude: 0, minElevation: 5 }],
+        sunAvoidance: { angle: 3 },
+        pointing: { step: 60 },
+      };
+      const answer = PassesAnswer.parse((await postJson(app, '/v1/passes', body)).json());
+      expect(answer.passes).toHaveLength(1);
+      const p = answer.passes[0]!;
+      const avoid = p.sunAvoidance!;
+      expect(avoid.sunInBeam).toBe(true);
+      expect(avoid.intervals).toHaveLength(1);
+      // Crossings of the 3 deg circle by bisection of the independent angle to 1 ms.
+      const crossing = (lo: number, hi: number): number => {
+        const inside = angleAt(lo) < 3;
+        while (hi - lo > 1e-3) {
+          const mid = (lo + hi) / 2;
+          if ((angleAt(mid) < 3) === inside) lo = mid;
+          else hi = mid;
+        }
+        return (lo + hi) / 2;
+      };
+      let tMin = t0;
+      for (let t = t0 - 3600; t <= t0 + 3600; t += 10) if (angleAt(t) < angleAt(tMin)) tMin = t;
+      const start = crossing(tMin - 3 * 3600 + 3600, tMin);
+      const stop = crossing(tMin, tMin + 2 * 3600);
+      expectClose(ms(avoid.intervals[0]!.start) / 1000, start, 1, 'entry into the 3 deg circle, s');
+      expectClose(ms(avoid.intervals[0]!.stop) / 1000, stop, 1, 'exit, s');
+      expect((stop - start) / 60).toBeGreaterThan(20); // the Sun moves 0.25 deg/min: about 24 min across 6 deg
+      expectClose(avoid.minAngle, angleAt(ms(avoid.minAngleAt) / 1000), 0.01, 'least angle, deg');
+      expect(avoid.minAngle).toBeLessThan(1);
+      for (const s of p.pointing!) {
+        expectClose(s.sunAngle!, angleAt(ms(s.epoch) / 1000), 0.01, `sun angle at ${s.epoch}`);
+        expect(s.sunInBeam).toBe(s.sunAngle! < 3);
+      }
+      expect(p.pointing!.some((s) => s.sunInBeam)).toBe(true);
+      // Without sunAvoidance the answer carries none of it.
+      const plain = PassesAnswer.parse((await postJson(app, '/v1/passes', { ...body, sunAvoidance: undefined })).json());
+      expect(plain.passes[0]!.sunAvoidance).toBeUndefined();
+      expect(plain.passes[0]!.pointing![0]!.sunAngle).toBeUndefined();
+    } finally {
+      SetDeltaTFunction(DeltaT_EspenakMeeus);
+    }
   });
 
   it('refuses bad requests with problems naming the reason', async () => {
