@@ -3,7 +3,7 @@ import tseslint from 'typescript-eslint';
 import globals from 'globals';
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', 'openapi/**', 'coverage/**', 'scratch/**'] },
+  { ignores: ['dist/**', '.build-test/**', 'node_modules/**', 'openapi/**', 'coverage/**', 'scratch/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
