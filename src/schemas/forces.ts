@@ -20,7 +20,7 @@ export const Force = z
 export const modelFields = {
   model: z.enum(STATE_MODELS).default('two-body').describe(
     'two-body: exact Keplerian motion (universal variables), no perturbations. ' +
-    'j2-secular: Keplerian motion in mean elements (averaged over one revolution) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates; bound orbits about a body with J2; short-period J2 terms left out (bounded error up to ~10 km in LEO, including at the first sample). ' +
+    'j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). ' +
     'numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)'),
   forces: z.array(Force).max(5).default([]).describe('Forces of the numerical model, each kind at most once (ignored by the analytic models)'),
 };
