@@ -1,10 +1,11 @@
-// Generates the OpenAPI document from the route schemas.
-//   --write  writes openapi/openapi.json
-//   --check  exits 1 when the committed file differs from the generated one
+// Generates the OpenAPI document from the route schemas, and the typed client's types from it.
+//   --check  exits 1 when either committed file differs from the generated one
 import { readFileSync, writeFileSync, mkdirSync } from 'node:fs';
+import openapiTS, { astToString } from 'openapi-typescript';
 import { buildApp } from '../src/app.js';
 
 export const OPENAPI_PATH = 'openapi/openapi.json';
+export const CLIENT_TYPES_PATH = 'src/client/schema.ts';
 
 export async function generateOpenApi(): Promise<string> {
   const app = await buildApp({ logger: false });
@@ -14,20 +15,31 @@ export async function generateOpenApi(): Promise<string> {
   return text;
 }
 
+/** TypeScript types of every path, operation and component of the document (openapi-typescript). */
+export async function generateClientTypes(document: string): Promise<string> {
+  const ast = await openapiTS(JSON.parse(document), { alphabetize: true, defaultNonNullable: false });
+  return '// Generated from openapi/openapi.json by `npm run openapi` (openapi-typescript). Do not edit.\n' +
+    astToString(ast);
+}
+
 const mode = process.argv[2];
 if (mode === '--write' || mode === '--check') {
-  const generated = await generateOpenApi();
-  if (mode === '--write') {
-    mkdirSync('openapi', { recursive: true });
-    writeFileSync(OPENAPI_PATH, generated);
-    console.log(`wrote ${OPENAPI_PATH} (${generated.length} bytes)`);
-  } else {
-    let committed = '';
-    try { committed = readFileSync(OPENAPI_PATH, 'utf8'); } catch { /* missing counts as stale */ }
-    if (committed !== generated) {
-      console.error(`${OPENAPI_PATH} is stale: run \`npm run openapi\` and commit the result`);
-      process.exit(1);
+  const document = await generateOpenApi();
+  const files: [string, string][] = [[OPENAPI_PATH, document], [CLIENT_TYPES_PATH, await generateClientTypes(document)]];
+  let stale = false;
+  for (const [path, generated] of files) {
+    if (mode === '--write') {
+      mkdirSync(path.slice(0, path.lastIndexOf('/')), { recursive: true });
+      writeFileSync(path, generated);
+      console.log(`wrote ${path} (${generated.length} bytes)`);
+      continue;
     }
-    console.log(`${OPENAPI_PATH} is up to date`);
+    let committed = '';
+    try { committed = readFileSync(path, 'utf8'); } catch { /* missing counts as stale */ }
+    if (committed !== generated) {
+      console.error(`${path} is stale: run \`npm run openapi\` and commit the result`);
+      stale = true;
+    } else console.log(`${path} is up to date`);
   }
+  if (stale) process.exit(1);
 }

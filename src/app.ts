@@ -5,7 +5,7 @@ import { defaultConfig, type Config } from './config.js';
 import { MemoryCache } from './cache/memory.js';
 import type { AnswerCache } from './cache/types.js';
 import { RedisCache, TieredCache } from './cache/redis.js';
-import problems, { clientErrorHandler, clip, frameworkErrors, MAX_PATH_SEGMENT_CHARS } from './plugins/problems.js';
+import problems, { clientErrorHandler, clip, frameworkErrors, MAX_PATH_SEGMENT_CHARS, problemTypes } from './plugins/problems.js';
 import body, { requestIds } from './plugins/body.js';
 import edge from './plugins/edge.js';
 import pressure from './plugins/pressure.js';
@@ -92,6 +92,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
   await app.register(body);
   await app.register(auth);
   await app.register(openapi);
+  await app.register(problemTypes);
   await app.register(answers, {
     cache: options.cache ?? answerCache(config),
     maxStoredBytes: Math.floor(config.CACHE_MAX_BYTES / 4),

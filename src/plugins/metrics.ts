@@ -1,6 +1,7 @@
 // GET /metrics: Prometheus text exposition (prom-client), one registry per app instance.
 import { randomUUID } from 'node:crypto';
 import fp from 'fastify-plugin';
+import { z } from 'zod';
 import type { FastifyInstance } from 'fastify';
 import { Counter, Gauge, Histogram, Registry, collectDefaultMetrics } from 'prom-client';
 
@@ -69,7 +70,14 @@ export default fp(async function metrics(app: FastifyInstance) {
     duration.observe({ method: request.method, route }, reply.elapsedTime / 1000);
   });
 
-  app.get('/metrics', { schema: { hide: true } }, async (_request, reply) =>
+  app.get('/metrics', {
+    schema: {
+      tags: ['service'],
+      operationId: 'getMetrics',
+      summary: 'Prometheus text exposition: requests, durations, cache, worker pool and job counters (needs an API key or METRICS_TOKEN when keys are configured)',
+      response: { 200: { description: 'Prometheus text format 0.0.4', content: { 'text/plain': { schema: z.string() } } } },
+    },
+  }, async (_request, reply) =>
     reply.type(registry.contentType).send(await registry.metrics()));
 }, { name: 'metrics', dependencies: ['answers', 'pool'] });
 

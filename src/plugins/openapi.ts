@@ -6,6 +6,7 @@ import swaggerUi from '@fastify/swagger-ui';
 import type { FastifyInstance } from 'fastify';
 import { jsonSchemaTransform, jsonSchemaTransformObject } from 'fastify-type-provider-zod';
 import { SOLVER_VERSION } from '../solver/core/version.js';
+import { tidyComponents, withSharedResponses } from './openapi-document.js';
 
 export const API_DESCRIPTION = `Orbit solutions over HTTP: two-body reduction, orbital elements, apsides and period, general
 central-force motion through the effective potential, propagated tracks and ground-station passes.
@@ -32,8 +33,8 @@ export default fp(async function openapi(app: FastifyInstance) {
         { name: 'service', description: 'Health and reference data' },
       ],
     },
-    transform: jsonSchemaTransform,
-    transformObject: jsonSchemaTransformObject,
+    transform: withSharedResponses(jsonSchemaTransform),
+    transformObject: (doc) => tidyComponents(jsonSchemaTransformObject(doc) as Record<string, unknown>) as ReturnType<typeof jsonSchemaTransformObject>,
   });
   await app.register(swaggerUi, {
     routePrefix: '/docs',

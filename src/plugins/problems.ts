@@ -5,7 +5,9 @@ import fp from 'fastify-plugin';
 import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import { hasZodFastifySchemaValidationErrors } from 'fastify-type-provider-zod';
 import { ERRORS, ProblemError, isErrorCode, problemType, type ErrorCode, type FieldIssue } from '../errors.js';
+import { z } from 'zod';
 import { MAX_LISTED_ISSUES } from '../schemas/list.js';
+import { PROBLEM_MEDIA_TYPE, problemAnswer } from '../schemas/common.js';
 
 /** Longest piece of client text (a path, a message quoting input) a problem or a log line repeats. */
 export const MAX_ECHO_CHARS = 200;
@@ -21,7 +23,16 @@ export function clip(text: string, max = MAX_ECHO_CHARS): string {
   return `${text.slice(0, end)}…`;
 }
 
-export const PROBLEM_CONTENT_TYPE = 'application/problem+json';
+export const PROBLEM_CONTENT_TYPE = PROBLEM_MEDIA_TYPE;
+
+/** GET /problems/{code}: one row of the error table. */
+const ProblemType = z.object({
+  type: z.string().describe('/problems/{code}, as problem documents give it'),
+  code: z.string().describe('The error code'),
+  status: z.number().int().min(100).max(599).describe('HTTP status answered with this code').meta({ example: 422 }),
+  title: z.string(),
+  meaning: z.string().describe('When the service answers this code, and what to do about it'),
+}).meta({ id: 'ProblemType' });
 
 export interface ProblemDocument {
   type: string;
@@ -135,10 +146,21 @@ export default fp(async function problems(app: FastifyInstance) {
   app.setNotFoundHandler((request, reply) =>
     sendProblem(request, reply, new ProblemError('not-found', `No route ${request.method} ${clip(request.url.split('?')[0] ?? '')}`)),
   );
+}, { name: 'problems' });
 
-  app.get('/problems/:code', { schema: { hide: true } }, async (request, reply) => {
+/** GET /problems/{code}: registered after the OpenAPI plugin, so the document lists it. */
+export const problemTypes = fp(async function problemTypes(app: FastifyInstance) {
+  app.get('/problems/:code', {
+    schema: {
+      tags: ['service'],
+      operationId: 'getProblemType',
+      summary: 'What an error code means: its HTTP status, title and meaning (the `type` of every problem document points here)',
+      params: z.object({ code: z.string().describe('An error code, e.g. validation-failed') }),
+      response: { 200: ProblemType, 404: problemAnswer('problem-type-unknown: no such code') },
+    },
+  }, async (request, reply) => {
     const { code } = request.params as { code: string };
     if (!isErrorCode(code)) throw new ProblemError('problem-type-unknown', `No problem type "${code}"`);
     return reply.send({ type: problemType(code), code, ...ERRORS[code] });
   });
-}, { name: 'problems' });
+}, { name: 'problem-types', dependencies: ['problems'] });

@@ -7,7 +7,7 @@ import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { ProblemError } from '../errors.js';
 import { runItems, runnerOptions } from '../jobs/runner.js';
 import { BatchLine, BatchRequest, NDJSON_MEDIA_TYPE } from '../schemas/batch.js';
-import { Problem, problemResponses } from '../schemas/common.js';
+import { problemAnswer, problemResponses } from '../schemas/common.js';
 import type { LineOut } from '../jobs/queue.js';
 
 /** Stream NDJSON bytes (the 200 schema above documents the lines; streams are not serialised). */
@@ -26,7 +26,7 @@ const batch: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/batch', {
     schema: {
       tags: ['batch'],
-      summary: 'Many scenarios of any kind in one call, answered as NDJSON in input order',
+      operationId: 'runBatch', summary: 'Many scenarios of any kind in one call, answered as NDJSON in input order',
       description: 'Each item names an endpoint (kind) and carries the body that endpoint takes (request). The answer is application/x-ndjson, ' +
         'streamed while the items are solved (up to BATCH_CONCURRENCY at a time, default 4): one line per item, in input order, ' +
         '{"index","id","kind","status","scenarioHash","answer"} for an answer or {"index","id","kind","status","problem"} for a problem. ' +
@@ -42,7 +42,7 @@ const batch: FastifyPluginAsyncZod = async (app) => {
           content: { [NDJSON_MEDIA_TYPE]: { schema: BatchLine } },
         },
         ...problemResponses,
-        413: Problem.describe('The body exceeds BODY_LIMIT_BYTES'),
+        413: problemAnswer('The body exceeds BODY_LIMIT_BYTES'),
       },
     },
   }, async (request, reply) => {

@@ -8,7 +8,7 @@ const bodies: FastifyPluginAsyncZod = async (app) => {
   const answer = bodiesAnswer();
   assertFinite(answer); // built once from the constants: a non-finite one would stop the start
   app.get('/v1/bodies', {
-    schema: { tags: ['service'], summary: 'Built-in central bodies', description: 'GM, radius, J2, rotation rate and flattening of each built-in body, each value with its published source.', response: { 200: BodiesAnswer } },
+    schema: { tags: ['service'], operationId: 'listBodies', summary: 'Built-in central bodies', description: 'GM, radius, J2, rotation rate and flattening of each built-in body, each value with its published source.', response: { 200: BodiesAnswer } },
   }, async () => answer);
 };
 export default bodies;

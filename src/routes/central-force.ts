@@ -17,7 +17,7 @@ const centralForce: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/central-force', {
     schema: {
       tags: ['orbits'],
-      summary: 'General central force: effective potential, turning points, circular orbits, radial period, apsidal angle, track',
+      operationId: 'solveCentralForce', summary: 'General central force: effective potential, turning points, circular orbits, radial period, apsidal angle, track (JSON, or SVG plots of U_eff and r(phi))',
       description: 'Analyses motion in U(r) = sum of terms through U_eff = U + l^2 / (2 m r^2). Works in any consistent unit system ' +
         '(numbers are used as given); angles in the answer (apsidalAngle, precessionPerOrbit, track phi) are degrees. ' +
         'An energy below every value of U_eff answers 422 energy-below-minimum; parameters outside their physical range that the ' +

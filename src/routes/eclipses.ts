@@ -17,7 +17,7 @@ const eclipses: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/eclipses', {
     schema: {
       tags: ['orbits'],
-      summary: 'Eclipses: penumbra and umbra entry and exit, depth, beta angle, node local time of sun-synchronous orbits (JSON, CSV or an SVG timeline)',
+      operationId: 'findEclipses', summary: 'Eclipses: penumbra and umbra entry and exit, depth, beta angle, node local time of sun-synchronous orbits (JSON, CSV or an SVG timeline)',
       description: 'Searches the window for every interval in which the spacecraft sees the solar disc partly or wholly hidden by the Earth ' +
         '(conical shadow, spherical Earth of the equatorial radius, spherical Sun; Montenbruck & Gill 2000 sec. 3.4.2), and by the Moon when asked. ' +
         'Entries and exits are refined to 0.01 s; an eclipse shorter than the scan step is not missed. No atmosphere: real sunlight fades over a few seconds around the computed entry.',

@@ -20,7 +20,7 @@ const health: FastifyPluginAsyncZod = async (app) => {
   let closing = false;
   app.addHook('preClose', async () => { closing = true; });
 
-  app.get('/healthz', { schema: { tags: ['service'], summary: 'Liveness', response: { 200: Health } } }, async () => ({
+  app.get('/healthz', { schema: { tags: ['service'], operationId: 'getHealth', summary: 'Liveness', response: { 200: Health } } }, async () => ({
     status: 'ok' as const,
     solverVersion: SOLVER_VERSION,
   }));
@@ -28,7 +28,7 @@ const health: FastifyPluginAsyncZod = async (app) => {
   app.get('/readyz', {
     schema: {
       tags: ['service'],
-      summary: 'Readiness: 200 when the service takes requests; 503 while closing, overloaded, or when a dependency (the job queue and its Redis) does not answer',
+      operationId: 'getReadiness', summary: 'Readiness: 200 when the service takes requests; 503 while closing, overloaded, or when a dependency (the job queue and its Redis) does not answer',
       response: { 200: Readiness, 503: Readiness },
     },
   }, async (_req, reply) => {

@@ -22,7 +22,7 @@ import { chooseFormat } from '../plugins/negotiate.js';
 import {
   BatchLine, IDEMPOTENCY_KEY_PATTERN, JobAccepted, JobAnswer, JobId, JobList, JobListQuery, JobRequest, NDJSON_MEDIA_TYPE,
 } from '../schemas/batch.js';
-import { Problem, problemResponses } from '../schemas/common.js';
+import { problemAnswer, problemResponses } from '../schemas/common.js';
 import { sendNdjson } from './batch.js';
 
 /** Seconds a client polling an unfinished job's results is asked to wait. */
@@ -61,8 +61,8 @@ function finishedOrThrow(job: JobRecord): void {
 const callerOf = (request: FastifyRequest): string | null => request.callerId;
 
 const Params = z.object({ id: JobId });
-const unavailable = Problem.describe('queue-unavailable: the queue\'s store does not answer, or the in-process queue is full; see Retry-After');
-const notFound = Problem.describe('job-not-found');
+const unavailable = problemAnswer('queue-unavailable: the queue\'s store does not answer, or the in-process queue is full; see Retry-After');
+const notFound = problemAnswer('job-not-found');
 
 const jobs: FastifyPluginAsyncZod = async (app) => {
   const config = app.config;
@@ -102,7 +102,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/jobs', {
     schema: {
       tags: ['batch'],
-      summary: 'Queue a batch to run later; poll its status, then read its NDJSON results',
+      operationId: 'submitJob', summary: 'Queue a batch to run later; poll its status, then read its NDJSON results',
       description: 'Takes the same items as POST /v1/batch (plus an optional label, deadline and compareTo) and answers 202 at once with the job id and a Location header. ' +
         'The job runs the items exactly as POST /v1/batch does and keeps the lines for GET /v1/jobs/{id}/results for JOB_RESULT_TTL_S (default 7 days). ' +
         'Without REDIS_URL jobs run in the service process one at a time and live in memory (at most JOBS_MAX_KEPT, default 100; lost on restart); ' +
@@ -111,7 +111,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
         'When the queue cannot take the job the answer is 503 queue-unavailable with Retry-After.',
       headers: z.object({ 'idempotency-key': z.string().regex(IDEMPOTENCY_KEY_PATTERN).optional().describe('Your key for this submission: a repeat with the same body answers the same job') }),
       body: JobRequest,
-      response: { 202: JobAccepted.describe('Queued'), ...problemResponses, 409: Problem.describe('idempotency-conflict'), 422: Problem.describe('limit-exceeded, job-not-comparable, callback-not-allowed'), 503: unavailable },
+      response: { 202: JobAccepted.describe('Queued'), ...problemResponses, 409: problemAnswer('idempotency-conflict'), 422: problemAnswer('limit-exceeded, job-not-comparable, callback-not-allowed'), 503: unavailable },
     },
   }, async (request, reply) => {
     const { label, items, deadline, compareTo, thresholdSeconds, thresholdDegrees, callbackUrl } = request.body;
@@ -146,7 +146,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   app.get('/v1/jobs', {
     schema: {
       tags: ['batch'],
-      summary: 'Your jobs, newest first, a page at a time',
+      operationId: 'listJobs', summary: 'Your jobs, newest first, a page at a time',
       description: 'Every job you submitted that is still kept (JOB_RESULT_TTL_S), whatever its status: failed jobs stay here with their reason (the dead letters) until they expire. Pass `next` as `cursor` for the older page.',
       querystring: JobListQuery,
       response: { 200: JobList, 503: unavailable },
@@ -161,7 +161,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   app.get('/v1/jobs/:id', {
     schema: {
       tags: ['batch'],
-      summary: 'Status of a job: queued, running, done, failed or cancelled, with counts, progress and timestamps',
+      operationId: 'getJob', summary: 'Status of a job: queued, running, done, failed or cancelled, with counts, progress and timestamps',
       params: Params,
       response: { 200: JobAnswer, 404: notFound, 503: unavailable },
     },
@@ -170,10 +170,10 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   app.delete('/v1/jobs/:id', {
     schema: {
       tags: ['batch'],
-      summary: 'Cancel a queued or running job',
+      operationId: 'cancelJob', summary: 'Cancel a queued or running job',
       description: 'A queued job never starts; a running one stops after the items being solved. The lines written before stay readable (results, results/{index}). A job already done, failed or cancelled answers 409 job-finished.',
       params: Params,
-      response: { 200: JobAnswer, 404: notFound, 409: Problem.describe('job-finished'), 503: unavailable },
+      response: { 200: JobAnswer, 404: notFound, 409: problemAnswer('job-finished'), 503: unavailable },
     },
   }, async (request, reply) => {
     const job = await find(request, request.params.id);
@@ -188,14 +188,14 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   app.get('/v1/jobs/:id/results', {
     schema: {
       tags: ['batch'],
-      summary: 'The NDJSON lines of a done job, in input order (the same lines as POST /v1/batch)',
+      operationId: 'getJobResults', summary: 'The NDJSON lines of a done job, in input order (the same lines as POST /v1/batch)',
       description: 'A done job has all its lines; a cancelled one the lines written before it stopped. While it is queued or running the answer is 409 job-not-done with Retry-After ' +
         '(a partial file of a running job is never served); a failed job answers 409 with the reason (its lines written stay readable one by one, results/{index}).',
       params: Params,
       response: {
         200: { description: 'One JSON object per line, one line per item, in input order', content: { [NDJSON_MEDIA_TYPE]: { schema: BatchLine } } },
         404: notFound,
-        409: Problem.describe('job-not-done'),
+        409: problemAnswer('job-not-done'),
         503: unavailable,
       },
     },
@@ -208,7 +208,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   app.get('/v1/jobs/:id/results/:index', {
     schema: {
       tags: ['batch'],
-      summary: 'One item of a job, as soon as it is written: its product in its own media type (CSV, OEM, GeoJSON, SVG), or its line (JSON)',
+      operationId: 'getJobItem', summary: 'One item of a job, as soon as it is written: its product in its own media type (CSV, OEM, GeoJSON, SVG), or its line (JSON)',
       description: 'For an item that asked for a format other than JSON and was answered, the default answer (no Accept, or an Accept that prefers it) is the product itself, byte for byte what the endpoint answers alone, ' +
         'with the item\'s scenario hash as ETag; `Accept: application/json` answers the item\'s line instead. For a JSON item, and for an item that failed, the answer is its line (application/json), the same bytes as in the NDJSON results.',
       params: z.object({ id: JobId, index: z.coerce.number().int().min(0).max(1_000_000) }),
@@ -223,8 +223,8 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
             'image/svg+xml': { schema: z.string().describe('SVG product') },
           },
         },
-        404: Problem.describe('job-not-found, item-not-written'),
-        406: Problem.describe('not-acceptable: Accept admits neither the product\'s media type nor application/json'),
+        404: problemAnswer('job-not-found, item-not-written'),
+        406: problemAnswer('not-acceptable: Accept admits neither the product\'s media type nor application/json'),
         503: unavailable,
       },
     },
@@ -250,7 +250,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   app.get('/v1/jobs/:id/archive', {
     schema: {
       tags: ['batch'],
-      summary: 'Every item\'s product of a done (or cancelled) job as one .tar.gz, with a manifest',
+      operationId: 'getJobArchive', summary: 'Every item\'s product of a done (or cancelled) job as one .tar.gz, with a manifest',
       description: 'A gzip-compressed tar (POSIX ustar) holding job-<id>/manifest.json (the job; per item its index, id, kind, status, scenario hash, format, media type, file name and size) ' +
         'and one file per item in input order: <index>-<item id or kind>.<format> (json, csv, oem, geojson, svg) for an answered item, <index>-<item id or kind>.problem.json for a failed one ' +
         '(item ids are reduced to letters, digits, ".", "_", "-" and 60 characters). The products are the endpoints\' own bytes. ' +
@@ -260,8 +260,8 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
       response: {
         200: { description: 'The archive', content: { 'application/gzip': { schema: z.string().describe('tar.gz bytes') } } },
         404: notFound,
-        409: Problem.describe('job-not-done'),
-        422: Problem.describe('limit-exceeded'),
+        409: problemAnswer('job-not-done'),
+        422: problemAnswer('limit-exceeded'),
         503: unavailable,
       },
     },
@@ -282,7 +282,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
   app.get('/v1/jobs/:id/changes', {
     schema: {
       tags: ['batch'],
-      summary: 'What moved since the earlier job (compareTo), item by item, as NDJSON',
+      operationId: 'getJobChanges', summary: 'What moved since the earlier job (compareTo), item by item, as NDJSON',
       description: 'For a done job submitted with compareTo: one line per item, matched with the earlier job\'s item of the same id. ' +
         'change "passes": per station the passes that appeared, vanished, or moved by more than thresholdSeconds (AOS, TCA or LOS) or thresholdDegrees (maximum elevation); ' +
         'change "track": the largest position difference, km, over the sample epochs both tracks share; "unchanged", "status" (the item answered differently: a problem on one side), ' +
@@ -291,8 +291,8 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
       response: {
         200: { description: 'One JSON object per item, in input order', content: { [NDJSON_MEDIA_TYPE]: { schema: z.object({ index: z.number().int(), id: z.string().nullable(), kind: z.string(), change: z.string() }) } } },
         404: notFound,
-        409: Problem.describe('job-not-done'),
-        422: Problem.describe('job-not-comparable'),
+        409: problemAnswer('job-not-done'),
+        422: problemAnswer('job-not-comparable'),
         503: unavailable,
       },
     },

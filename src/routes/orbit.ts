@@ -16,7 +16,7 @@ const orbit: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/orbit', {
     schema: {
       tags: ['orbits'],
-      summary: 'Solve an orbit: elements, apsides, period, energy, angular momentum, J2 rates (JSON or SVG)',
+      operationId: 'solveOrbit', summary: 'Solve an orbit: elements, apsides, period, energy, angular momentum, J2 rates (JSON or SVG)',
       body: OrbitRequest,
       response: {
         200: {

@@ -17,7 +17,7 @@ const passes: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/passes', {
     schema: {
       tags: ['orbits'],
-      summary: 'Ground-station passes: AOS, TCA, LOS, maximum elevation, azimuths, optional pointing and Doppler (JSON or SVG)',
+      operationId: 'findPasses', summary: 'Ground-station passes: AOS, TCA, LOS, maximum elevation, azimuths, optional pointing and Doppler (JSON or SVG)',
       description: 'Searches the window for every interval in which the spacecraft is above each station\'s elevation limit and horizon mask. ' +
         'AOS/LOS are refined to better than 0.1 s and TCA by maximisation. Geometric elevations unless refraction (radio or optical) is asked. ' +
         'Pass predictions do not grant a licence to transmit: radio transmission needs licensing and frequency coordination.',

@@ -15,7 +15,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/track', {
     schema: {
       tags: ['orbits'],
-      summary: 'Propagate an orbit over a time grid (JSON, CSV, CCSDS OEM, GeoJSON ground track or SVG ground-track map)',
+      operationId: 'propagateTrack', summary: 'Propagate an orbit over a time grid (JSON, CSV, CCSDS OEM, GeoJSON ground track or SVG ground-track map)',
       description: 'Samples the orbit at each epoch of the grid with the chosen model and reports conservation diagnostics. ' +
         `Answers stream; at most MAX_TRACK_SAMPLES samples (default 100000), beyond that a 422 names the maximum. ` +
         'Accuracy degrades with the propagation span and the model chosen: two-body ignores every perturbation.',

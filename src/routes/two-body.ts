@@ -38,7 +38,7 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
   app.post('/v1/two-body', {
     schema: {
       tags: ['orbits'],
-      summary: 'Two-body reduction: barycentre, reduced mass, relative orbit, each body\'s orbit about the barycentre',
+      operationId: 'reduceTwoBody', summary: 'Two-body reduction: barycentre, reduced mass, relative orbit, each body\'s orbit about the barycentre',
       description: 'Masses in kg or as GM (km^3/s^2), converted with G (CODATA 2018); the relative orbit is answered as POST /v1/orbit answers it. ' +
         'With `track`, both bodies\' tracks about the barycentre are appended (at most MAX_TRACK_SAMPLES samples, default 100000; beyond that a 422 names the maximum). ' +
         'Point masses: the bodies have no radius and no collision is detected.',

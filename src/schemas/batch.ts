@@ -21,7 +21,8 @@ export const BatchItem = z
       'Tracks (track grid, two-body track grid, central-force track samples) hold at most BATCH_MAX_TRACK_SAMPLES samples (default 10000), else 422 too-many-samples'),
   })
   .strict()
-  .describe('One scenario of the batch');
+  .describe('One scenario of the batch')
+  .meta({ id: 'BatchItem' });
 export type BatchItem = z.output<typeof BatchItem>;
 
 const DEMO_ITEMS: BatchItem[] = [
@@ -42,7 +43,8 @@ const itemsField = boundedList(BatchItem, { min: 1, max: 100_000 }).describe('Th
 export const BatchRequest = z
   .object({ items: itemsField })
   .strict()
-  .meta({ description: 'Many scenarios of any kind in one call', examples: [{ items: DEMO_ITEMS }] });
+  .meta({ description: 'Many scenarios of any kind in one call', examples: [{ items: DEMO_ITEMS }] })
+  .meta({ id: 'BatchRequest' });
 export type BatchRequest = z.output<typeof BatchRequest>;
 
 /** One NDJSON line. `answer` is spliced in as the endpoint's bytes, so it is byte for byte what the endpoint answers alone. */
@@ -59,7 +61,8 @@ export const BatchLine = z
     product: z.string().optional().describe('With status 200 and a text product (CSV, CCSDS OEM, SVG): the endpoint\'s answer for this request alone as one JSON string (decoded, the same bytes); GET /v1/jobs/{id}/results/{index} serves it in its own media type'),
     problem: Problem.optional().describe('Otherwise: the RFC 9457 problem the endpoint answers for this request alone'),
   })
-  .describe(`One line of the ${NDJSON_MEDIA_TYPE} answer: one per item, in input order, each a JSON object ending with a newline`);
+  .describe(`One line of the ${NDJSON_MEDIA_TYPE} answer: one per item, in input order, each a JSON object ending with a newline`)
+  .meta({ id: 'BatchLine' });
 export type BatchLine = z.output<typeof BatchLine>;
 
 export const JobStatus = z.enum(['queued', 'running', 'done', 'failed', 'cancelled'])
@@ -85,7 +88,8 @@ export const JobRequest = z
       'JOB_CALLBACK_ATTEMPTS times in all with exponential backoff from JOB_CALLBACK_BACKOFF_MS. Only hosts in JOB_CALLBACK_HOSTS are allowed: any other answers 422 callback-not-allowed'),
   })
   .strict()
-  .meta({ description: 'A batch to run later: the same items as POST /v1/batch', examples: [{ label: 'nightly recalculation', items: DEMO_ITEMS }] });
+  .meta({ description: 'A batch to run later: the same items as POST /v1/batch', examples: [{ label: 'nightly recalculation', items: DEMO_ITEMS }] })
+  .meta({ id: 'JobRequest' });
 export type JobRequest = z.output<typeof JobRequest>;
 
 export const JobId = z.string().min(1).max(100).describe('The job id (a UUID)');
@@ -95,13 +99,15 @@ export const JobLinks = z.object({
   results: z.string().describe('GET: the NDJSON results once the job is done'),
   archive: z.string().describe('GET: every item\'s product as one .tar.gz with a manifest, once the job is done'),
   changes: z.string().describe('GET: with compareTo, what moved since the earlier job (NDJSON)'),
-});
+})
+  .meta({ id: 'JobLinks' });
 
 export const JobAccepted = z.object({
   id: JobId,
   status: JobStatus.describe('queued for a new job; with a repeated Idempotency-Key, the status of the job stored first'),
   links: JobLinks,
-});
+})
+  .meta({ id: 'JobAccepted' });
 
 export const JobAnswer = z.object({
   id: JobId,
@@ -125,13 +131,15 @@ export const JobAnswer = z.object({
   callbackUrl: z.string().nullable().describe('Where the status is POSTed once the job is done, failed or cancelled, or null'),
   error: z.string().nullable().describe('Why a failed or cancelled job stopped; null otherwise'),
   links: JobLinks,
-});
+})
+  .meta({ id: 'JobAnswer' });
 export type JobAnswer = z.output<typeof JobAnswer>;
 
 export const JobList = z.object({
   jobs: z.array(JobAnswer).describe('Your jobs, newest first'),
   next: z.string().nullable().describe('Cursor of the next (older) page: GET /v1/jobs?cursor=...; null on the last page'),
-});
+})
+  .meta({ id: 'JobList' });
 
 export const JobListQuery = z.object({
   limit: z.coerce.number().int().min(1).max(100).default(20).describe('Jobs per page (1 to 100, default 20)'),

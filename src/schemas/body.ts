@@ -14,12 +14,14 @@ export const CustomBody = z
     flattening: z.number().min(0).lt(1).optional().describe('Flattening f = (a - b)/a'),
   })
   .strict()
-  .describe('A central body given by its constants');
+  .describe('A central body given by its constants')
+  .meta({ id: 'CustomBody' });
 
 export const CentralBodyInput = z
   .union([BodyName, CustomBody])
   .default('earth')
-  .describe('The central body: a built-in name (default "earth") or an object with gm and optionally radius, j2, rotationRate, flattening');
+  .describe('The central body: a built-in name (default "earth") or an object with gm and optionally radius, j2, rotationRate, flattening')
+  .meta({ id: 'CentralBody' });
 export type CentralBodyInput = z.output<typeof CentralBodyInput>;
 
 export const BodySummary = z.object({
@@ -37,5 +39,6 @@ export const BodyDescription = BodySummary.extend({
 });
 export type BodySummary = z.infer<typeof BodySummary>;
 
-export const BodiesAnswer = z.object({ bodies: z.array(BodyDescription) });
+export const BodiesAnswer = z.object({ bodies: z.array(BodyDescription) })
+  .meta({ id: 'BodiesAnswer' });
 export type BodiesAnswer = z.infer<typeof BodiesAnswer>;

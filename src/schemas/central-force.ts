@@ -70,7 +70,8 @@ const LogarithmicTerm = z
 export const PotentialTermInput = z
   .discriminatedUnion('kind', [PowerTerm, YukawaTerm, GaussianTerm, ExponentialTerm, LogarithmicTerm])
   .meta({ discriminator: { propertyName: 'kind' } })
-  .describe('One term of the potential energy U(r), chosen by kind');
+  .describe('One term of the potential energy U(r), chosen by kind')
+  .meta({ id: 'PotentialTerm' });
 
 export const InitialRadialState = z
   .object({
@@ -148,7 +149,8 @@ export const CentralForceRequest = z
   .meta({
     description: `Motion of a mass in a central potential U(r) built from terms, analysed through the effective potential U_eff = U + l^2 / (2 m r^2). ${UNITS_NOTE} Angles in the answer are degrees.`,
     examples: [DEMO_REQUEST],
-  });
+  })
+  .meta({ id: 'CentralForceRequest' });
 export type CentralForceRequest = z.output<typeof CentralForceRequest>;
 
 const Motion = z.enum(['bound', 'unbound', 'captured', 'circular'])
@@ -217,5 +219,6 @@ export const CentralForceAnswer = z.object({
   apsidalAngle: z.number().nullable().describe('Angle swept from periapsis to apoapsis, degrees (180 for a Kepler ellipse, 90 for the isotropic oscillator; circular: the near-circular limit); null when radialPeriod is null or the motion is rectilinear'),
   precessionPerOrbit: z.number().nullable().describe('2 apsidalAngle - 360: advance of the periapsis per radial period, degrees (0 for a closed Kepler ellipse; negative: the periapsis regresses); null when apsidalAngle is null'),
   track: RadialTrackOut.nullable().describe('r(t), phi(t) when the request asked for a track, else null'),
-});
+})
+  .meta({ id: 'CentralForceAnswer' });
 export type CentralForceAnswer = z.infer<typeof CentralForceAnswer>;

@@ -43,16 +43,24 @@ export const Problem = z
   .object({
     type: z.string().describe('URI reference of the problem type: /problems/{code}'),
     title: z.string(),
-    status: z.number().int(),
+    status: z.number().int().min(100).max(599).describe('The HTTP status code of the answer').meta({ example: 422 }),
     detail: z.string().describe('What went wrong with this request, in words'),
     instance: z.string().describe('The request path'),
     requestId: z.string().describe('Identifies the request in the service logs'),
     errors: z.array(FieldIssue).optional().describe('For validation errors: the offending fields, at most 20 (paths and messages clipped to 200 characters)'),
-    errorCount: z.number().int().optional().describe('With errors: how many issues there were in all'),
+    errorCount: z.number().int().nonnegative().optional().describe('With errors: how many issues there were in all'),
   })
-  .describe('RFC 9457 problem details (application/problem+json)');
+  .meta({ id: 'Problem', description: 'RFC 9457 problem details (application/problem+json); `type` names the code, whose meaning GET /problems/{code} gives' });
+
+export const PROBLEM_MEDIA_TYPE = 'application/problem+json';
+
+/** A response declared as a problem document, in its own media type. */
+export const problemAnswer = (description: string) => ({
+  description,
+  content: { [PROBLEM_MEDIA_TYPE]: { schema: Problem } },
+});
 
 export const problemResponses = {
-  400: Problem.describe('Malformed JSON or a body that does not match the schema'),
-  422: Problem.describe('Valid JSON describing a physically impossible or unsolvable scenario'),
+  400: problemAnswer('validation-failed, malformed-json, json-too-deep: malformed JSON or a body that does not match the schema'),
+  422: problemAnswer('Valid JSON describing a physically impossible or unsolvable scenario, or one past a service limit'),
 } as const;

@@ -33,7 +33,8 @@ export const EclipsesRequest = z
   .meta({
     description: 'A spacecraft and a window',
     examples: [{ centralBody: 'earth', elements: DEMO_ELEMENTS, window: { start: DEMO_EPOCH, stop: '2026-12-02T00:00:00Z' } }],
-  });
+  })
+  .meta({ id: 'EclipsesRequest' });
 export type EclipsesRequest = z.output<typeof EclipsesRequest>;
 
 export const Eclipse = z.object({
@@ -46,7 +47,8 @@ export const Eclipse = z.object({
   depth: z.number().min(0).max(1).describe('Largest fraction of the solar disc hidden, 0 to 1 (1 when the umbra is reached); a uniformly bright disc'),
   startsBeforeWindow: z.boolean().describe('Already in shadow at the window start: start is the window start'),
   endsAfterWindow: z.boolean().describe('Still in shadow at the window stop: stop is the window stop'),
-});
+})
+  .meta({ id: 'Eclipse' });
 export type Eclipse = z.infer<typeof Eclipse>;
 
 export const EclipsesAnswer = z.object({
@@ -64,5 +66,6 @@ export const EclipsesAnswer = z.object({
   }).describe('Beta angle of the osculating orbit plane'),
   sunSynchronous: z.boolean().describe('At the window start, the osculating orbit\'s first-order J2 node rate follows the mean Sun (within the tolerance of /v1/orbit)'),
   ascendingNodeLocalTime: z.number().nullable().describe('h, [0, 24): local mean solar time of the ascending node at the window start; null unless sunSynchronous'),
-});
+})
+  .meta({ id: 'EclipsesAnswer' });
 export type EclipsesAnswer = z.infer<typeof EclipsesAnswer>;

@@ -15,7 +15,8 @@ export const Force = z
       reflectivity: z.number().min(0).max(1).describe('epsilon in [0, 1]; C_R = 1 + epsilon'),
     }).strict().describe('Solar radiation pressure on a sphere, cylindrical Earth shadow; Earth only'),
   ])
-  .meta({ discriminator: { propertyName: 'kind' } });
+  .meta({ discriminator: { propertyName: 'kind' } })
+  .meta({ id: 'Force' });
 
 export const modelFields = {
   model: z.enum(STATE_MODELS).default('two-body').describe(

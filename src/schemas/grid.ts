@@ -19,6 +19,7 @@ export const TimeGrid = z
       ctx.addIssue({ code: 'custom', message: 'a regular grid needs start, stop and step' });
     }
   })
-  .describe('The sample epochs: a regular grid (start, stop, step) or a list (times)');
+  .describe('The sample epochs: a regular grid (start, stop, step) or a list (times)')
+  .meta({ id: 'TimeGrid' });
 
 export type TimeGrid = z.output<typeof TimeGrid>;

@@ -11,7 +11,8 @@ export const StateInput = z
     velocity: VelocityKmS,
   })
   .strict()
-  .describe('A Cartesian state at an epoch');
+  .describe('A Cartesian state at an epoch')
+  .meta({ id: 'InitialState' });
 
 export const ElementsInput = z
   .object({
@@ -34,7 +35,8 @@ export const ElementsInput = z
       ctx.addIssue({ code: 'custom', path: ['semiMajorAxis'], message: 'give exactly one of semiMajorAxis and semiLatusRectum' });
     }
   })
-  .describe('Classical orbital elements at an epoch (angles in degrees, distances in km)');
+  .describe('Classical orbital elements at an epoch (angles in degrees, distances in km)')
+  .meta({ id: 'InitialElements' });
 
 /** The orbit part shared by every request that takes an orbit: a body and a state or elements. */
 export const orbitFields = {
@@ -73,7 +75,8 @@ export const OrbitRequest = z
   .meta({
     description: 'An orbit about a central body, by state vector or by elements',
     examples: [{ centralBody: 'earth', elements: DEMO_ELEMENTS }],
-  });
+  })
+  .meta({ id: 'OrbitRequest' });
 export type OrbitRequest = z.output<typeof OrbitRequest>;
 
 const Apsis = z.object({
@@ -98,7 +101,8 @@ export const Elements = z.object({
   longitudeOfPeriapsis: z.number().describe('deg, raan + argPeriapsis'),
   raanDefined: z.boolean(),
   argPeriapsisDefined: z.boolean(),
-});
+})
+  .meta({ id: 'Elements' });
 
 export const J2Rates = z.object({
   raanRate: z.number().describe('Secular RAAN rate from J2, deg/day'),
@@ -106,7 +110,8 @@ export const J2Rates = z.object({
   meanAnomalyRate: z.number().describe('J2 correction to the mean motion, deg/day (added to the Keplerian mean motion)'),
   sunSynchronous: z.boolean().describe('RAAN rate within the tolerance of the body\'s mean motion about the Sun'),
   sunSynchronousInclination: z.number().nullable().describe('deg: the inclination that would make this a, e sun-synchronous (null when none does)'),
-});
+})
+  .meta({ id: 'J2Rates' });
 
 export const OrbitAnswer = z.object({
   scenarioHash: ScenarioHash,
@@ -126,5 +131,6 @@ export const OrbitAnswer = z.object({
   speed: z.number().describe('km/s at epoch'),
   intersectsBody: z.boolean().nullable().describe('true when the periapsis radius is below the body radius (null without a radius)'),
   j2: J2Rates.nullable().describe('J2 secular rates (null when the body has no J2 or the orbit is unbound)'),
-});
+})
+  .meta({ id: 'OrbitAnswer' });
 export type OrbitAnswer = z.infer<typeof OrbitAnswer>;

@@ -30,7 +30,8 @@ export const GroundStation = z
     horizonMask: z.array(MaskPoint).max(360).optional()
       .describe('Elevation limit by azimuth for terrain and buildings: linear between points, wrapping at 360; never below minElevation'),
   })
-  .strict();
+  .strict()
+  .meta({ id: 'GroundStation' });
 export type GroundStation = z.output<typeof GroundStation>;
 
 export const PassesRequest = z
@@ -78,7 +79,8 @@ export const PassesRequest = z
       ],
       pointing: { step: 10, carrierFrequency: 2.2e9 },
     }],
-  });
+  })
+  .meta({ id: 'PassesRequest' });
 export type PassesRequest = z.output<typeof PassesRequest>;
 
 const LIGHT_FIELDS = {
@@ -122,7 +124,8 @@ export const Pass = z.object({
     intervals: z.array(z.object({ start: EpochOut, stop: EpochOut, duration: z.number().describe('s') })).describe('Where the angle is below the limit, in time order'),
   }).optional().describe('With sunAvoidance in the request'),
   pointing: z.array(PointingSample).optional(),
-});
+})
+  .meta({ id: 'Pass' });
 
 export const PassesAnswer = z.object({
   scenarioHash: z.string(),
@@ -135,5 +138,6 @@ export const PassesAnswer = z.object({
     temperature: z.number().optional().describe('deg C (optical)'),
   }).optional().describe('Present when refraction was asked: the elevations of the answer (limits, AOS/LOS, maxElevation, pointing) are apparent ones. Absent: geometric elevations'),
   passes: z.array(Pass).describe('In time order of AOS, then station order'),
-});
+})
+  .meta({ id: 'PassesAnswer' });
 export type PassesAnswer = z.infer<typeof PassesAnswer>;

@@ -42,32 +42,37 @@ export const TrackRequest = z
       format: 'json',
       object: { name: 'PLOVER-7', id: '2026-900A' },
     }],
-  });
+  })
+  .meta({ id: 'TrackRequest' });
 export type TrackRequest = z.output<typeof TrackRequest>;
 
 export const StateSample = z.object({
   epoch: z.string().describe('ISO 8601 UTC'),
   position: z.tuple([z.number(), z.number(), z.number()]).describe('km, 6 decimals (gcrf or itrf)'),
   velocity: z.tuple([z.number(), z.number(), z.number()]).describe('km/s, 9 decimals (gcrf or itrf)'),
-});
+})
+  .meta({ id: 'StateSample' });
 
 export const GeodeticSample = z.object({
   epoch: z.string().describe('ISO 8601 UTC'),
   latitude: z.number().describe('Geodetic latitude, deg (WGS-84), 7 decimals'),
   longitude: z.number().describe('Longitude east, deg (-180, 180], 7 decimals'),
   height: z.number().describe('Height above the WGS-84 ellipsoid, km, 6 decimals'),
-});
+})
+  .meta({ id: 'GeodeticSample' });
 
 /** Drift of the two-body integrals across a track's inertial samples (for perturbed models it measures the perturbation, not an error). */
 export const TrackDiagnostics = z.object({
   energyRelativeDrift: z.number().describe('max |E_k - E_0| / |E_0| of the specific (two-body) energy across the samples'),
   energyDriftVsPotential: z.number().describe('max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0'),
   angularMomentumRelativeDrift: z.number().describe('max |h_k - h_0| / |h_0| (vector) across the samples'),
-});
+})
+  .meta({ id: 'TrackDiagnostics' });
 
 export type TrackDiagnostics = z.infer<typeof TrackDiagnostics>;
 
-export const TrackSample = z.union([StateSample, GeodeticSample]);
+export const TrackSample = z.union([StateSample, GeodeticSample])
+  .meta({ id: 'TrackSample' });
 
 export const TrackAnswer = z.object({
   scenarioHash: z.string(),
@@ -79,4 +84,5 @@ export const TrackAnswer = z.object({
   sampleCount: z.number().int(),
   diagnostics: TrackDiagnostics,
   samples: z.array(TrackSample),
-});
+})
+  .meta({ id: 'TrackAnswer' });

@@ -35,7 +35,8 @@ export const TwoBodyMember = z
       ctx.addIssue({ code: 'custom', path: ['mass'], message: 'give exactly one of mass (kg) and gm (km^3/s^2)' });
     }
   })
-  .describe('One body: a point mass with its state in the request frame');
+  .describe('One body: a point mass with its state in the request frame')
+  .meta({ id: 'TwoBodyMember' });
 export type TwoBodyMember = z.output<typeof TwoBodyMember>;
 
 /** Invented demo pair: a planet-sized primary at rest and a companion on a nearly circular orbit. */
@@ -62,7 +63,8 @@ export const TwoBodyRequest = z
   .meta({
     description: 'Two point masses (mass in kg or GM in km^3/s^2, position km, velocity km/s) in one inertial frame at one epoch',
     examples: [DEMO_TWO_BODY],
-  });
+  })
+  .meta({ id: 'TwoBodyRequest' });
 export type TwoBodyRequest = z.output<typeof TwoBodyRequest>;
 
 export const GravitationalConstant = z
@@ -152,6 +154,7 @@ export const TwoBodyAnswer = z.object({
     .object({ energy: Energy, angularMomentum: AngularMomentum })
     .describe('The integrals of the pair computed two independent ways; their relative difference shows the rounding (it grows for extreme mass ratios, where the barycentre velocity cancels)'),
   tracks: TwoBodyTracks.nullable().describe('null unless the request asked for a track'),
-});
+})
+  .meta({ id: 'TwoBodyAnswer' });
 export type TwoBodyAnswer = z.infer<typeof TwoBodyAnswer>;
 export type TwoBodyTracks = z.infer<typeof TwoBodyTracks>;
