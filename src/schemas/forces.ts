@@ -22,6 +22,7 @@ export const modelFields = {
   model: z.enum(STATE_MODELS).default('two-body').describe(
     'two-body: exact Keplerian motion (universal variables), no perturbations. ' +
     'j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). ' +
+    'j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane\'s (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). ' +
     'numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)'),
   forces: z.array(Force).max(5).default([]).describe('Forces of the numerical model, each kind at most once (ignored by the analytic models)'),
 };

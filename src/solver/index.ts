@@ -41,6 +41,7 @@ export * from './propagation/perturbations.js';
 export * from './propagation/atmosphere.js';
 export * from './propagation/numerical.js';
 export * from './propagation/j2-secular.js';
+export * from './propagation/j2-analytic.js';
 export * from './propagation/ephemeris.js';
 export * from './propagation/propagator.js';
 export * from './propagation/track.js';

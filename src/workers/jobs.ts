@@ -26,8 +26,14 @@ import { stateFunction, type PropagationSpec } from '../solver/propagation/propa
 // thread, behind the bounded queue. The costs per unit of size were measured on that machine.
 /** Jobs estimated under this many work units run inline (~1 ms). */
 export const INLINE_WORK_UNITS = 20_000;
-/** Work units per sample: inertial two-body (the grid kernel), j2-secular (elements + Kepler), ephemeris (interpolation; about 1 us a sample at degree 7). */
-const UNITS_PER_SAMPLE = { 'two-body': 1, 'j2-secular': 2, numerical: 2, ephemeris: 20 } as const satisfies Record<TrackInput['model'], number>;
+/** Work units per sample: inertial two-body (the grid kernel), j2-secular (elements + Kepler), j2-analytic (two Kepler solves and the short-period terms: ~1.5 x j2-secular, measured), ephemeris (interpolation; about 1 us a sample at degree 7). */
+const UNITS_PER_SAMPLE = { 'two-body': 1, 'j2-secular': 2, 'j2-analytic': 3, numerical: 2, ephemeris: 20 } as const satisfies Record<TrackInput['model'], number>;
+/**
+ * Set-up of the J2 models, once per job: j2-secular integrates three to five revolutions for its
+ * mean elements (4 to 20 ms, measured on the shared machine: always a worker), j2-analytic inverts
+ * its theory (about 1 ms).
+ */
+const MODEL_SETUP_UNITS: Partial<Record<TrackInput['model'], number>> = { 'j2-secular': 5 * INLINE_WORK_UNITS, 'j2-analytic': INLINE_WORK_UNITS / 2 };
 /** Added per sample for the ITRF rotation (~0.5 us a sample) and again for geodetic coordinates. */
 const UNITS_PER_EARTH_FIXED_SAMPLE = 10;
 const UNITS_PER_GEODETIC_SAMPLE = 2;
@@ -69,7 +75,7 @@ export function workEstimate(job: Job): number {
   switch (job.kind) {
     case 'track': {
       const n = job.input.epochsTT.length;
-      let units = n * UNITS_PER_SAMPLE[job.input.model];
+      let units = n * UNITS_PER_SAMPLE[job.input.model] + (MODEL_SETUP_UNITS[job.input.model] ?? 0);
       if (job.earthFixed) units += n * UNITS_PER_EARTH_FIXED_SAMPLE;
       if (job.geodetic) units += n * UNITS_PER_GEODETIC_SAMPLE;
       if (job.input.model === 'numerical') units += orbitsCovered(job.input, job.input.epochsTT) * STEPS_PER_ORBIT * UNITS_PER_INTEGRATOR_STEP;
@@ -77,7 +83,7 @@ export function workEstimate(job: Job): number {
     }
     case 'passes': {
       const stationDays = ((job.stopTT - job.startTT) / SECONDS_PER_DAY) * job.stations.length;
-      let units = stationDays * UNITS_PER_STATION_DAY;
+      let units = stationDays * UNITS_PER_STATION_DAY + (MODEL_SETUP_UNITS[job.spec.model] ?? 0);
       if (job.spec.model === 'numerical') units += orbitsCovered(job.spec, [job.startTT, job.stopTT]) * STEPS_PER_ORBIT * UNITS_PER_INTEGRATOR_STEP;
       // A pointing track's cost follows the pass time, known only after the search: never inline.
       if (job.options.pointingStepS !== undefined) units += INLINE_WORK_UNITS;
@@ -87,7 +93,7 @@ export function workEstimate(job: Job): number {
     }
     case 'eclipses': {
       const steps = (job.stopTT - job.startTT) / eclipseCoarseStep(job.spec.r0, job.spec.v0, job.spec.body.gm);
-      let units = steps * UNITS_PER_ECLIPSE_STEP * (job.options.moon ? MOON_SHADOW_FACTOR : 1);
+      let units = steps * UNITS_PER_ECLIPSE_STEP * (job.options.moon ? MOON_SHADOW_FACTOR : 1) + (MODEL_SETUP_UNITS[job.spec.model] ?? 0);
       if (job.spec.model === 'numerical') units += orbitsCovered(job.spec, [job.startTT, job.stopTT]) * STEPS_PER_ORBIT * UNITS_PER_INTEGRATOR_STEP;
       return units;
     }

@@ -82,3 +82,41 @@ describe('propagation models on /v1/passes', () => {
     });
   });
 });
+
+describe('model j2-analytic on every endpoint that takes a model', () => {
+  // The Molniya-like orbit of issue 11, started at periapsis.
+  const molniya = { centralBody: 'earth', elements: { epoch: '2027-04-10T00:00:00Z', semiMajorAxis: 26_554, eccentricity: 0.74, inclination: 63.4, raan: 250, argPeriapsis: 270, trueAnomaly: 0 } };
+  const firstAndDay = { grid: { times: ['2027-04-10T00:00:00Z', '2027-04-11T00:00:00Z'] } };
+
+  it('/v1/track: the first sample is the given state (to the printed mm) and after a day it is within 2 km of numerical J2', async () => {
+    const res = await postJson(app, '/v1/track', { ...molniya, ...firstAndDay, model: 'j2-analytic' });
+    expect(res.statusCode, res.body.slice(0, 300)).toBe(200);
+    const samples = res.json().samples as Sample[];
+    const kepler = (await postJson(app, '/v1/track', { ...molniya, grid: { times: ['2027-04-10T00:00:00Z'] } })).json().samples[0] as Sample;
+    for (let c = 0; c < 3; c++) expectClose(samples[0]!.position[c]!, kepler.position[c]!, 2e-3, `first sample axis ${c}`);
+    const integrated = await last({ ...molniya, ...firstAndDay, model: 'numerical', forces: [{ kind: 'j2' }] });
+    const gap = Math.hypot(...samples[1]!.position.map((x, c) => x - integrated.position[c]!));
+    expect(gap, 'j2-analytic vs numerical J2 after a day, km').toBeLessThan(2);
+  });
+
+  it('/v1/passes, /v1/eclipses and /v1/batch accept it, and its passes agree with numerical J2 to a second', async () => {
+    const request = { ...demo, window: { start: EPOCH, stop: '2026-12-02T00:00:00Z' }, stations: [{ id: 'oskel-fjord', latitude: 78.1, longitude: 15.3, altitude: 0.45, minElevation: 5 }] };
+    const analytic = PassesAnswer.parse((await postJson(app, '/v1/passes', { ...request, model: 'j2-analytic' })).json());
+    const integrated = PassesAnswer.parse((await postJson(app, '/v1/passes', { ...request, model: 'numerical', forces: [{ kind: 'j2' }] })).json());
+    expect(analytic.passes.length).toBe(integrated.passes.length);
+    expect(analytic.passes.length).toBeGreaterThan(3);
+    analytic.passes.forEach((p, i) => expectClose(Date.parse(p.aos) / 1000, Date.parse(integrated.passes[i]!.aos) / 1000, 1, `AOS ${i}`));
+    const eclipses = await postJson(app, '/v1/eclipses', { ...demo, window: { start: EPOCH, stop: '2026-12-01T06:00:00Z' }, model: 'j2-analytic' });
+    expect(eclipses.statusCode, eclipses.body.slice(0, 300)).toBe(200);
+    const batch = await postJson(app, '/v1/batch', { items: [{ kind: 'track', request: { ...demo, grid: { start: EPOCH, stop: '2026-12-01T01:00:00Z', step: 60 }, model: 'j2-analytic' } }] });
+    expect(batch.statusCode).toBe(200);
+    expect(JSON.parse(batch.body.trim().split('\n')[0]!).status).toBe(200);
+  });
+
+  it('refuses an orbit the theory does not cover with a 422 that says why', async () => {
+    const res = await postJson(app, '/v1/track', { ...demo, elements: { ...demo.elements, semiMajorAxis: 300_000, eccentricity: 0.97 }, grid: { times: [EPOCH] }, model: 'j2-analytic' });
+    expect(res.statusCode).toBe(422);
+    expect(res.json().type).toBe('/problems/invalid-parameter');
+    expect(res.json().detail).toMatch(/j2-analytic.*eccentricit/);
+  });
+});

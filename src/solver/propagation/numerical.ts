@@ -77,9 +77,25 @@ function spinAxisOf(input: NumericalInput, midTT: number): Vec3 {
     const n = norm(input.spinAxis);
     return [input.spinAxis[0] / n, input.spinAxis[1] / n, input.spinAxis[2] / n];
   }
-  if (input.body.name !== 'earth') return [0, 0, 1];
+  return bodySpinAxis(input.body, midTT);
+}
+
+/** The spin axis J2 and the atmosphere act about by default (see the header): for the Earth the celestial intermediate pole at midTT, else the frame's z axis. */
+export function bodySpinAxis(body: CentralBody, midTT: number): Vec3 {
+  if (body.name !== 'earth') return [0, 0, 1];
   const q = celestialToIntermediate(midTT); // rows: intermediate axes in GCRF; the third is the pole
   return [q[6], q[7], q[8]];
+}
+
+/** The middle of the span from the epoch to the farthest samples on each side: where the default spin axis is taken. */
+export function spanMiddle(epochTT: number, epochsTT: ArrayLike<number>): number {
+  let lo = epochTT;
+  let hi = epochTT;
+  for (let k = 0; k < epochsTT.length; k++) {
+    lo = Math.min(lo, epochsTT[k]!);
+    hi = Math.max(hi, epochsTT[k]!);
+  }
+  return (lo + hi) / 2;
 }
 
 /** The perturbing terms of the force list (already checked against the body). */
@@ -189,13 +205,7 @@ export function propagateNumerical(input: NumericalInput): Outcome<NumericalTrac
     return failure('impact', `the initial position (radius ${norm(r0).toFixed(3)} km) is below the ${body.name} radius (${radius} km)`);
   }
 
-  let lo = epochTT;
-  let hi = epochTT;
-  for (const t of epochsTT) {
-    lo = Math.min(lo, t);
-    hi = Math.max(hi, t);
-  }
-  const f = rightHandSide(body.gm, epochTT, perturbingTerms(input, (lo + hi) / 2));
+  const f = rightHandSide(body.gm, epochTT, perturbingTerms(input, spanMiddle(epochTT, epochsTT)));
   const relTol = input.relTol ?? NUMERICAL_REL_TOL;
   const scale = relTol > 0 ? relTol : NUMERICAL_REL_TOL;
   const rn = norm(r0);

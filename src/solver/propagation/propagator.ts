@@ -1,13 +1,15 @@
 // One entry to every propagation model: states at many epochs, or a state function for searches.
 //   two-body    exact Keplerian motion (universal variables)
 //   j2-secular  Keplerian motion with the secular J2 drift of node, periapsis and mean anomaly
+//   j2-analytic Brouwer-Lyddane J2 theory: secular drift plus the short-period terms (j2-analytic.ts)
 //   numerical   integrated two-body gravity plus chosen forces (J2, drag, Sun, Moon, radiation pressure)
 //   ephemeris   states interpolated from given nodes (ephemeris.ts); r0, v0, epochTT are its first node
 
 import type { CentralBody } from '../bodies/bodies.js';
 import { checkCoverage, ephemerisInterpolator, ephemerisStates, type Ephemeris } from './ephemeris.js';
+import { j2AnalyticPropagator } from './j2-analytic.js';
 import { j2SecularPropagator } from './j2-secular.js';
-import { propagateNumerical } from './numerical.js';
+import { bodySpinAxis, propagateNumerical, spanMiddle } from './numerical.js';
 import type { Force } from './perturbations.js';
 import { failure, success, type Outcome } from '../core/result.js';
 import { propagate, propagateGrid } from '../conic/universal.js';
@@ -15,7 +17,7 @@ import type { Vec3 } from '../core/vec3.js';
 import { cubicHermiteWeights } from '../numerics/hermite.js';
 
 /** The models that propagate an initial state. */
-export const STATE_MODELS = ['two-body', 'j2-secular', 'numerical'] as const;
+export const STATE_MODELS = ['two-body', 'j2-secular', 'j2-analytic', 'numerical'] as const;
 export const MODELS = [...STATE_MODELS, 'ephemeris'] as const;
 export type Model = (typeof MODELS)[number];
 
@@ -52,8 +54,11 @@ export function statesAt(spec: PropagationSpec, epochsTT: Float64Array): Outcome
       const done = propagateGrid(r0, v0, body.gm, dt, out);
       return done.ok ? success(out) : done;
     }
-    case 'j2-secular': {
-      const at = j2SecularPropagator(body, r0, v0, epochTT);
+    case 'j2-secular':
+    case 'j2-analytic': {
+      const at = spec.model === 'j2-secular'
+        ? j2SecularPropagator(body, r0, v0, epochTT)
+        : j2AnalyticPropagator(body, r0, v0, epochTT, bodySpinAxis(body, spanMiddle(epochTT, epochsTT)));
       if (!at.ok) return at;
       const out = new Float64Array(6 * epochsTT.length);
       for (let k = 0; k < epochsTT.length; k++) {
@@ -87,6 +92,8 @@ export function stateFunction(spec: PropagationSpec, startTT: number, stopTT: nu
   const { body, r0, v0, epochTT } = spec;
   if (spec.model === 'two-body') return success((tt) => propagate(r0, v0, body.gm, tt - epochTT));
   if (spec.model === 'j2-secular') return j2SecularPropagator(body, r0, v0, epochTT);
+  // The same spin axis as the numerical model over this span (its nodes run from startTT to stopTT).
+  if (spec.model === 'j2-analytic') return j2AnalyticPropagator(body, r0, v0, epochTT, bodySpinAxis(body, spanMiddle(epochTT, [startTT, stopTT])));
   if (spec.model === 'ephemeris') {
     const e = ephemerisOf(spec);
     const covered = checkCoverage(e, startTT, stopTT);

@@ -54,7 +54,8 @@ export function propagateTrack(input: TrackInput): Outcome<Track> {
  * is monotonic, so on a span without a periapsis passage the least radius is at a sample; with a
  * passage it is the periapsis radius (common practice, no source). The j2-secular model keeps a
  * and e, so the same periapsis radius holds; its passages drift by the small J2 mean-motion term,
- * which the sample check covers on any reasonable grid.
+ * which the sample check covers on any reasonable grid. The j2-analytic model moves the periapsis
+ * radius by its short-period terms (km), which the sample check covers likewise.
  */
 function surfaceCrossing(input: TrackInput, states: Float64Array): Outcome<never> | undefined {
   const { body, r0, v0, epochTT, epochsTT } = input;
