@@ -720,7 +720,7 @@ export interface components {
             /** @description The Earth's shadow, in time order */
             eclipses: components["schemas"]["Eclipse"][];
             /** @enum {string} */
-            model: "two-body" | "j2-secular" | "numerical" | "ephemeris";
+            model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris";
             /** @description The Moon's shadow, in time order; null unless moon was asked */
             moonEclipses: components["schemas"]["Eclipse"][] | null;
             /** @description SHA-256 (hex) of the normalised scenario and the solver version; also the ETag */
@@ -775,11 +775,11 @@ export interface components {
              */
             format?: "json" | "csv" | "svg";
             /**
-             * @description two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
+             * @description two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
              * @default two-body
              * @enum {string}
              */
-            model?: "two-body" | "j2-secular" | "numerical";
+            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical";
             /**
              * @description Also search the Moon's shadow (conical, mean lunar radius 1737.4 km); its eclipses are listed apart, in moonEclipses
              * @default false
@@ -1285,7 +1285,7 @@ export interface components {
             /** @description s: the scan step sized from the orbit so no pass above the limit is missed */
             coarseStep: number;
             /** @enum {string} */
-            model: "two-body" | "j2-secular" | "numerical" | "ephemeris";
+            model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris";
             /** @description In time order of AOS, then station order */
             passes: components["schemas"]["Pass"][];
             /** @description Present when refraction was asked: the elevations of the answer (limits, AOS/LOS, maxElevation, pointing) are apparent ones. Absent: geometric elevations */
@@ -1391,11 +1391,11 @@ export interface components {
              */
             format?: "json" | "svg";
             /**
-             * @description two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
+             * @description two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
              * @default two-body
              * @enum {string}
              */
-            model?: "two-body" | "j2-secular" | "numerical";
+            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical";
             /** @description Ask for an antenna pointing track of each pass */
             pointing?: {
                 /** @description Carrier frequency, Hz: adds the first-order Doppler shift, Hz, to each sample */
@@ -1567,7 +1567,7 @@ export interface components {
             /** @enum {string} */
             frame: "gcrf" | "itrf" | "geodetic";
             /** @enum {string} */
-            model: "two-body" | "j2-secular" | "numerical" | "ephemeris";
+            model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris";
             object: {
                 id: string;
                 name: string;
@@ -1606,11 +1606,11 @@ export interface components {
             frame?: "gcrf" | "itrf" | "geodetic";
             grid: components["schemas"]["TimeGrid"];
             /**
-             * @description two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
+             * @description two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
              * @default two-body
              * @enum {string}
              */
-            model?: "two-body" | "j2-secular" | "numerical";
+            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical";
             /**
              * @description Labels for the exported track
              * @default {
