@@ -3,6 +3,7 @@
 import type { CentralBody } from '../solver/bodies/bodies.js';
 import { RAD } from '../solver/core/math.js';
 import type { Vec3 } from '../solver/core/vec3.js';
+import type { FrameOptions } from '../solver/earth/frames.js';
 import type { Eclipse as SolverEclipse, EclipseSearchResult } from '../solver/light/eclipses.js';
 import { formatUtcIso } from '../solver/time/time.js';
 import type { Eclipse, EclipsesAnswer, EclipsesRequest } from '../schemas/eclipses.js';
@@ -16,9 +17,9 @@ export const SHADOW_MODEL_TEXT =
   '(annual aberration, no light-time); no atmosphere, no oblateness';
 
 /** The worker job of a validated eclipse request (the window checked by searchWindow). */
-export function eclipseSearchJob(req: Omit<EclipsesRequest, 'format'>, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }): EclipsesJob {
+export function eclipseSearchJob(req: Omit<EclipsesRequest, 'format'>, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, frame: FrameOptions): EclipsesJob {
   const { spec, startTT, stopTT } = searchWindow(req, body, start);
-  return { kind: 'eclipses', spec, startTT, stopTT, options: { moon: req.moon, dut1: req.ut1MinusUtc, gm: body.gm } };
+  return { kind: 'eclipses', spec, startTT, stopTT, options: { moon: req.moon, ...frame, gm: body.gm } };
 }
 
 const toEclipse = (e: SolverEclipse): Eclipse => ({

@@ -4,13 +4,14 @@ import { regularGrid, regularGridCount } from '../solver/core/grid.js';
 import type { TimeGrid } from '../schemas/grid.js';
 import { epochTT } from './epoch.js';
 
-/** The sample epochs of a validated grid, refusing more than `max` before allocating anything. */
+/** The sample epochs of a validated grid (in its timeSystem), refusing more than `max` before allocating anything. */
 export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
+  const system = grid.timeSystem ?? 'UTC';
   if (grid.times) {
     if (grid.times.length > max) throw new ProblemError('too-many-samples', `${grid.times.length} times asked; the maximum is ${max} samples`);
-    return Float64Array.from(grid.times, epochTT);
+    return Float64Array.from(grid.times, (t) => epochTT(t, system));
   }
-  const [start, stop] = [epochTT(grid.start!), epochTT(grid.stop!)];
+  const [start, stop] = [epochTT(grid.start!, system), epochTT(grid.stop!, system)];
   const count = regularGridCount(start, stop, grid.step!);
   // Written so that a NaN count is refused too; nothing is allocated before this check.
   if (!(count <= max)) {

@@ -1,6 +1,6 @@
 // Orbits between the API and the solver: a request's state or elements -> the solver's input
 // (degrees -> radians, ISO -> TT), and the solver's solution -> the /v1/orbit answer.
-import type { CentralBody } from '../solver/bodies/bodies.js';
+import { BODIES, type CentralBody } from '../solver/bodies/bodies.js';
 import { elementsToState, orbitTypeOf, type ElementsInput as SolverElementsInput } from '../solver/conic/elements.js';
 import type { OrbitSolution } from '../solver/conic/orbit.js';
 import { DEG, RAD, SECONDS_PER_DAY } from '../solver/core/math.js';
@@ -9,14 +9,27 @@ import type { Vec3 } from '../solver/core/vec3.js';
 import { END_OF_SUPPORTED_RANGE_TT, formatUtcIso } from '../solver/time/time.js';
 import type { OrbitAnswer, OrbitInputFields } from '../schemas/orbit.js';
 import type { OrbitPlaneInput } from '../formats/svg/orbit-plane.js';
+import { ProblemError } from '../errors.js';
+import type { FrameOptions } from '../solver/earth/frames.js';
+import { stateToGcrf } from '../solver/earth/state-frames.js';
 import { describeBody } from './body.js';
 import { epochTT } from './epoch.js';
 
 export type SolverOrbitInput = { r: Vec3; v: Vec3 } | { elements: SolverElementsInput };
 
-/** The solver's input for a validated request (degrees -> radians). */
-export function orbitSolverInput(req: OrbitInputFields): { epochTT: number; input: SolverOrbitInput } {
-  if (req.state) return { epochTT: epochTT(req.state.epoch), input: { r: req.state.position, v: req.state.velocity } };
+/**
+ * The solver's input for a validated request whose epochs are already in UTC (utcScenario):
+ * degrees -> radians, and a state in another frame brought to GCRF at its epoch (Earth-fixed
+ * states with the Earth orientation of `frame`).
+ */
+export function orbitSolverInput(req: OrbitInputFields, body: CentralBody, frame: FrameOptions = {}): { epochTT: number; input: SolverOrbitInput } {
+  if (req.state) {
+    const s = req.state;
+    const t = epochTT(s.epoch);
+    if (s.frame === 'itrf' && body !== BODIES.earth) throw new ProblemError('unsupported-frame', 'an itrf state (Earth-fixed) needs the built-in centralBody "earth"');
+    const g = stateToGcrf(s.frame, t, s.position, s.velocity, frame);
+    return { epochTT: t, input: { r: g.r, v: g.v } };
+  }
   const el = req.elements!;
   return {
     epochTT: epochTT(el.epoch),
@@ -37,8 +50,8 @@ export function orbitSolverInput(req: OrbitInputFields): { epochTT: number; inpu
 }
 
 /** The initial Cartesian state of a request's orbit (state given, or elements converted). */
-export function initialState(body: CentralBody, req: OrbitInputFields): Outcome<{ r: Vec3; v: Vec3; epochTT: number }> {
-  const { epochTT: epoch, input } = orbitSolverInput(req);
+export function initialState(body: CentralBody, req: OrbitInputFields, frame: FrameOptions = {}): Outcome<{ r: Vec3; v: Vec3; epochTT: number }> {
+  const { epochTT: epoch, input } = orbitSolverInput(req, body, frame);
   if ('r' in input) {
     if (input.r.every((x) => x === 0)) return failure('zero-position', 'the position vector is zero');
     return success({ r: input.r, v: input.v, epochTT: epoch });

@@ -3,6 +3,7 @@
 import type { CentralBody } from '../solver/bodies/bodies.js';
 import { DEG, RAD } from '../solver/core/math.js';
 import type { Vec3 } from '../solver/core/vec3.js';
+import type { FrameOptions } from '../solver/earth/frames.js';
 import type { Pass, PassStation } from '../solver/stations/passes.js';
 import { dopplerShift } from '../solver/stations/topocentric.js';
 import { formatUtcIso } from '../solver/time/time.js';
@@ -75,7 +76,7 @@ export function toPassAnswer(p: Pass, light: PassLight, carrierFrequencyHz: numb
 }
 
 /** The worker job of a validated pass request (the window checked by searchWindow). */
-export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, forPlots = false): PassesJob {
+export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, frame: FrameOptions, forPlots = false): PassesJob {
   const { spec, startTT, stopTT } = searchWindow(req, body, start);
   // The sky plots need a pointing track: without one asked they use their own step, longer for long searches.
   const plotStepS = SVG_POINTING_STEP_S * Math.max(1, Math.ceil(((stopTT - startTT) * req.stations.length) / SVG_POINTING_BUDGET_S));
@@ -88,7 +89,7 @@ export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralB
     stations: req.stations.map(stationForSearch),
     lighting: { twilightLimit: req.twilightLimit * DEG },
     ...(req.sunAvoidance ? { sunAvoidance: { angle: req.sunAvoidance.angle * DEG } } : {}),
-    options: { dut1: req.ut1MinusUtc, gm: body.gm, ...refractionOption(req), ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
+    options: { ...frame, gm: body.gm, ...refractionOption(req), ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
   };
 }
 

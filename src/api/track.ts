@@ -4,6 +4,7 @@ import type { CentralBody } from '../solver/bodies/bodies.js';
 import type { ConservationDrift } from '../solver/conic/universal.js';
 import { RAD } from '../solver/core/math.js';
 import type { Vec3 } from '../solver/core/vec3.js';
+import type { FrameOptions } from '../solver/earth/frames.js';
 import type { Track } from '../solver/propagation/track.js';
 import type { TrackDiagnostics, TrackRequest } from '../schemas/track.js';
 import type { TrackNeeds, TrackFormat, TrackProductInput } from '../formats/track-output.js';
@@ -16,11 +17,11 @@ export const diagnosticsOf = (drift: ConservationDrift): TrackDiagnostics => ({
 });
 
 /** The worker job of a validated track request (its grid buffer moves to the worker). */
-export function trackJob(req: TrackRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, epochsTT: Float64Array, needs: TrackNeeds): TrackJob {
+export function trackJob(req: TrackRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, epochsTT: Float64Array, needs: TrackNeeds, frame: FrameOptions): TrackJob {
   return {
     kind: 'track',
     input: { body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT, epochsTT, passThroughBody: req.passThroughBody },
-    earthFixed: needs.earthFixed ? { dut1: req.ut1MinusUtc } : null,
+    earthFixed: needs.earthFixed ? frame : null,
     geodetic: needs.geodetic,
   };
 }
@@ -60,7 +61,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
       centerName: body.name.toUpperCase(),
       comments: [
         `model ${req.model}, GM ${body.gm} km**3/s**2; scenario ${hash}`,
-        ...(req.frame === 'itrf' ? [`Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected; UT1-UTC ${req.ut1MinusUtc} s`] : []),
+        ...(req.frame === 'itrf' ? [`Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected; UT1-UTC ${req.ut1MinusUtc ?? 0} s`] : []),
         'CREATION_DATE is the epoch of the initial state, so that one scenario always gives the same bytes',
       ],
     },

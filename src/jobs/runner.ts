@@ -65,7 +65,7 @@ function gridSamples(grid: unknown): number | undefined {
   if (!parsed.success) return undefined;
   const g = parsed.data;
   if (g.times) return g.times.length;
-  return regularGridCount(epochTT(g.start!), epochTT(g.stop!), g.step!);
+  return regularGridCount(epochTT(g.start!, g.timeSystem), epochTT(g.stop!, g.timeSystem), g.step!);
 }
 
 const field = (value: unknown, key: string): unknown =>

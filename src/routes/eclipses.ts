@@ -10,6 +10,8 @@ import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
 import { eclipseSearchJob, toEclipsesAnswer } from '../api/eclipses.js';
 import { initialState } from '../api/orbit.js';
+import { utcScenario } from '../api/epoch.js';
+import { frameOptions } from '../api/earth-orientation.js';
 import { problemResponses } from '../schemas/common.js';
 import { ECLIPSE_FORMATS, EclipsesAnswer, EclipsesRequest } from '../schemas/eclipses.js';
 
@@ -35,17 +37,19 @@ const eclipses: FastifyPluginAsyncZod = async (app) => {
       },
     },
   }, async (request, reply) => {
-    const { format: asked, ...req } = request.body;
+    // Epochs in canonical UTC first: the same instant in any time system or spelling is one scenario.
+    const { format: asked, ...req } = utcScenario(request.body);
     const format = chooseFormat(request, asked, ECLIPSE_FORMATS);
     if (req.centralBody !== 'earth') throw new ProblemError('unsupported-frame', 'eclipses need the built-in centralBody "earth"');
     // JSON answers keep the scenario (and hash) of a request without the format field.
     const scenario = format === 'json' ? req : { ...req, format };
     return app.answers.respond(request, reply, 'eclipses', scenario, async (hash) => {
       const body = resolveBody(req.centralBody);
-      const start = initialState(body, req);
+      const frame = frameOptions(req.ut1MinusUtc);
+      const start = initialState(body, req, frame);
       if (!start.ok) throw solverProblem(start);
       // Long windows run on a worker thread; the propagator is rebuilt there from this state.
-      const found = await app.pool.solve(eclipseSearchJob(req, body, start.value));
+      const found = await app.pool.solve(eclipseSearchJob(req, body, start.value, frame));
       if (!found.ok) throw solverProblem(found);
       const answer = toEclipsesAnswer(req, hash, found.value);
       if (format === 'json') return jsonAnswer(answer);

@@ -8,6 +8,8 @@ import { jsonAnswer } from '../plugins/answers.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { problemResponses } from '../schemas/common.js';
 import { resolveBody } from '../api/body.js';
+import { utcScenario } from '../api/epoch.js';
+import { frameOptions } from '../api/earth-orientation.js';
 import { orbitPlotInput, orbitSolverInput, toOrbitAnswer } from '../api/orbit.js';
 import { OrbitAnswer, OrbitRequest, PLOT_FORMATS } from '../schemas/orbit.js';
 import { solveOrbit } from '../solver/conic/orbit.js';
@@ -30,13 +32,14 @@ const orbit: FastifyPluginAsyncZod = async (app) => {
       },
     },
   }, async (request, reply) => {
-    const { format: asked, ...req } = request.body;
+    // Epochs in canonical UTC first: the same instant in any time system or spelling is one scenario.
+    const { format: asked, ...req } = utcScenario(request.body);
     const format = chooseFormat(request, asked, PLOT_FORMATS);
     // JSON answers keep the scenario (and hash) they had before the format field existed.
     const scenario = format === 'json' ? req : { ...req, format };
     return app.answers.respond(request, reply, 'orbit', scenario, (hash) => {
       const body = resolveBody(req.centralBody);
-      const { epochTT, input } = orbitSolverInput(req);
+      const { epochTT, input } = orbitSolverInput(req, body, frameOptions(req.ut1MinusUtc));
       const solved = solveOrbit(body, input);
       if (!solved.ok) throw solverProblem(solved);
       const answer = toOrbitAnswer(solved.value, body, epochTT, hash);

@@ -8,6 +8,8 @@ import { jsonAnswer } from '../plugins/answers.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
 import { initialState } from '../api/orbit.js';
+import { utcScenario } from '../api/epoch.js';
+import { frameOptions } from '../api/earth-orientation.js';
 import { passSearchJob, toPassesAnswer } from '../api/passes.js';
 import { problemResponses } from '../schemas/common.js';
 import { PassesAnswer, PassesRequest } from '../schemas/passes.js';
@@ -34,7 +36,8 @@ const passes: FastifyPluginAsyncZod = async (app) => {
       },
     },
   }, async (request, reply) => {
-    const { format: asked, ...body } = request.body;
+    // Epochs in canonical UTC first: the same instant in any time system or spelling is one scenario.
+    const { format: asked, ...body } = utcScenario(request.body);
     // refraction "none" is the default: it leaves the scenario (and its hash and bytes) as without the field.
     const { refraction, ...rest } = body;
     const req = refraction === 'none' ? rest : body;
@@ -44,11 +47,12 @@ const passes: FastifyPluginAsyncZod = async (app) => {
     const scenario = format === 'json' ? req : { ...req, format };
     return app.answers.respond(request, reply, 'passes', scenario, async (hash) => {
       const body = resolveBody(req.centralBody);
-      const start = initialState(body, req);
+      const frame = frameOptions(req.ut1MinusUtc);
+      const start = initialState(body, req, frame);
       if (!start.ok) throw solverProblem(start);
       // The search runs on a worker thread unless the window and station list are small; the
       // propagator is rebuilt there from this state.
-      const found = await app.pool.solve(passSearchJob(req, body, start.value, format === 'svg'));
+      const found = await app.pool.solve(passSearchJob(req, body, start.value, frame, format === 'svg'));
       if (!found.ok) throw solverProblem(found);
       const answer = toPassesAnswer(req, hash, found.value);
       assertFinite(answer); // the plots are drawn from the answer: the same check for both formats

@@ -7,6 +7,8 @@ import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
 import { gridEpochs } from '../api/grid.js';
 import { initialState } from '../api/orbit.js';
+import { utcScenario } from '../api/epoch.js';
+import { frameOptions } from '../api/earth-orientation.js';
 import { trackJob, trackProductInput } from '../api/track.js';
 import { problemResponses } from '../schemas/common.js';
 import { TrackAnswer, TrackRequest } from '../schemas/track.js';
@@ -35,17 +37,19 @@ const track: FastifyPluginAsyncZod = async (app) => {
       },
     },
   }, async (request, reply) => {
-    const req = request.body;
+    // Epochs in canonical UTC first: the same instant in any time system or spelling is one scenario.
+    const req = utcScenario(request.body);
     const format = chooseFormat(request, req.format, TRACK_FORMATS);
     const needs = trackNeeds(format, req.frame, req.centralBody === 'earth');
     return app.answers.respondStream(request, reply, 'track', { ...req, format }, async (hash) => {
       const body = resolveBody(req.centralBody);
-      const start = initialState(body, req);
+      const frame = frameOptions(req.ut1MinusUtc);
+      const start = initialState(body, req, frame);
       if (!start.ok) throw solverProblem(start);
       const epochs = epochsForFormat(format, gridEpochs(req.grid, app.config.MAX_TRACK_SAMPLES));
       // Propagation and frame conversion run on a worker thread for long grids (the grid's buffer
       // moves there and comes back); formatting stays here, in chunks.
-      const result = await app.pool.solve(trackJob(req, body, start.value, epochs, needs));
+      const result = await app.pool.solve(trackJob(req, body, start.value, epochs, needs, frame));
       if (!result.ok) throw solverProblem(result);
       return trackProduct(trackProductInput(req, format, hash, body, start.value.epochTT, result.value));
     });

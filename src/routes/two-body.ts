@@ -4,7 +4,7 @@ import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { solverProblem } from '../errors.js';
 import { JSON_MEDIA_TYPE, STATE_COLUMNS, STATE_FIELDS, trackJsonChunks } from '../formats/track-json.js';
 import { assertPrintable, type TrackTable } from '../formats/track-table.js';
-import { epochTT as toEpochTT } from '../api/epoch.js';
+import { epochTT as toEpochTT, utcEpochs } from '../api/epoch.js';
 import { assertFinite, assertFiniteTable } from '../api/finite.js';
 import { gridEpochs } from '../api/grid.js';
 import { diagnosticsOf } from '../api/track.js';
@@ -46,7 +46,9 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
       response: { 200: TwoBodyAnswer, ...problemResponses },
     },
   }, async (request, reply) => {
-    const req = request.body;
+    // Epochs in canonical UTC first: the same instant in any time system or spelling is one scenario.
+    const { track: asked, ...rest } = request.body;
+    const req = { ...utcEpochs(rest), ...(asked ? { track: { ...asked, grid: utcEpochs(asked.grid) } } : {}) };
     return app.answers.respondStream(request, reply, 'two-body', req, async (hash) => {
       const [b1, b2] = twoBodySolverInput(req);
       const reduced = reduceTwoBody(b1, b2);

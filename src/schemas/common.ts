@@ -2,6 +2,8 @@
 import { z } from 'zod';
 import { SPEED_OF_LIGHT_KM_S } from '../solver/core/constants.js';
 import { parseUtcIso } from '../solver/time/time.js';
+import { TIME_SYSTEMS, type TimeSystem } from '../solver/time/time-systems.js';
+import { epochProblem } from '../api/epoch.js';
 
 export const DEMO_EPOCH = '2026-12-01T00:00:00Z';
 
@@ -25,6 +27,41 @@ export const Epoch = z
   })
   .describe('Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table')
   .meta({ example: DEMO_EPOCH });
+
+/** The time system of the epochs of one request part; each part (state, elements, grid, window) names its own. */
+export const TimeSystemField = z.enum(TIME_SYSTEMS).optional().describe(
+  'Time system of this part\'s epochs: UTC (default; epochs end in Z), TAI, TT or GPS (calendar text without a zone letter, e.g. 2026-12-01T00:01:09.184 TT; ' +
+  'the day-of-year form 2026-335T00:00:00 is also read). Converted at the edge: the same instant in any system is the same scenario (one hash, one answer). Answers print UTC');
+
+/** An epoch whose time system is named beside it: checked by refineEpochs on the enclosing object. */
+// Alone the text is checked as a date (as UTC when it carries a zone, else as zone-less calendar
+// text); refineEpochs then checks it in the part's own time system.
+const epochTextProblem = (text: string): string | undefined => epochProblem(text, /(?:Z|[+-]00:00)$/.test(text) ? 'UTC' : 'TAI');
+/** True for a string EpochText accepts (a cheap test for long lists). */
+export const isEpochText = (value: unknown): boolean => typeof value === 'string' && value.length <= 64 && epochTextProblem(value) === undefined;
+export const EpochText = z.string().max(64)
+  .superRefine((text, ctx) => {
+    const problem = epochTextProblem(text);
+    if (problem) ctx.addIssue({ code: 'custom', message: problem });
+  })
+  .describe('Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199').meta({ example: DEMO_EPOCH });
+
+/** Check the named epoch fields of an object in its timeSystem; issues carry the field's path. */
+export function refineEpochs(keys: readonly string[]) {
+  return (obj: Record<string, unknown> & { timeSystem?: TimeSystem | undefined }, ctx: z.RefinementCtx): void => {
+    const system = obj.timeSystem ?? 'UTC';
+    for (const key of keys) {
+      const v = obj[key];
+      if (typeof v !== 'string') continue;
+      const problem = epochProblem(v, system);
+      if (problem) ctx.addIssue({ code: 'custom', path: [key], message: problem });
+    }
+  };
+}
+
+/** UT1 - UTC of a request: given, it wins over everything; absent, the EOP_FILE table (when configured and covering the epoch), else 0. */
+export const UT1_MINUS_UTC = z.number().min(-0.9).max(0.9).optional();
+export const UT1_MINUS_UTC_TEXT = 'UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning)';
 
 /** True for a string the Epoch schema accepts (a cheap test for long lists). */
 export const isEpoch = (value: unknown): boolean => typeof value === 'string' && parseUtcIso(value).ok;

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { MAX_ECLIPSE_WINDOW_S } from '../solver/light/eclipses.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
-import { DEMO_EPOCH, Epoch, EpochOut, ScenarioHash } from './common.js';
+import { DEMO_EPOCH, EpochOut, EpochText, refineEpochs, TimeSystemField, ScenarioHash, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
 import { modelFields } from './forces.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
@@ -20,11 +20,11 @@ export const EclipsesRequest = z
   .object({
     ...orbitFields,
     ...modelFields,
-    window: z.object({ start: Epoch, stop: Epoch }).strict()
-      .describe(`Search window (ISO 8601 UTC), stop after start, at most ${MAX_ECLIPSE_WINDOW_S / SECONDS_PER_DAY} days`),
+    window: z.object({ start: EpochText, stop: EpochText, timeSystem: TimeSystemField }).strict().superRefine(refineEpochs(['start', 'stop']))
+      .describe(`Search window (epochs in timeSystem, UTC by default), stop after start, at most ${MAX_ECLIPSE_WINDOW_S / SECONDS_PER_DAY} days`),
     moon: z.boolean().default(false)
       .describe('Also search the Moon\'s shadow (conical, mean lunar radius 1737.4 km); its eclipses are listed apart, in moonEclipses'),
-    ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (0 when not given): enters only the local time of the ascending node'),
+    ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; enters only the local time of the ascending node`),
     format: z.enum(ECLIPSE_FORMATS.map(([f]) => f) as [EclipseFormat, ...EclipseFormat[]]).optional()
       .describe('json | csv (RFC 4180, one row per eclipse, Earth and Moon together in time order) | svg (a timeline of sunlight, penumbra and umbra, one row per UTC day). Without it the Accept header chooses (application/json, text/csv, image/svg+xml); default json'),
   })

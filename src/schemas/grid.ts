@@ -1,16 +1,30 @@
 // Time grids at the API: a regular grid (start, stop, step) or a list of epochs.
 import { z } from 'zod';
-import { Epoch, isEpoch } from './common.js';
-import { boundedList } from './list.js';
+import { epochProblem } from '../api/epoch.js';
+import { EpochText, isEpochText, refineEpochs, TimeSystemField } from './common.js';
+import { boundedList, MAX_LISTED_ISSUES } from './list.js';
 
 export const TimeGrid = z
   .object({
-    start: Epoch.optional().describe('First epoch of a regular grid (ISO 8601 UTC)'),
-    stop: Epoch.optional().describe('Last epoch of a regular grid; before start for a backwards grid. The last sample is at stop exactly (the final step may be shorter)'),
+    start: EpochText.optional().describe('First epoch of a regular grid (in timeSystem; UTC by default)'),
+    stop: EpochText.optional().describe('Last epoch of a regular grid; before start for a backwards grid. The last sample is at stop exactly (the final step may be shorter)'),
     step: z.number().positive().optional().describe('Spacing of a regular grid, s (> 0; the direction comes from start and stop)'),
-    times: boundedList(Epoch, { min: 1, max: 10_000_000, good: isEpoch }).optional().describe('Instead of start/stop/step: the epochs themselves, in any order'),
+    times: boundedList(EpochText, { min: 1, max: 10_000_000, good: isEpochText }).optional().describe('Instead of start/stop/step: the epochs themselves (in timeSystem), in any order'),
+    timeSystem: TimeSystemField,
   })
   .strict()
+  .superRefine(refineEpochs(['start', 'stop']))
+  .superRefine((g, ctx) => {
+    if (!g.times) return;
+    const system = g.timeSystem ?? 'UTC';
+    let bad = 0;
+    for (let i = 0; i < g.times.length && bad < MAX_LISTED_ISSUES; i++) {
+      const t = g.times[i]!;
+      if (system === 'UTC' && t.endsWith('Z')) continue; // checked as UTC already (EpochText)
+      const problem = epochProblem(t, system);
+      if (problem) { bad++; ctx.addIssue({ code: 'custom', path: ['times', i], message: problem }); }
+    }
+  })
   .superRefine((g, ctx) => {
     const regular = g.start !== undefined || g.stop !== undefined || g.step !== undefined;
     if (regular === (g.times !== undefined)) {

@@ -1,22 +1,29 @@
 // POST /v1/orbit: request and answer schemas (the mapping to and from the solver is in src/api/orbit.ts).
 import { z } from 'zod';
 import { CentralBodyInput, BodySummary } from './body.js';
-import { DEMO_EPOCH, Epoch, EpochOut, MAX_POSITION_KM, PositionKm, ScenarioHash, Vec3, VelocityKmS } from './common.js';
+import { STATE_FRAMES } from '../solver/earth/state-frames.js';
+import { DEMO_EPOCH, EpochOut, EpochText, MAX_POSITION_KM, PositionKm, refineEpochs, ScenarioHash, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT, Vec3, VelocityKmS } from './common.js';
 
 export const StateInput = z
   .object({
-    epoch: Epoch,
-    frame: z.enum(['gcrf']).default('gcrf').describe('Frame of the state: gcrf (inertial, J2000 equator and equinox)'),
+    epoch: EpochText,
+    timeSystem: TimeSystemField,
+    frame: z.enum(STATE_FRAMES).default('gcrf').describe(
+      'Frame of the state: gcrf or icrf (inertial, the service\'s frame: ICRF axes, origin the centre of the body); ' +
+      'eme2000 (J2000 mean equator and equinox: the IAU 2006 frame bias is applied, 23 mas); ' +
+      'itrf (Earth-fixed, velocity relative to the rotating Earth as GNSS receivers give it; converted at the state\'s epoch with IAU 2006/2000B precession-nutation, UT1-UTC and, with EOP_FILE, polar motion; centralBody earth only)'),
     position: PositionKm,
     velocity: VelocityKmS,
   })
   .strict()
+  .superRefine(refineEpochs(['epoch']))
   .describe('A Cartesian state at an epoch')
   .meta({ id: 'InitialState' });
 
 export const ElementsInput = z
   .object({
-    epoch: Epoch,
+    epoch: EpochText,
+    timeSystem: TimeSystemField,
     semiMajorAxis: z.number().min(-MAX_POSITION_KM).max(MAX_POSITION_KM).optional().describe(`Semi-major axis a, km: positive for ellipses, negative for hyperbolas, |a| <= ${MAX_POSITION_KM}; omit for a parabola (give semiLatusRectum)`),
     semiLatusRectum: z.number().positive().max(MAX_POSITION_KM).optional().describe('Semi-latus rectum p, km: instead of semiMajorAxis, required when eccentricity = 1'),
     eccentricity: z.number().min(0).describe('Eccentricity e >= 0 (0 circular, < 1 elliptic, 1 parabolic, > 1 hyperbolic)'),
@@ -27,6 +34,7 @@ export const ElementsInput = z
     meanAnomaly: z.number().optional().describe('Mean anomaly, degrees; for a hyperbola the hyperbolic mean anomaly e sinh H - H expressed in degrees; for a parabola (e = 1) M_p = B + B^3/3 with B = tan(nu/2), dimensionless'),
   })
   .strict()
+  .superRefine(refineEpochs(['epoch']))
   .superRefine((el, ctx) => {
     if ((el.trueAnomaly === undefined) === (el.meanAnomaly === undefined)) {
       ctx.addIssue({ code: 'custom', path: ['trueAnomaly'], message: 'give exactly one of trueAnomaly and meanAnomaly' });
@@ -69,7 +77,7 @@ export const plotFormatField = (plots: string) => z.enum(['json', 'svg']).option
   .describe(`json (the numbers) | svg (${plots}). Without it the Accept header chooses (application/json, image/svg+xml); default json`);
 
 export const OrbitRequest = z
-  .object({ ...orbitFields, format: plotFormatField('the orbit in its plane, to scale with the body: periapsis, apoapsis, line of nodes, position at the epoch') })
+  .object({ ...orbitFields, ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; used only to bring an itrf state to gcrf`), format: plotFormatField('the orbit in its plane, to scale with the body: periapsis, apoapsis, line of nodes, position at the epoch') })
   .strict()
   .superRefine(requireOneOrbitInput)
   .meta({

@@ -4,7 +4,7 @@ import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTING_STEP_S } from '../solver/stations/passes.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { BENNETT_PRESSURE_HPA, BENNETT_TEMPERATURE_C, REFRACTION_MODELS } from '../solver/stations/refraction.js';
-import { DEMO_EPOCH, Epoch, EpochOut } from './common.js';
+import { DEMO_EPOCH, EpochOut, EpochText, refineEpochs, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
 import { modelFields } from './forces.js';
 import { DEMO_ELEMENTS, orbitFields, plotFormatField, requireOneOrbitInput } from './orbit.js';
 
@@ -38,7 +38,7 @@ export const PassesRequest = z
   .object({
     ...orbitFields,
     ...modelFields,
-    window: z.object({ start: Epoch, stop: Epoch }).strict().describe(`Search window (ISO 8601 UTC), stop after start, at most ${MAX_PASS_WINDOW_S / SECONDS_PER_DAY} days`),
+    window: z.object({ start: EpochText, stop: EpochText, timeSystem: TimeSystemField }).strict().superRefine(refineEpochs(['start', 'stop'])).describe(`Search window (epochs in timeSystem, UTC by default), stop after start, at most ${MAX_PASS_WINDOW_S / SECONDS_PER_DAY} days`),
     stations: z.array(GroundStation).min(1).max(MAX_PASS_STATIONS).describe(`Ground stations, 1 to ${MAX_PASS_STATIONS}`),
     pointing: z
       .object({
@@ -48,7 +48,7 @@ export const PassesRequest = z
       .strict()
       .optional()
       .describe('Ask for an antenna pointing track of each pass'),
-    ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (0 when not given: up to ~0.4 km of along-track error on the ground)'),
+    ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; without either, 0 costs up to ~0.4 km of along-track error on the ground`),
     refraction: z.enum(REFRACTION_MODELS).optional()
       .describe('none (default: geometric elevations) | radio (4/3 effective Earth radius) | optical (Bennett 1982): AOS/LOS are then where the apparent elevation crosses the limit, and maxElevation and the pointing elevations are apparent'),
     atmosphere: z.object({

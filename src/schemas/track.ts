@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { TRACK_FORMATS, TRACK_FRAMES, type TrackFormat } from '../formats/track-output.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
-import { DEMO_EPOCH } from './common.js';
+import { DEMO_EPOCH, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
 import { Force, modelFields } from './forces.js';
 import { TimeGrid } from './grid.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
@@ -24,7 +24,7 @@ export const TrackRequest = z
     frame: z.enum(TRACK_FRAMES).default('gcrf').describe(
       'Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected: ~10 m at LEO); ' +
       'geodetic (WGS-84 latitude and longitude in deg, height in km). itrf and geodetic need centralBody earth'),
-    ut1MinusUtc: z.number().min(-0.9).max(0.9).default(0).describe('UT1 - UTC, s (IERS Bulletin A); 0 when not given, which costs up to ~0.4 km along-track in Earth-fixed frames'),
+    ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; without either, 0 costs up to ~0.4 km along-track in Earth-fixed frames`),
     format: z.enum(TRACK_FORMATS.map(([f]) => f) as [TrackFormat, ...TrackFormat[]]).optional()
       .describe('json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN; gcrf or itrf) | geojson (RFC 7946 ground track on WGS-84, split at the antimeridian; earth only, whatever the frame) | svg (the ground track on a world map; earth only, whatever the frame). ' +
         'Without it the Accept header chooses (application/json, text/csv, text/plain for OEM, application/geo+json, image/svg+xml); default json'),

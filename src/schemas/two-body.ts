@@ -2,7 +2,7 @@
 import { TrackDiagnostics } from './track.js';
 import { z } from 'zod';
 import { SPEED_OF_LIGHT_KM_S } from '../solver/core/constants.js';
-import { DEMO_EPOCH, Epoch, EpochOut, ScenarioHash, Vec3 } from './common.js';
+import { DEMO_EPOCH, EpochOut, EpochText, refineEpochs, ScenarioHash, TimeSystemField, Vec3 } from './common.js';
 import { TimeGrid } from './grid.js';
 import { OrbitAnswer } from './orbit.js';
 
@@ -50,7 +50,8 @@ export const DEMO_TWO_BODY = {
 
 export const TwoBodyRequest = z
   .object({
-    epoch: Epoch.describe('Epoch of both states: ISO 8601 UTC timestamp ending in Z, years 1972-2199'),
+    epoch: EpochText.describe('Epoch of both states, in timeSystem (UTC by default: ISO 8601 ending in Z), years 1972-2199'),
+    timeSystem: TimeSystemField,
     frame: z.enum(['gcrf']).default('gcrf').describe('Inertial frame of both states: gcrf (J2000 equator and equinox)'),
     bodies: z.tuple([TwoBodyMember, TwoBodyMember]).describe('Exactly two bodies; the relative state is body 2 seen from body 1'),
     track: z
@@ -60,6 +61,7 @@ export const TwoBodyRequest = z
       .describe('Ask for both bodies\' tracks about the barycentre on this time grid (same grid options and MAX_TRACK_SAMPLES limit as /v1/track)'),
   })
   .strict()
+  .superRefine(refineEpochs(['epoch']))
   .meta({
     description: 'Two point masses (mass in kg or GM in km^3/s^2, position km, velocity km/s) in one inertial frame at one epoch',
     examples: [DEMO_TWO_BODY],

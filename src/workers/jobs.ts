@@ -6,7 +6,7 @@
 // whose bulk is Float64Array buffers that are transferred, not copied (toWire / fromWire).
 // Imports the solver only.
 
-import { gcrfToItrfBatch } from '../solver/earth/frames.js';
+import { gcrfToItrfBatch, type FrameOptions } from '../solver/earth/frames.js';
 import { geodeticBatch } from '../solver/earth/geodetic.js';
 import { eclipseCoarseStep, findEclipses, type EclipseSearchOptions, type EclipseSearchResult } from '../solver/light/eclipses.js';
 import { sunAvoidance, type SunAvoidance } from '../solver/light/sun-avoidance.js';
@@ -129,8 +129,8 @@ export function refusedBeforeWork(job: Job): Failure | undefined {
 export interface TrackJob {
   readonly kind: 'track';
   readonly input: TrackInput;
-  /** Also rotate the states to ITRF with this UT1 - UTC (s); null: inertial only. */
-  readonly earthFixed: { readonly dut1: number } | null;
+  /** Also rotate the states to ITRF with this Earth orientation (plain data: UT1 - UTC, an EOP table); null: inertial only. */
+  readonly earthFixed: FrameOptions | null;
   /** Also WGS-84 latitude, longitude (rad) and height (km) of the ITRF states; needs earthFixed. */
   readonly geodetic: boolean;
 }
@@ -220,7 +220,7 @@ function runTrack(job: TrackJob): Outcome<TrackJobResult> {
   if (job.geodetic && !job.earthFixed) throw new TypeError('a geodetic track needs earthFixed');
   const run = propagateTrack(job.input);
   if (!run.ok) return run;
-  const earthFixed = job.earthFixed ? gcrfToItrfBatch(run.value.epochsTT, run.value.states, { dut1: job.earthFixed.dut1 }) : null;
+  const earthFixed = job.earthFixed ? gcrfToItrfBatch(run.value.epochsTT, run.value.states, job.earthFixed) : null;
   const geodetic = job.geodetic && earthFixed ? geodeticBatch(earthFixed) : null;
   return success({ track: run.value, earthFixed, geodetic });
 }
