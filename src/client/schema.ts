@@ -786,23 +786,25 @@ export interface components {
              */
             moon?: boolean;
             state?: components["schemas"]["InitialState"];
-            /**
-             * @description UT1 - UTC, s (0 when not given): enters only the local time of the ascending node
-             * @default 0
-             */
+            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); enters only the local time of the ascending node */
             ut1MinusUtc?: number;
-            /** @description Search window (ISO 8601 UTC), stop after start, at most 31 days */
+            /** @description Search window (epochs in timeSystem, UTC by default), stop after start, at most 31 days */
             window: {
                 /**
-                 * @description Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table
+                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
                  * @example 2026-12-01T00:00:00Z
                  */
                 start: string;
                 /**
-                 * @description Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table
+                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
                  * @example 2026-12-01T00:00:00Z
                  */
                 stop: string;
+                /**
+                 * @description Time system of this part's epochs: UTC (default; epochs end in Z), TAI, TT or GPS (calendar text without a zone letter, e.g. 2026-12-01T00:01:09.184 TT; the day-of-year form 2026-335T00:00:00 is also read). Converted at the edge: the same instant in any system is the same scenario (one hash, one answer). Answers print UTC
+                 * @enum {string}
+                 */
+                timeSystem?: "UTC" | "TAI" | "TT" | "GPS";
             };
         };
         Elements: {
@@ -892,7 +894,7 @@ export interface components {
             /** @description Eccentricity e >= 0 (0 circular, < 1 elliptic, 1 parabolic, > 1 hyperbolic) */
             eccentricity: number;
             /**
-             * @description Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table
+             * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
              * @example 2026-12-01T00:00:00Z
              */
             epoch: string;
@@ -906,28 +908,38 @@ export interface components {
             semiLatusRectum?: number;
             /** @description Semi-major axis a, km: positive for ellipses, negative for hyperbolas, |a| <= 1000000000000; omit for a parabola (give semiLatusRectum) */
             semiMajorAxis?: number;
+            /**
+             * @description Time system of this part's epochs: UTC (default; epochs end in Z), TAI, TT or GPS (calendar text without a zone letter, e.g. 2026-12-01T00:01:09.184 TT; the day-of-year form 2026-335T00:00:00 is also read). Converted at the edge: the same instant in any system is the same scenario (one hash, one answer). Answers print UTC
+             * @enum {string}
+             */
+            timeSystem?: "UTC" | "TAI" | "TT" | "GPS";
             /** @description True anomaly, degrees (give this or meanAnomaly) */
             trueAnomaly?: number;
         };
         /** @description A Cartesian state at an epoch */
         InitialState: {
             /**
-             * @description Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table
+             * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
              * @example 2026-12-01T00:00:00Z
              */
             epoch: string;
             /**
-             * @description Frame of the state: gcrf (inertial, J2000 equator and equinox)
+             * @description Frame of the state: gcrf or icrf (inertial, the service's frame: ICRF axes, origin the centre of the body); eme2000 (J2000 mean equator and equinox: the IAU 2006 frame bias is applied, 23 mas); itrf (Earth-fixed, velocity relative to the rotating Earth as GNSS receivers give it; converted at the state's epoch with IAU 2006/2000B precession-nutation, UT1-UTC and, with EOP_FILE, polar motion; centralBody earth only)
              * @default gcrf
              * @enum {string}
              */
-            frame?: "gcrf";
+            frame?: "gcrf" | "icrf" | "eme2000" | "itrf";
             /** @description Position [x, y, z] in km, each component within +-1000000000000 */
             position: [
                 number,
                 number,
                 number
             ];
+            /**
+             * @description Time system of this part's epochs: UTC (default; epochs end in Z), TAI, TT or GPS (calendar text without a zone letter, e.g. 2026-12-01T00:01:09.184 TT; the day-of-year form 2026-335T00:00:00 is also read). Converted at the edge: the same instant in any system is the same scenario (one hash, one answer). Answers print UTC
+             * @enum {string}
+             */
+            timeSystem?: "UTC" | "TAI" | "TT" | "GPS";
             /** @description Velocity [vx, vy, vz] in km/s, each component below the speed of light */
             velocity: [
                 number,
@@ -1160,6 +1172,8 @@ export interface components {
              */
             format?: "json" | "svg";
             state?: components["schemas"]["InitialState"];
+            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); used only to bring an itrf state to gcrf */
+            ut1MinusUtc?: number;
         };
         Pass: {
             /**
@@ -1421,23 +1435,25 @@ export interface components {
              * @default -6
              */
             twilightLimit?: number;
-            /**
-             * @description UT1 - UTC, s (0 when not given: up to ~0.4 km of along-track error on the ground)
-             * @default 0
-             */
+            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); without either, 0 costs up to ~0.4 km of along-track error on the ground */
             ut1MinusUtc?: number;
-            /** @description Search window (ISO 8601 UTC), stop after start, at most 31 days */
+            /** @description Search window (epochs in timeSystem, UTC by default), stop after start, at most 31 days */
             window: {
                 /**
-                 * @description Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table
+                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
                  * @example 2026-12-01T00:00:00Z
                  */
                 start: string;
                 /**
-                 * @description Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table
+                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
                  * @example 2026-12-01T00:00:00Z
                  */
                 stop: string;
+                /**
+                 * @description Time system of this part's epochs: UTC (default; epochs end in Z), TAI, TT or GPS (calendar text without a zone letter, e.g. 2026-12-01T00:01:09.184 TT; the day-of-year form 2026-335T00:00:00 is also read). Converted at the edge: the same instant in any system is the same scenario (one hash, one answer). Answers print UTC
+                 * @enum {string}
+                 */
+                timeSystem?: "UTC" | "TAI" | "TT" | "GPS";
             };
         };
         /** @description One term of the potential energy U(r), chosen by kind */
@@ -1540,7 +1556,7 @@ export interface components {
         /** @description The sample epochs: a regular grid (start, stop, step) or a list (times) */
         TimeGrid: {
             /**
-             * @description First epoch of a regular grid (ISO 8601 UTC)
+             * @description First epoch of a regular grid (in timeSystem; UTC by default)
              * @example 2026-12-01T00:00:00Z
              */
             start?: string;
@@ -1551,8 +1567,13 @@ export interface components {
              * @example 2026-12-01T00:00:00Z
              */
             stop?: string;
-            /** @description Instead of start/stop/step: the epochs themselves, in any order */
+            /** @description Instead of start/stop/step: the epochs themselves (in timeSystem), in any order */
             times?: string[];
+            /**
+             * @description Time system of this part's epochs: UTC (default; epochs end in Z), TAI, TT or GPS (calendar text without a zone letter, e.g. 2026-12-01T00:01:09.184 TT; the day-of-year form 2026-335T00:00:00 is also read). Converted at the edge: the same instant in any system is the same scenario (one hash, one answer). Answers print UTC
+             * @enum {string}
+             */
+            timeSystem?: "UTC" | "TAI" | "TT" | "GPS";
         };
         TrackAnswer: {
             centralBody: {
@@ -1636,10 +1657,7 @@ export interface components {
              */
             passThroughBody?: boolean;
             state?: components["schemas"]["InitialState"];
-            /**
-             * @description UT1 - UTC, s (IERS Bulletin A); 0 when not given, which costs up to ~0.4 km along-track in Earth-fixed frames
-             * @default 0
-             */
+            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); without either, 0 costs up to ~0.4 km along-track in Earth-fixed frames */
             ut1MinusUtc?: number;
         };
         TrackSample: components["schemas"]["StateSample"] | components["schemas"]["GeodeticSample"];
@@ -1878,7 +1896,7 @@ export interface components {
                 components["schemas"]["TwoBodyMember"]
             ];
             /**
-             * @description Epoch of both states: ISO 8601 UTC timestamp ending in Z, years 1972-2199
+             * @description Epoch of both states, in timeSystem (UTC by default: ISO 8601 ending in Z), years 1972-2199
              * @example 2026-12-01T00:00:00Z
              */
             epoch: string;
@@ -1888,6 +1906,11 @@ export interface components {
              * @enum {string}
              */
             frame?: "gcrf";
+            /**
+             * @description Time system of this part's epochs: UTC (default; epochs end in Z), TAI, TT or GPS (calendar text without a zone letter, e.g. 2026-12-01T00:01:09.184 TT; the day-of-year form 2026-335T00:00:00 is also read). Converted at the edge: the same instant in any system is the same scenario (one hash, one answer). Answers print UTC
+             * @enum {string}
+             */
+            timeSystem?: "UTC" | "TAI" | "TT" | "GPS";
             /** @description Ask for both bodies' tracks about the barycentre on this time grid (same grid options and MAX_TRACK_SAMPLES limit as /v1/track) */
             track?: {
                 grid: components["schemas"]["TimeGrid"];
