@@ -74,6 +74,21 @@ describe('POST /v1/orbit, format svg', () => {
     expect(byClass(first.elements, 'periapsis').length).toBe(1);
     expect(byClass(first.elements, 'apoapsis').length).toBe(1);
   });
+
+  it('keeps the ascending-node label inside the plot box, off the tick labels, wherever the node points', async () => {
+    for (const argPeriapsis of [0, 90, 180, 270, 45]) {
+      const { elements } = await svgOf('/v1/orbit', { ...DEMO_ORBIT, elements: { ...DEMO_ORBIT.elements, argPeriapsis } });
+      const clipAt = elements.findIndex((e) => e.tag === 'clipPath' && e.attrs.id === 'orbit-area');
+      const [bx, by, bw, bh] = ['x', 'y', 'width', 'height'].map((k) => Number(elements[clipAt + 1]!.attrs[k]));
+      const label = one(elements, 'node-label').attrs;
+      const [x, y] = [Number(label.x), Number(label.y)];
+      expect(x >= bx! && x <= bx! + bw!, `argPeriapsis ${argPeriapsis}: x ${x}`).toBe(true);
+      expect(y >= by! + 12 && y <= by! + bh!, `argPeriapsis ${argPeriapsis}: y ${y}`).toBe(true);
+      // Text of 12 px runs about 90 px: toward the inside of the box when near a side (common practice, no source).
+      if (x > bx! + bw! - 110) expect(label['text-anchor']).toBe('end');
+      if (x < bx! + 110) expect(label['text-anchor']).toBe('start');
+    }
+  });
 });
 
 describe('POST /v1/track, format svg', () => {

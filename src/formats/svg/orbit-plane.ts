@@ -103,7 +103,17 @@ export function orbitPlanePanel(o: OrbitPlaneInput): Panel {
       const q = [rn * 1.12 * Math.cos(nodeAngle), rn * 1.12 * Math.sin(nodeAngle)] as const;
       const c = Math.cos(nodeAngle);
       const anchor = c > 0.3 ? 'start' : c < -0.3 ? 'end' : 'middle';
-      out.push(`<text x="${px(X(q))}" y="${px(Y(q) + (Math.sin(nodeAngle) < 0 ? 12 : -4))}" font-size="12" text-anchor="${anchor}">ascending node</text>`);
+      // Pulled back along the node's ray into the plot box, so the label never sits on the tick labels.
+      const cx = frame.x(0);
+      const cy = frame.y(0);
+      const dx = X(q) - cx;
+      const dy = Y(q) + (Math.sin(nodeAngle) < 0 ? 12 : -4) - cy;
+      const room = (d: number, low: number, high: number, from: number) => (d === 0 ? 1 : Math.max(0, ((d > 0 ? high : low) - from) / d));
+      const pull = Math.min(1, room(dx, box.left + 4, box.left + box.width - 4, cx), room(dy, box.top + 14, box.top + box.height - 6, cy));
+      const x = cx + dx * pull;
+      // Near a side of the box the text runs inward.
+      const inward = x > box.left + box.width - 110 ? 'end' : x < box.left + 110 ? 'start' : anchor;
+      out.push(`<text class="node-label" x="${px(x)}" y="${px(cy + dy * pull)}" font-size="12" text-anchor="${inward}">ascending node</text>`);
     }
   }
   const marks: string[] = [];
