@@ -1,7 +1,7 @@
 // Tracks between the API and the solver: the request -> the worker job, and the job's result ->
 // the product's inputs (the answer head, degrees for geodetic coordinates, OEM metadata).
 import type { CentralBody } from '../solver/bodies/bodies.js';
-import type { ConservationDrift } from '../solver/conic/universal.js';
+import type { Conservation } from '../solver/propagation/track.js';
 import { RAD } from '../solver/core/math.js';
 import type { Vec3 } from '../solver/core/vec3.js';
 import type { FrameOptions } from '../solver/earth/frames.js';
@@ -10,11 +10,16 @@ import type { TrackDiagnostics, TrackRequest } from '../schemas/track.js';
 import type { TrackNeeds, TrackFormat, TrackProductInput } from '../formats/track-output.js';
 import type { TrackJob, TrackJobResult } from '../workers/jobs.js';
 
-export const diagnosticsOf = (drift: ConservationDrift): TrackDiagnostics => ({
-  energyRelativeDrift: drift.energy,
-  energyDriftVsPotential: drift.energyVsPotential,
-  angularMomentumRelativeDrift: drift.angularMomentumVector,
-});
+/** The answer's diagnostics from a track's conservation report. */
+export function trackDiagnostics(c: Conservation): TrackDiagnostics {
+  return {
+    conservedQuantity: c.quantity,
+    meaning: c.meaning,
+    energyRelativeDrift: c.drift ? c.drift.energy : null,
+    energyDriftVsPotential: c.drift ? c.drift.energyVsPotential : null,
+    angularMomentumRelativeDrift: c.drift ? c.drift.angularMomentumVector : null,
+  };
+}
 
 /** The worker job of a validated track request (its grid buffer moves to the worker). */
 export function trackJob(req: TrackRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, epochsTT: Float64Array, needs: TrackNeeds, frame: FrameOptions): TrackJob {
@@ -53,7 +58,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
       object: req.object,
       sampleCount: inertial.epochsTT.length,
       // Conservation is checked on the inertial states, whatever the output frame.
-      diagnostics: diagnosticsOf(inertial.drift),
+      diagnostics: trackDiagnostics(inertial.conservation),
     },
     object: req.object,
     oem: {

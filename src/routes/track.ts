@@ -18,7 +18,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
     schema: {
       tags: ['orbits'],
       operationId: 'propagateTrack', summary: 'Propagate an orbit over a time grid (JSON, CSV, CCSDS OEM, GeoJSON ground track or SVG ground-track map)',
-      description: 'Samples the orbit at each epoch of the grid with the chosen model and reports conservation diagnostics. ' +
+      description: 'Samples the orbit at each epoch of the grid with the chosen model and reports, in diagnostics, the drift of the integrals its dynamics conserve (none for drag, third bodies and radiation pressure). ' +
         `Answers stream; at most MAX_TRACK_SAMPLES samples (default 100000), beyond that a 422 names the maximum. ` +
         'Accuracy degrades with the propagation span and the model chosen: two-body ignores every perturbation.',
       body: TrackRequest,

@@ -7,7 +7,7 @@ import { assertPrintable, type TrackTable } from '../formats/track-table.js';
 import { epochTT as toEpochTT, utcEpochs } from '../api/epoch.js';
 import { assertFinite, assertFiniteTable } from '../api/finite.js';
 import { gridEpochs } from '../api/grid.js';
-import { diagnosticsOf } from '../api/track.js';
+import { trackDiagnostics } from '../api/track.js';
 import { relativeCentralBody, toTwoBodyAnswer, trackNames, twoBodySolverInput } from '../api/two-body.js';
 import { problemResponses } from '../schemas/common.js';
 import { TwoBodyAnswer, TwoBodyRequest, type TwoBodyTracks } from '../schemas/two-body.js';
@@ -73,13 +73,12 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
         assertFiniteTable(body2.states, STATE_COLUMNS, 'answer.tracks.bodies.1.samples');
         assertPrintable(body1.states);
         assertPrintable(body2.states);
-        const { drift } = relative;
         tracks = {
           head: {
             origin: 'barycenter',
             frame: req.frame,
             sampleCount: epochsTT.length,
-            diagnostics: diagnosticsOf(drift),
+            diagnostics: trackDiagnostics(relative.conservation),
           },
           names: trackNames(req),
           tables: [body1, body2],

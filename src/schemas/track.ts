@@ -61,11 +61,16 @@ export const GeodeticSample = z.object({
 })
   .meta({ id: 'GeodeticSample' });
 
-/** Drift of the two-body integrals across a track's inertial samples (for perturbed models it measures the perturbation, not an error). */
+/** Drift of the model's conserved quantities across a track's inertial samples (GCRF, whatever the output frame). */
 export const TrackDiagnostics = z.object({
-  energyRelativeDrift: z.number().describe('max |E_k - E_0| / |E_0| of the specific (two-body) energy across the samples'),
-  energyDriftVsPotential: z.number().describe('max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0'),
-  angularMomentumRelativeDrift: z.number().describe('max |h_k - h_0| / |h_0| (vector) across the samples'),
+  conservedQuantity: z.enum(['two-body', 'j2', 'none']).describe(
+    'What the model\'s dynamics conserve. two-body (models two-body, numerical without forces): the specific energy E = v^2/2 - mu/r and the angular momentum vector h = r x v. ' +
+    'j2 (numerical with J2 only, j2-secular, j2-analytic): the J2 energy integral E = v^2/2 - mu/r + mu J2 R^2 (3 z^2/r^2 - 1) / (2 r^3) and the angular momentum about the spin axis, h.k (z = r.k, k the axis J2 acts about in that model). ' +
+    'none (numerical with drag, a third body or radiation pressure, which change energy and angular momentum; ephemeris): nothing is checked and the drifts are null'),
+  meaning: z.string().describe('One sentence: what the drifts measure for this model (rounding, integration error, or the terms an analytic model leaves out), or why there are none'),
+  energyRelativeDrift: z.number().nullable().describe('max |E_k - E_0| / |E_0| of the conserved energy of conservedQuantity across the samples; null when none'),
+  energyDriftVsPotential: z.number().nullable().describe('max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0; null when none'),
+  angularMomentumRelativeDrift: z.number().nullable().describe('max |h_k - h_0| / |h_0|: the vector for two-body, the axial component h.k (over |h_0|) for j2; null when none'),
 })
   .meta({ id: 'TrackDiagnostics' });
 

@@ -185,3 +185,18 @@ describe('POST /v1/track in Earth-fixed frames', () => {
     expect(oem.statusCode).toBe(422);
   });
 });
+
+describe('POST /v1/track diagnostics: the conserved quantity of the model', () => {
+  const day = { grid: { start: EPOCH, stop: '2026-12-02T00:00:00Z', step: 600 } };
+  it('numerical J2 reports the J2 energy integral at integration error (the two-body energy it printed before swung by ~1e-3), drag reports none', async () => {
+    const j2 = (await postJson(app, '/v1/track', { ...demo, ...day, model: 'numerical', forces: [{ kind: 'j2' }] })).json();
+    expect(j2.diagnostics.conservedQuantity).toBe('j2');
+    expect(j2.diagnostics.energyRelativeDrift).toBeLessThan(1e-9);
+    expect(j2.diagnostics.meaning).toMatch(/integration error/);
+    const drag = (await postJson(app, '/v1/track', { ...demo, ...day, model: 'numerical', forces: [{ kind: 'j2' }, { kind: 'drag', ballisticCoefficient: 100 }] })).json();
+    expect(drag.diagnostics).toMatchObject({ conservedQuantity: 'none', energyRelativeDrift: null, energyDriftVsPotential: null, angularMomentumRelativeDrift: null });
+    expect(drag.diagnostics.meaning).toMatch(/drag/);
+    const kepler = (await postJson(app, '/v1/track', { ...demo, ...day })).json();
+    expect(kepler.diagnostics.conservedQuantity).toBe('two-body');
+  });
+});

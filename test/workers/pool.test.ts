@@ -85,7 +85,7 @@ describe('SolverPool.inWorker gives the numbers of the inline solver', () => {
     expect(job.input.epochsTT.length).toBe(0);
     expect(pooled.value.track.epochsTT).toEqual(grid(5000, 10));
     expect(pooled.value.track.states).toEqual(direct.value.states);
-    expect(pooled.value.track.drift).toEqual(direct.value.drift);
+    expect(pooled.value.track.conservation).toEqual(direct.value.conservation);
     expect(pooled.value.earthFixed).toEqual(itrf);
     expect(pooled.value.geodetic).toEqual(geodeticBatch(itrf));
   });

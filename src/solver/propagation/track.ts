@@ -1,5 +1,6 @@
 // A track: the orbit propagated to many epochs with a chosen model (propagator.ts), as flat typed
-// arrays, with the drift of the two-body integrals and the check that it stays above the surface.
+// arrays, with the drift of the model's conserved quantities and the check that it stays above the
+// surface.
 
 import { isClosed, stateToElements } from '../conic/elements.js';
 import { TWO_PI } from '../core/math.js';
@@ -7,6 +8,8 @@ import { failure, success, type Outcome } from '../core/result.js';
 import { ephemerisStates, type InterpolationReport } from './ephemeris.js';
 import { MODELS, statesAt, type PropagationSpec } from './propagator.js';
 import { conservationDrift, type ConservationDrift } from '../conic/universal.js';
+import type { Vec3 } from '../core/vec3.js';
+import { bodySpinAxis, spanMiddle } from './numerical.js';
 
 export const TRACK_MODELS = MODELS;
 
@@ -21,7 +24,8 @@ export interface Track {
   readonly epochsTT: Float64Array;
   /** x, y, z (km), vx, vy, vz (km/s) per sample, GCRF. */
   readonly states: Float64Array;
-  readonly drift: ConservationDrift;
+  /** What the model conserves and how far the samples drift from it (see Conservation). */
+  readonly conservation: Conservation;
   /** The ephemeris model: how it interpolated and its error estimate (absent for the other models). */
   readonly interpolation?: InterpolationReport;
 }
@@ -45,8 +49,78 @@ export function propagateTrack(input: TrackInput): Outcome<Track> {
     const hit = surfaceCrossing(input, states);
     if (hit) return hit;
   }
-  const drift = conservationDrift({ states }, body.gm);
-  return success(interpolation ? { epochsTT, states, drift, interpolation } : { epochsTT, states, drift });
+  const conservation = conservationOf(input, states);
+  return success(interpolation ? { epochsTT, states, conservation, interpolation } : { epochsTT, states, conservation });
+}
+
+/**
+ * The integrals of the motion a model's dynamics conserve:
+ * - 'two-body': energy v^2/2 - mu/r and the angular momentum vector r x v (two-body gravity);
+ * - 'j2': the J2 energy integral v^2/2 - mu/r + mu J2 R^2 (3 z^2/r^2 - 1) / (2 r^3) and the
+ *   angular momentum about the spin axis, (r x v).k, z = r.k (J2-only gravity is static and
+ *   symmetric about k; Vallado 4th ed. sec. 8.6.1 for the potential, from memory);
+ * - 'none': drag, third bodies and radiation pressure change the energy and the angular momentum
+ *   (and an ephemeris has no dynamics of its own), so there is nothing to check.
+ */
+export type ConservedQuantity = 'two-body' | 'j2' | 'none';
+
+export interface Conservation {
+  readonly quantity: ConservedQuantity;
+  /** Drift across the samples relative to the first (null for 'none'); for 'j2' angularMomentum is the axial component's. */
+  readonly drift: ConservationDrift | null;
+  /** What the drift measures for this model, or why there is none. */
+  readonly meaning: string;
+}
+
+function conservationOf(input: TrackInput, states: Float64Array): Conservation {
+  const { body, model } = input;
+  const forces = input.forces ?? [];
+  if (model === 'ephemeris') return { quantity: 'none', drift: null, meaning: 'interpolated from the given ephemeris: no dynamics of the service\'s own to conserve anything' };
+  if (model === 'two-body') return { quantity: 'two-body', drift: conservationDrift({ states }, body.gm), meaning: 'exact invariants of Keplerian motion: the drift is rounding' };
+  if (model === 'numerical' && forces.length === 0) {
+    return { quantity: 'two-body', drift: conservationDrift({ states }, body.gm), meaning: 'conserved by two-body gravity: the drift is integration error' };
+  }
+  if (model === 'numerical' && forces.some((f) => f.kind !== 'j2')) {
+    const kinds = [...new Set(forces.filter((f) => f.kind !== 'j2').map((f) => f.kind))].join(', ');
+    return { quantity: 'none', drift: null, meaning: `no conserved quantity: ${kinds} change the orbital energy and angular momentum, so no drift is reported` };
+  }
+  // J2-only dynamics: numerical with J2, j2-secular (about the z axis) and j2-analytic (about the numerical model's axis).
+  const axis: Vec3 = model === 'j2-secular' ? [0, 0, 1] : bodySpinAxis(body, spanMiddle(input.epochTT, input.epochsTT));
+  const drift = j2IntegralsDrift(states, body.gm, body.j2!, body.radius!, axis);
+  return {
+    quantity: 'j2',
+    drift,
+    meaning: model === 'numerical'
+      ? 'conserved by J2-only gravity: the drift is integration error'
+      : `integrals of J2-only gravity, which the ${model} model approximates: the drift measures the terms it leaves out (${model === 'j2-secular' ? 'the short-period terms' : 'second-order terms'}), not an integration error`,
+  };
+}
+
+/** Drift of the J2 energy integral and of the axial angular momentum across a table of states (see ConservedQuantity). */
+export function j2IntegralsDrift(s: Float64Array, mu: number, j2: number, radius: number, k: Vec3): ConservationDrift {
+  const n = Math.floor(s.length / 6);
+  if (n === 0) return { energy: 0, energyVsPotential: 0, angularMomentum: 0, angularMomentumVector: 0 };
+  const c = mu * j2 * radius * radius;
+  const energyAt = (o: number): number => {
+    const r2 = s[o]! ** 2 + s[o + 1]! ** 2 + s[o + 2]! ** 2;
+    const r = Math.sqrt(r2);
+    const z = s[o]! * k[0] + s[o + 1]! * k[1] + s[o + 2]! * k[2];
+    return 0.5 * (s[o + 3]! ** 2 + s[o + 4]! ** 2 + s[o + 5]! ** 2) - mu / r + (c * (3 * (z * z) / r2 - 1)) / (2 * r2 * r);
+  };
+  const axialAt = (o: number): number =>
+    (s[o + 1]! * s[o + 5]! - s[o + 2]! * s[o + 4]!) * k[0] + (s[o + 2]! * s[o + 3]! - s[o]! * s[o + 5]!) * k[1] + (s[o]! * s[o + 4]! - s[o + 1]! * s[o + 3]!) * k[2];
+  const e0 = energyAt(0);
+  const hz0 = axialAt(0);
+  const h0 = Math.hypot(s[1]! * s[5]! - s[2]! * s[4]!, s[2]! * s[3]! - s[0]! * s[5]!, s[0]! * s[4]! - s[1]! * s[3]!);
+  let de = 0;
+  let dh = 0;
+  for (let o = 6; o < 6 * n; o += 6) {
+    de = Math.max(de, Math.abs(energyAt(o) - e0));
+    dh = Math.max(dh, Math.abs(axialAt(o) - hz0));
+  }
+  const potential0 = mu / Math.hypot(s[0]!, s[1]!, s[2]!);
+  const dhRel = dh === 0 ? 0 : dh / h0;
+  return { energy: de === 0 ? 0 : de / Math.abs(e0), energyVsPotential: de / potential0, angularMomentum: dhRel, angularMomentumVector: dhRel };
 }
 
 /**
