@@ -341,7 +341,7 @@ export interface paths {
         put?: never;
         /**
          * Propagate an orbit over a time grid (JSON, CSV, CCSDS OEM, GeoJSON ground track or SVG ground-track map)
-         * @description Samples the orbit at each epoch of the grid with the chosen model and reports conservation diagnostics. Answers stream; at most MAX_TRACK_SAMPLES samples (default 100000), beyond that a 422 names the maximum. Accuracy degrades with the propagation span and the model chosen: two-body ignores every perturbation.
+         * @description Samples the orbit at each epoch of the grid with the chosen model and reports, in diagnostics, the drift of the integrals its dynamics conserve (none for drag, third bodies and radiation pressure). Answers stream; at most MAX_TRACK_SAMPLES samples (default 100000), beyond that a 422 names the maximum. Accuracy degrades with the propagation span and the model chosen: two-body ignores every perturbation.
          */
         post: operations["propagateTrack"];
         delete?: never;
@@ -1598,12 +1598,19 @@ export interface components {
             scenarioHash: string;
         };
         TrackDiagnostics: {
-            /** @description max |h_k - h_0| / |h_0| (vector) across the samples */
-            angularMomentumRelativeDrift: number;
-            /** @description max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0 */
-            energyDriftVsPotential: number;
-            /** @description max |E_k - E_0| / |E_0| of the specific (two-body) energy across the samples */
-            energyRelativeDrift: number;
+            /** @description max |h_k - h_0| / |h_0|: the vector for two-body, the axial component h.k (over |h_0|) for j2; null when none */
+            angularMomentumRelativeDrift: number | null;
+            /**
+             * @description What the model's dynamics conserve. two-body (models two-body, numerical without forces): the specific energy E = v^2/2 - mu/r and the angular momentum vector h = r x v. j2 (numerical with J2 only, j2-secular, j2-analytic): the J2 energy integral E = v^2/2 - mu/r + mu J2 R^2 (3 z^2/r^2 - 1) / (2 r^3) and the angular momentum about the spin axis, h.k (z = r.k, k the axis J2 acts about in that model). none (numerical with drag, a third body or radiation pressure, which change energy and angular momentum; ephemeris): nothing is checked and the drifts are null
+             * @enum {string}
+             */
+            conservedQuantity: "two-body" | "j2" | "none";
+            /** @description max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0; null when none */
+            energyDriftVsPotential: number | null;
+            /** @description max |E_k - E_0| / |E_0| of the conserved energy of conservedQuantity across the samples; null when none */
+            energyRelativeDrift: number | null;
+            /** @description One sentence: what the drifts measure for this model (rounding, integration error, or the terms an analytic model leaves out), or why there are none */
+            meaning: string;
         };
         /** @description An orbit and a time grid */
         TrackRequest: {
