@@ -1,6 +1,7 @@
 // What changed between two runs of the same items (POST /v1/jobs with compareTo): item by item,
-// matched by item id, for pass items the passes per station that appeared, vanished or moved, and
-// for track items the largest position difference at the sample epochs both tracks share.
+// matched by item id, for pass items the passes per station that appeared, vanished or moved, for
+// eclipse items the eclipses per shadow (Earth, Moon) likewise, and for track items the largest
+// position difference at the sample epochs both tracks share.
 import type { CompareTo } from './queue.js';
 
 interface PassLike {
@@ -40,24 +41,43 @@ export interface StationChanges {
 const summary = (p: PassLike): PassLike => ({ station: p.station, aos: p.aos, tca: p.tca, los: p.los, maxElevation: p.maxElevation });
 const ms = (iso: string) => Date.parse(iso);
 
+/** An interval of time to pair: [start, stop] and the instant that stands for it, ms. */
+interface Span { readonly start: number; readonly stop: number; readonly centre: number }
+
+/**
+ * Pairs two lists of intervals: each later interval with the earlier one of nearest centre that
+ * overlaps it (each earlier one used once); the unpaired later ones appeared, the earlier vanished.
+ */
+export function pairIntervals<T>(before: readonly T[], after: readonly T[], span: (t: T) => Span): { pairs: [T, T][]; appeared: T[]; vanished: T[] } {
+  const used = new Set<number>();
+  const pairs: [T, T][] = [];
+  const appeared: T[] = [];
+  const old = before.map(span);
+  for (const next of after) {
+    const n = span(next);
+    let best = -1;
+    for (let i = 0; i < old.length; i++) {
+      const o = old[i]!;
+      if (used.has(i) || n.start > o.stop || o.start > n.stop) continue;
+      if (best < 0 || Math.abs(o.centre - n.centre) < Math.abs(old[best]!.centre - n.centre)) best = i;
+    }
+    if (best < 0) { appeared.push(next); continue; }
+    used.add(best);
+    pairs.push([before[best]!, next]);
+  }
+  return { pairs, appeared, vanished: before.filter((_, i) => !used.has(i)) };
+}
+
+const passSpan = (p: PassLike): Span => ({ start: ms(p.aos), stop: ms(p.los), centre: ms(p.tca) });
+
 /**
  * Pairs the passes of one station: each later pass with the earlier pass of nearest TCA whose
  * visibility interval overlaps it (each earlier pass used once); unpaired ones appeared or vanished.
  */
 export function stationChanges(station: string, before: readonly PassLike[], after: readonly PassLike[], limits: Pick<CompareTo, 'thresholdSeconds' | 'thresholdDegrees'>): StationChanges {
-  const used = new Set<number>();
-  const appeared: PassLike[] = [];
+  const { pairs, appeared, vanished } = pairIntervals(before, after, passSpan);
   const moved: PassMove[] = [];
-  for (const next of after) {
-    let best = -1;
-    for (let i = 0; i < before.length; i++) {
-      const old = before[i]!;
-      if (used.has(i) || ms(next.aos) > ms(old.los) || ms(old.aos) > ms(next.los)) continue;
-      if (best < 0 || Math.abs(ms(old.tca) - ms(next.tca)) < Math.abs(ms(before[best]!.tca) - ms(next.tca))) best = i;
-    }
-    if (best < 0) { appeared.push(summary(next)); continue; }
-    used.add(best);
-    const old = before[best]!;
+  for (const [old, next] of pairs) {
     const move: PassMove = {
       before: summary(old), after: summary(next),
       deltaAosS: (ms(next.aos) - ms(old.aos)) / 1000,
@@ -68,16 +88,66 @@ export function stationChanges(station: string, before: readonly PassLike[], aft
     const seconds = Math.max(Math.abs(move.deltaAosS), Math.abs(move.deltaTcaS), Math.abs(move.deltaLosS));
     if (seconds > limits.thresholdSeconds || Math.abs(move.deltaMaxElevationDeg) > limits.thresholdDegrees) moved.push(move);
   }
-  const vanished = before.filter((_, i) => !used.has(i)).map(summary);
-  return { station, appeared, vanished, moved };
+  return { station, appeared: appeared.map(summary), vanished: vanished.map(summary), moved };
 }
 
-const passesOf = (answer: unknown): PassLike[] =>
-  (answer !== null && typeof answer === 'object' && Array.isArray((answer as { passes?: unknown }).passes) ? (answer as { passes: PassLike[] }).passes : []);
+interface EclipseLike {
+  readonly start: string;
+  readonly stop: string;
+  readonly umbraStart: string | null;
+  readonly umbraStop: string | null;
+  readonly depth: number;
+}
+
+export interface EclipseMove {
+  readonly before: EclipseLike;
+  readonly after: EclipseLike;
+  /** after - before, s (penumbra entry and exit; umbra entry and exit, null unless both reach the umbra). */
+  readonly deltaStartS: number;
+  readonly deltaStopS: number;
+  readonly deltaUmbraStartS: number | null;
+  readonly deltaUmbraStopS: number | null;
+}
+
+export interface ShadowChanges {
+  readonly shadow: 'earth' | 'moon';
+  readonly appeared: EclipseLike[];
+  readonly vanished: EclipseLike[];
+  readonly moved: EclipseMove[];
+}
+
+const eclipseSummary = (e: EclipseLike): EclipseLike => ({ start: e.start, stop: e.stop, umbraStart: e.umbraStart, umbraStop: e.umbraStop, depth: e.depth });
+const eclipseSpan = (e: EclipseLike): Span => ({ start: ms(e.start), stop: ms(e.stop), centre: (ms(e.start) + ms(e.stop)) / 2 });
+const delta = (after: string | null, before: string | null) => (after === null || before === null ? null : (ms(after) - ms(before)) / 1000);
+
+/** The eclipses of one shadow paired like passes; moved when an entry or exit moved by more than thresholdSeconds, or one reaches the umbra and the other not. */
+export function shadowChanges(shadow: 'earth' | 'moon', before: readonly EclipseLike[], after: readonly EclipseLike[], limits: Pick<CompareTo, 'thresholdSeconds'>): ShadowChanges {
+  const { pairs, appeared, vanished } = pairIntervals(before, after, eclipseSpan);
+  const moved: EclipseMove[] = [];
+  for (const [old, next] of pairs) {
+    const move: EclipseMove = {
+      before: eclipseSummary(old), after: eclipseSummary(next),
+      deltaStartS: (ms(next.start) - ms(old.start)) / 1000,
+      deltaStopS: (ms(next.stop) - ms(old.stop)) / 1000,
+      deltaUmbraStartS: delta(next.umbraStart, old.umbraStart),
+      deltaUmbraStopS: delta(next.umbraStop, old.umbraStop),
+    };
+    const umbraChanged = (old.umbraStart === null) !== (next.umbraStart === null);
+    const seconds = Math.max(...[move.deltaStartS, move.deltaStopS, move.deltaUmbraStartS ?? 0, move.deltaUmbraStopS ?? 0].map(Math.abs));
+    if (umbraChanged || seconds > limits.thresholdSeconds) moved.push(move);
+  }
+  return { shadow, appeared: appeared.map(eclipseSummary), vanished: vanished.map(eclipseSummary), moved };
+}
+
+const listOf = <T>(answer: unknown, key: string): T[] => {
+  const value = answer !== null && typeof answer === 'object' ? (answer as Record<string, unknown>)[key] : undefined;
+  return Array.isArray(value) ? (value as T[]) : [];
+};
+
+const passesOf = (answer: unknown): PassLike[] => listOf<PassLike>(answer, 'passes');
 
 interface SampleLike { readonly epoch: string; readonly position?: readonly number[] }
-const samplesOf = (answer: unknown): SampleLike[] =>
-  (answer !== null && typeof answer === 'object' && Array.isArray((answer as { samples?: unknown }).samples) ? (answer as { samples: SampleLike[] }).samples : []);
+const samplesOf = (answer: unknown): SampleLike[] => listOf<SampleLike>(answer, 'samples');
 
 /** The changes line of one item: `before` is the earlier job's line of the same item id (undefined when it had none). */
 export function itemChanges(after: Line, before: Line | undefined, limits: CompareTo): Record<string, unknown> {
@@ -100,6 +170,15 @@ export function itemChanges(after: Line, before: Line | undefined, limits: Compa
       .filter((c) => c.appeared.length + c.vanished.length + c.moved.length > 0);
     return { ...head, change: stations.length > 0 ? 'passes' : 'unchanged', thresholdSeconds: limits.thresholdSeconds, thresholdDegrees: limits.thresholdDegrees, stations };
   }
+  if (after.kind === 'eclipses') {
+    const shadows = (['earth', 'moon'] as const)
+      .map((shadow) => {
+        const key = shadow === 'earth' ? 'eclipses' : 'moonEclipses';
+        return shadowChanges(shadow, listOf<EclipseLike>(before.answer, key), listOf<EclipseLike>(after.answer, key), limits);
+      })
+      .filter((c) => c.appeared.length + c.vanished.length + c.moved.length > 0);
+    return { ...head, change: shadows.length > 0 ? 'eclipses' : 'unchanged', thresholdSeconds: limits.thresholdSeconds, shadows };
+  }
   if (after.kind === 'track') {
     const earlier = new Map(samplesOf(before.answer).map((s) => [s.epoch, s.position]));
     let common = 0;
@@ -114,7 +193,7 @@ export function itemChanges(after: Line, before: Line | undefined, limits: Compa
     }
     return { ...head, change: 'track', commonSamples: common, maxPositionDifferenceKm: at === null ? null : largest, atEpoch: at };
   }
-  return { ...head, change: 'not-compared', reason: `changes are listed for passes and track items; ${after.kind} items are not compared` };
+  return { ...head, change: 'not-compared', reason: `changes are listed for passes, eclipses and track items; ${after.kind} items are not compared` };
 }
 
 /** The item id of a stored line, read from its head (the line starts {"index":N,"id":...,"kind"). */

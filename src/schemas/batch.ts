@@ -79,7 +79,7 @@ export const JobRequest = z
     items: itemsField,
     deadline: z.iso.datetime({ offset: false }).optional().describe('ISO 8601 UTC: a job not done by then stops and fails with the reason "deadline" (the lines written stay readable by index); at most JOB_MAX_DEADLINE_S ahead'),
     compareTo: z.string().min(1).max(100).optional().describe('The id of an earlier job of yours: GET /v1/jobs/{id}/changes then lists, item by item (matched by item id), what moved since that job'),
-    thresholdSeconds: z.number().min(0).max(86_400).default(1).describe('With compareTo: a pass whose AOS, LOS or TCA moved by more than this, seconds, is reported as moved'),
+    thresholdSeconds: z.number().min(0).max(86_400).default(1).describe('With compareTo: a pass whose AOS, LOS or TCA, or an eclipse whose entry or exit (penumbra or umbra), moved by more than this, seconds, is reported as moved'),
     thresholdDegrees: z.number().min(0).max(90).default(0.1).describe('With compareTo: a pass whose maximum elevation changed by more than this, degrees, is reported as moved'),
     callbackUrl: z.string().min(1).max(2000).optional().describe(
       'http(s) URL: once the job is done, failed or cancelled, its status (the answer of GET /v1/jobs/{id}) is POSTed there as JSON, ' +

@@ -171,6 +171,42 @@ describe('what changed (compareTo)', () => {
     expect(largest).toBeGreaterThan(0.1);
   });
 
+  it('lists the eclipses that moved by more than thresholdSeconds, as the test pairs them', async () => {
+    interface E { start: string; stop: string; umbraStart: string | null; umbraStop: string | null }
+    const a = DEMO_ORBIT.elements.semiMajorAxis;
+    const eclipseItem = (semiMajorAxis: number) => [{ id: 'plover-7-shadow', kind: 'eclipses', request: { ...DEMO_ORBIT, elements: { ...DEMO_ORBIT.elements, semiMajorAxis }, window } }];
+    const yesterday = await submit({ items: eclipseItem(a) });
+    await until('first done', async () => (await status(yesterday)).status === 'done');
+    const thresholdSeconds = 2;
+    const today = await submit({ items: eclipseItem(a + 0.5), compareTo: yesterday, thresholdSeconds });
+    await until('second done', async () => (await status(today)).status === 'done');
+    const [old, next] = (await Promise.all([yesterday, today].map(async (id) => parseLines((await app.inject({ url: `/v1/jobs/${id}/results` })).rawPayload)))) as [BatchLine[], BatchLine[]];
+    const [line] = rawLines((await app.inject({ url: `/v1/jobs/${today}/changes` })).rawPayload).map((l) => JSON.parse(l.toString()));
+    expect(line).toMatchObject({ index: 0, id: 'plover-7-shadow', kind: 'eclipses', change: 'eclipses', thresholdSeconds });
+
+    // Pair each new eclipse with the one of the day before whose interval overlaps it; moved when
+    // an entry or exit (penumbra or umbra) differs by more than the threshold.
+    const before = (old[0]!.answer as { eclipses: E[] }).eclipses;
+    const after = (next[0]!.answer as { eclipses: E[] }).eclipses;
+    const t = (s: string | null) => (s === null ? 0 : Date.parse(s) / 1000);
+    const expected: string[] = [];
+    for (const e of after) {
+      const q = before.filter((o) => t(o.start) <= t(e.stop) && t(e.start) <= t(o.stop));
+      expect(q, `one eclipse the day before overlaps ${e.start}`).toHaveLength(1);
+      const d = Math.max(...(['start', 'stop', 'umbraStart', 'umbraStop'] as const).map((k) => Math.abs(t(e[k]) - t(q[0]![k]))));
+      if (d > thresholdSeconds) expected.push(e.start);
+    }
+    const earth = line.shadows.find((c: { shadow: string }) => c.shadow === 'earth');
+    expect(earth.appeared).toEqual([]);
+    expect(earth.vanished).toEqual([]);
+    expect(earth.moved.map((m: { after: E }) => m.after.start)).toEqual(expected);
+    expect(expected.length, 'some eclipses moved more than the threshold').toBeGreaterThan(0);
+    expect(expected.length, 'and some less').toBeLessThan(after.length);
+    const first = earth.moved[0];
+    const pair = before.find((o) => t(o.start) <= t(first.after.stop) && t(first.after.start) <= t(o.stop))!;
+    expect(first.deltaStartS).toBeCloseTo(t(first.after.start) - t(pair.start), 3);
+  });
+
   it('compareTo an unknown job is 422 job-not-comparable; changes of a job without compareTo too', async () => {
     const res = await postJson(app, '/v1/jobs', { items: many(1), compareTo: randomUUID() });
     expect(res.statusCode).toBe(422);
