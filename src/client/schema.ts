@@ -1048,7 +1048,7 @@ export interface components {
              */
             thresholdDegrees?: number;
             /**
-             * @description With compareTo: a pass whose AOS, LOS or TCA moved by more than this, seconds, is reported as moved
+             * @description With compareTo: a pass whose AOS, LOS or TCA, or an eclipse whose entry or exit (penumbra or umbra), moved by more than this, seconds, is reported as moved
              * @default 1
              */
             thresholdSeconds?: number;
