@@ -2,6 +2,7 @@
 // Prints a table and the machine it ran on. Not a test: figures vary with the machine's load.
 import { cpus, totalmem } from 'node:os';
 import type { BenchResult } from './types.js';
+import { benchCachedOrbit } from './cached-orbit.js';
 import { benchEclipses } from './eclipses.js';
 import { benchFrames } from './frames.js';
 import { benchJobs } from './jobs.js';
@@ -15,6 +16,7 @@ const suites: Array<[string, () => Promise<BenchResult[]>]> = [
   ['kepler', benchKepler],
   ['track-kernel', benchTrackKernel],
   ['track-http', benchTrackHttp],
+  ['cached-orbit', benchCachedOrbit],
   ['passes', benchPasses],
   ['eclipses', benchEclipses],
   ['frames', benchFrames],

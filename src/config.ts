@@ -10,6 +10,7 @@ export const Config = z.object({
   HOST: z.string().min(1).default('127.0.0.1').describe('Address to bind (0.0.0.0 in containers)'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   CACHE_MAX_BYTES: int(64 * 1024 * 1024, 0, 16 * 1024 ** 3).describe('Bound of the in-process answer cache, bytes (0 disables it)'),
+  REQUEST_MEMO_MAX_BYTES: int(8 * 1024 * 1024, 0, 1024 ** 3).describe('Bound of the request memo (exact request bytes -> scenario hash, so a repeated request is answered from the cache before validation), bytes (0 disables it)'),
   BODY_LIMIT_BYTES: int(1024 * 1024, 1024, 64 * 1024 * 1024).describe('Largest accepted request body, bytes'),
   MAX_TRACK_SAMPLES: int(100_000, 1, 10_000_000).describe('Largest number of samples in one track'),
   WORKER_THREADS: int(Math.max(1, availableParallelism() - 1), 1, 256).describe('Solver worker threads for heavy jobs (default: available parallelism minus one, at least 1)'),

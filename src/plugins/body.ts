@@ -95,6 +95,8 @@ export default fp(async function body(app: FastifyInstance) {
   const bodyTimeoutMs = app.config.BODY_TIMEOUT_S * 1000;
   const parseJson = app.getDefaultJsonParser('error', 'error');
 
+  // The body text as received, for the request memo (src/plugins/memo.ts) once it parsed cleanly.
+  app.decorateRequest('bodyText', null);
   app.removeContentTypeParser('application/json');
   app.addContentTypeParser('application/json', { parseAs: 'string' }, (request, text, done) => {
     const json = text as string;
@@ -111,6 +113,7 @@ export default fp(async function body(app: FastifyInstance) {
           return done(new ProblemError('validation-failed', `The request does not match the schema: text with a lone UTF-16 surrogate at ${summary}`, { errors }), undefined);
         }
       }
+      request.bodyText = json;
       done(null, value);
     });
   });
@@ -134,3 +137,10 @@ export default fp(async function body(app: FastifyInstance) {
     return payload;
   });
 }, { name: 'body' });
+
+declare module 'fastify' {
+  interface FastifyRequest {
+    /** The JSON body's text when it parsed cleanly (null otherwise). */
+    bodyText: string | null;
+  }
+}
