@@ -49,6 +49,7 @@ export const SCENARIOS: Record<string, Sent> = {
   'track geojson': post('/v1/track', { ...DEMO_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T03:00:00Z', step: 30 }, format: 'geojson' }),
   'track svg': post('/v1/track', { ...DEMO_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T03:00:00Z', step: 30 }, format: 'svg' }),
   'track j2-secular csv': post('/v1/track', { ...DEMO_ORBIT, grid: TRACK_GRID, model: 'j2-secular', format: 'csv' }),
+  'track j2-analytic json': post('/v1/track', { ...DEMO_ORBIT, grid: TRACK_GRID, model: 'j2-analytic' }),
   'track numerical j2 drag json': post('/v1/track', { ...DEMO_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T00:30:00Z', step: 120 }, model: 'numerical', forces: [{ kind: 'j2' }, { kind: 'drag', ballisticCoefficient: 80 }] }),
   'track state 10k csv': post('/v1/track', { ...STATE_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T02:46:39Z', step: 1 }, format: 'csv' }),
   'track state 10k json': post('/v1/track', { ...STATE_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T02:46:39Z', step: 1 }, format: 'json' }),
