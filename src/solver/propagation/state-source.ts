@@ -31,8 +31,20 @@ export function unwrapState<T>(x: T | Outcome<T>, what: string): T {
 
 /** A finite GCRF state at tt, or PropagationStopped. */
 export function gcrfStateAt(stateAt: StateAt, tt: number): GcrfState {
-  const s = unwrapState(stateAt(tt), `epoch ${tt}`);
-  if (![...s.r, ...s.v].every(Number.isFinite)) {
+  const x = stateAt(tt);
+  // unwrapState written out: its description of the epoch would be a new string on every call.
+  let s: GcrfState;
+  if (typeof x === 'object' && x !== null && 'ok' in x) {
+    if (!x.ok) throw new PropagationStopped(x);
+    s = x.value;
+  } else if (x === undefined || x === null) {
+    throw new TypeError(`propagator returned nothing for epoch ${tt}`);
+  } else {
+    s = x;
+  }
+  const { r, v } = s;
+  // Written out (no array per call): searches call this tens of thousands of times.
+  if (!(Number.isFinite(r[0]) && Number.isFinite(r[1]) && Number.isFinite(r[2]) && Number.isFinite(v[0]) && Number.isFinite(v[1]) && Number.isFinite(v[2]))) {
     throw new PropagationStopped(failure('invalid-parameter', `the propagator returned a non-finite state at TT ${tt} s`));
   }
   return s;
