@@ -36,6 +36,52 @@ function writeInt32(buf: Uint8Array, pos: number, n: number, width: number): num
   return end;
 }
 
+/** Writes a non-negative int32 in exactly `width` digits (zero-padded; n has at most that many) ending before `end`. */
+function writeDigitsBefore(buf: Uint8Array, end: number, n: number, width: number): void {
+  let p = end;
+  const stop = end - width;
+  let m = n;
+  while (m >= 100) {
+    const q = (m / 100) | 0;
+    const r = (m - q * 100) << 1;
+    buf[--p] = PAIRS[r + 1]!;
+    buf[--p] = PAIRS[r]!;
+    m = q;
+  }
+  if (m >= 10) {
+    buf[--p] = PAIRS[(m << 1) + 1]!;
+    buf[--p] = PAIRS[m << 1]!;
+  } else {
+    buf[--p] = ZERO + m;
+  }
+  while (p > stop) buf[--p] = ZERO;
+}
+
+/**
+ * fixed(value, decimals) written at pos (40 bytes of room), in one pass with no call per digit
+ * group: the common case of track numbers (whole part below 2^31, 1 to 9 decimals). Returns the
+ * end, or -1 where the general path must decide (ties, large magnitudes, other decimals): the
+ * same test as scaledForFixed, so both give the same digits.
+ */
+function writeFixed(buf: Uint8Array, pos: number, value: number, decimals: number): number {
+  if (decimals < 1 || decimals > 9) return -1;
+  const scale = SCALES[decimals]!;
+  const magnitude = Math.abs(value) * scale;
+  const floor = Math.floor(magnitude);
+  if (!(magnitude < 9e15) || !(Math.abs(magnitude - floor - 0.5) > 1e-6)) return -1;
+  const scaled = Math.round(magnitude);
+  const whole = Math.floor(scaled / scale);
+  if (whole >= INT32_LIMIT) return -1;
+  let p = pos;
+  if (value < 0 && scaled !== 0) buf[p++] = 45;
+  const wholeDigits = digitCount(whole);
+  writeDigitsBefore(buf, p + wholeDigits, whole, wholeDigits);
+  p += wholeDigits;
+  buf[p++] = 46;
+  writeDigitsBefore(buf, p + decimals, scaled - whole * scale, decimals);
+  return p + decimals;
+}
+
 export class AsciiWriter {
   readonly #chunkBytes: number;
   #buf: Buffer;
@@ -114,6 +160,13 @@ export class AsciiWriter {
 
   /** The same text as fixed(value, decimals) from track-table.ts. */
   fixed(value: number, decimals: number): this {
+    if (this.#pos + 40 <= this.#buf.length) {
+      const end = writeFixed(this.#buf, this.#pos, value, decimals);
+      if (end >= 0) {
+        this.#pos = end;
+        return this;
+      }
+    }
     const scaled = scaledForFixed(value, decimals);
     if (scaled < 0) return this.text(fixed(value, decimals));
     this.#room(40);
