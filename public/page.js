@@ -24,6 +24,11 @@ export function plan(req) {
     const passes = { ...orbit, ...pick(req, [...MODEL_KEYS, 'pointing']), stations: req.stations, window: req.window };
     calls.push({ url: '/v1/passes', body: passes, numbers: 'passes', plot: true });
   }
+  // Eclipses exist for the built-in earth only (the service's own rule): asked for an earth orbit with a window.
+  if (req.window && (req.centralBody ?? 'earth') === 'earth') {
+    const eclipses = { ...orbit, ...pick(req, MODEL_KEYS), window: req.window };
+    calls.push({ url: '/v1/eclipses', body: eclipses, numbers: 'eclipses', plot: true, downloads: [['csv', 'eclipses CSV', 'csv']] });
+  }
   return calls;
 }
 
@@ -92,6 +97,18 @@ function passNumbers(a) {
   return wrap;
 }
 
+function eclipseNumbers(a) {
+  const umbra = a.eclipses.map((e) => e.umbraDuration ?? 0);
+  return table(`Eclipses ${a.window.start} to ${a.window.stop}`, null, [
+    ['eclipses by the Earth', String(a.eclipses.length)],
+    ['of them partial only', String(a.eclipses.filter((e) => e.umbraStart === null).length)],
+    ['longest umbra (min)', umbra.length ? fmt(Math.max(...umbra) / 60, 4) : '—'],
+    ['shadow time in window (min)', fmt(a.eclipses.reduce((t, e) => t + e.duration, 0) / 60, 5)],
+    ['beta angle range (deg)', `${fmt(a.beta.min, 3)} to ${fmt(a.beta.max, 3)}`],
+    ['node local time (h)', a.ascendingNodeLocalTime === null ? '— (not sun-synchronous)' : fmt(a.ascendingNodeLocalTime, 4)],
+  ]);
+}
+
 function centralForceNumbers(a) {
   return table('Central-force motion', null, [
     ['motion', a.motion],
@@ -141,7 +158,7 @@ function status(text, error = false) {
   $('status').className = error ? 'error' : '';
 }
 
-const RENDER = { orbit: orbitNumbers, passes: passNumbers, 'central-force': centralForceNumbers };
+const RENDER = { orbit: orbitNumbers, passes: passNumbers, eclipses: eclipseNumbers, 'central-force': centralForceNumbers };
 
 export async function send() {
   let req;

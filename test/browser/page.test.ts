@@ -35,7 +35,7 @@ describe.skipIf(!present)('the scenario page at / in chromium', () => {
     await app?.close();
   });
 
-  it('shows the first demo answered on first open: key numbers and four plots, no CSP violation', async () => {
+  it('shows the first demo answered on first open: key numbers and its plots, no CSP violation', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
     const problems: string[] = [];
     page.on('console', (m) => { if (m.type() === 'error') problems.push(m.text()); });
@@ -47,12 +47,13 @@ describe.skipIf(!present)('the scenario page at / in chromium', () => {
     expect(numbers).toContain('semi-major axis (km)');
     expect(numbers).toContain('6928.14');
     expect(numbers).toContain('korrin-hill');
-    expect(await page.locator('#plots svg').count()).toBe(3); // orbit, ground track, passes (timeline + sky plots)
+    expect(numbers).toContain('eclipses by the Earth');
+    expect(await page.locator('#plots svg').count()).toBe(4); // orbit, ground track, passes (timeline + sky plots), eclipses
     const titles = await page.locator('#plots svg > title').allTextContents();
-    expect(titles).toEqual(['Orbit about earth', 'Ground track of PLOVER-7', 'Ground-station passes']);
+    expect(titles).toEqual(['Orbit about earth', 'Ground track of PLOVER-7', 'Ground-station passes', 'Eclipses']);
     const box = await page.locator('#plots svg').first().boundingBox();
     expect(box!.width).toBeGreaterThan(500);
-    expect(await page.locator('#downloads a').count()).toBe(2);
+    expect(await page.locator('#downloads a').count()).toBe(3); // track CSV and OEM, eclipses CSV
     expect(await page.locator('#curl').innerText()).toContain(`curl -s ${origin}/v1/orbit`);
     mkdirSync(ARTIFACTS, { recursive: true });
     await page.screenshot({ path: new URL('page.png', ARTIFACTS).pathname, fullPage: true });
