@@ -12,7 +12,9 @@ import type { OrbitPlaneInput } from '../formats/svg/orbit-plane.js';
 import { ProblemError } from '../errors.js';
 import type { FrameOptions } from '../solver/earth/frames.js';
 import { stateToGcrf } from '../solver/earth/state-frames.js';
+import type { Sgp4ElementSet } from '../solver/propagation/sgp4.js';
 import { describeBody } from './body.js';
+import { catalogInitialState } from './catalog.js';
 import { epochTT } from './epoch.js';
 
 export type SolverOrbitInput = { r: Vec3; v: Vec3 } | { elements: SolverElementsInput };
@@ -49,8 +51,13 @@ export function orbitSolverInput(req: OrbitInputFields, body: CentralBody, frame
   };
 }
 
-/** The initial Cartesian state of a request's orbit (state given, or elements converted). */
-export function initialState(body: CentralBody, req: OrbitInputFields, frame: FrameOptions = {}): Outcome<{ r: Vec3; v: Vec3; epochTT: number }> {
+/**
+ * The initial Cartesian state of a request's orbit (state given, elements converted, or a
+ * catalogue element set run through SGP4 to its epoch; then `sgp4` carries the set).
+ */
+export function initialState(body: CentralBody, req: OrbitInputFields & { model?: string }, frame: FrameOptions = {}): Outcome<{ r: Vec3; v: Vec3; epochTT: number; sgp4?: Sgp4ElementSet }> {
+  const catalog = catalogInitialState(body, req, req.model ?? '');
+  if (catalog) return catalog;
   const { epochTT: epoch, input } = orbitSolverInput(req, body, frame);
   if ('r' in input) {
     if (input.r.every((x) => x === 0)) return failure('zero-position', 'the position vector is zero');

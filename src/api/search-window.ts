@@ -7,6 +7,7 @@ import type { Vec3 } from '../solver/core/vec3.js';
 import type { PropagationSpec } from '../solver/propagation/propagator.js';
 import type { Force } from '../solver/propagation/perturbations.js';
 import { propagateTrack } from '../solver/propagation/track.js';
+import type { Sgp4ElementSet } from '../solver/propagation/sgp4.js';
 import { epochTT } from './epoch.js';
 
 export interface SearchRequest {
@@ -16,11 +17,12 @@ export interface SearchRequest {
 }
 
 /** The propagation and the TT window of a validated search request. */
-export function searchWindow(req: SearchRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }): { spec: PropagationSpec; startTT: number; stopTT: number } {
+export function searchWindow(req: SearchRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number; sgp4?: Sgp4ElementSet | undefined }): { spec: PropagationSpec; startTT: number; stopTT: number } {
   const [startTT, stopTT] = [epochTT(req.window.start), epochTT(req.window.stop)];
   if (!(stopTT > startTT)) throw new ProblemError('validation-failed', 'the window stop must be after its start', { errors: [{ path: 'body.window.stop', message: 'must be after start' }] });
-  const spec: PropagationSpec = { body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT };
-  if (req.model !== 'numerical') {
+  const spec: PropagationSpec = { body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT, ...(req.model === 'sgp4' && start.sgp4 ? { sgp4: start.sgp4 } : {}) };
+  // sgp4 reports where the method stops inside the search (the answer keeps what came before).
+  if (req.model !== 'numerical' && req.model !== 'sgp4') {
     const surface = propagateTrack({ ...spec, epochsTT: Float64Array.of(startTT, stopTT) });
     if (!surface.ok) throw solverProblem(surface);
   }

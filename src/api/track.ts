@@ -6,6 +6,7 @@ import { RAD } from '../solver/core/math.js';
 import type { Vec3 } from '../solver/core/vec3.js';
 import type { FrameOptions } from '../solver/earth/frames.js';
 import type { Track } from '../solver/propagation/track.js';
+import type { Sgp4ElementSet } from '../solver/propagation/sgp4.js';
 import type { TrackDiagnostics, TrackRequest } from '../schemas/track.js';
 import type { TrackNeeds, TrackFormat, TrackProductInput } from '../formats/track-output.js';
 import type { TrackJob, TrackJobResult } from '../workers/jobs.js';
@@ -22,10 +23,14 @@ export function trackDiagnostics(c: Conservation): TrackDiagnostics {
 }
 
 /** The worker job of a validated track request (its grid buffer moves to the worker). */
-export function trackJob(req: TrackRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, epochsTT: Float64Array, needs: TrackNeeds, frame: FrameOptions): TrackJob {
+export function trackJob(req: TrackRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number; sgp4?: Sgp4ElementSet | undefined }, epochsTT: Float64Array, needs: TrackNeeds, frame: FrameOptions): TrackJob {
   return {
     kind: 'track',
-    input: { body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT, epochsTT, passThroughBody: req.passThroughBody },
+    input: {
+      body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT, epochsTT, passThroughBody: req.passThroughBody,
+      ...(req.model === 'sgp4' && start.sgp4 ? { sgp4: start.sgp4 } : {}),
+    },
+    teme: needs.teme,
     earthFixed: needs.earthFixed ? frame : null,
     geodetic: needs.geodetic,
   };
@@ -47,7 +52,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
     format,
     frame: req.frame,
     epochsTT: inertial.epochsTT,
-    states: result.earthFixed ?? inertial.states,
+    states: req.frame === 'teme' ? result.teme! : result.earthFixed ?? inertial.states,
     geodeticDeg: result.geodetic ? geodeticDegrees(result.geodetic) : null,
     head: {
       scenarioHash: hash,
@@ -66,6 +71,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
       centerName: body.name.toUpperCase(),
       comments: [
         `model ${req.model}, GM ${body.gm} km**3/s**2; scenario ${hash}`,
+        ...(req.frame === 'teme' ? ['TEME: true equator, mean equinox, rotated from PEF by GMST 1982 (Vallado et al. 2006); the frame of SGP4'] : []),
         ...(req.frame === 'itrf' ? [`Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected; UT1-UTC ${req.ut1MinusUtc ?? 0} s`] : []),
         'CREATION_DATE is the epoch of the initial state, so that one scenario always gives the same bytes',
       ],

@@ -439,6 +439,56 @@ export interface components {
                 };
             }[];
         };
+        CatalogueMeanElements: {
+            /** @description deg */
+            argPeriapsis: number;
+            /** @description B* drag term, 1/earth radii */
+            bstar: number;
+            /** @description Catalogue number as written */
+            catalogId: string;
+            /** @description Catalogue number (Alpha-5 decoded: A = 10 ... Z = 33) */
+            catalogNumber: number;
+            classification: string | null;
+            eccentricity: number;
+            elementSetNumber: number | null;
+            /**
+             * @description Element epoch, UTC
+             * @example 2026-12-01T00:00:00.000Z
+             */
+            epoch: string;
+            /** @enum {string} */
+            format: "tle" | "omm";
+            /** @description deg, TEME */
+            inclination: number;
+            internationalDesignator: string | null;
+            /** @description deg */
+            meanAnomaly: number;
+            /** @description Kozai mean motion as given, deg/s */
+            meanMotion: number;
+            /** @description second derivative of the mean motion divided by 6, rev/day^3 (as given; SGP4 does not use it) */
+            meanMotionDdot: number;
+            /** @description first derivative of the mean motion divided by 2, rev/day^2 (as given; SGP4 does not use it) */
+            meanMotionDot: number;
+            name: string | null;
+            /** @description deg, TEME */
+            raan: number;
+            /**
+             * @description near-earth (SGP4, period under 225 min) or deep-space (SDP4, with lunar-solar terms and resonances)
+             * @enum {string}
+             */
+            regime: "near-earth" | "deep-space";
+            /** @description revolution number at epoch */
+            revolutionNumber: number | null;
+            /** @description The same mean motion in rev/day, as the formats give it */
+            revolutionsPerDay: number;
+            /** @description Brouwer mean semi-major axis, km (WGS-72 earth radii x 6378.135), as the method derives it: not osculating */
+            semiMajorAxis: number;
+            /**
+             * @description The mean-element theory: SGP4 (Vallado et al. 2006, WGS-72 constants)
+             * @constant
+             */
+            theory: "SGP4";
+        };
         /**
          * @description The central body: a built-in name (default "earth") or an object with gm and optionally radius, j2, rotationRate, flattening
          * @default earth
@@ -720,7 +770,7 @@ export interface components {
             /** @description The Earth's shadow, in time order */
             eclipses: components["schemas"]["Eclipse"][];
             /** @enum {string} */
-            model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris";
+            model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris" | "sgp4";
             /** @description The Moon's shadow, in time order; null unless moon was asked */
             moonEclipses: components["schemas"]["Eclipse"][] | null;
             /** @description SHA-256 (hex) of the normalised scenario and the solver version; also the ETag */
@@ -742,25 +792,7 @@ export interface components {
                 stop: string;
             };
         };
-        /**
-         * @description A spacecraft and a window
-         * @example {
-         *       "centralBody": "earth",
-         *       "elements": {
-         *         "epoch": "2026-12-01T00:00:00Z",
-         *         "semiMajorAxis": 6928.137,
-         *         "eccentricity": 0.0012,
-         *         "inclination": 97.6,
-         *         "raan": 40,
-         *         "argPeriapsis": 90,
-         *         "trueAnomaly": 10
-         *       },
-         *       "window": {
-         *         "start": "2026-12-01T00:00:00Z",
-         *         "stop": "2026-12-02T00:00:00Z"
-         *       }
-         *     }
-         */
+        /** @description A spacecraft and a window */
         EclipsesRequest: {
             centralBody?: components["schemas"]["CentralBody"];
             elements?: components["schemas"]["InitialElements"];
@@ -775,17 +807,18 @@ export interface components {
              */
             format?: "json" | "csv" | "svg";
             /**
-             * @description two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
-             * @default two-body
+             * @description Default: sgp4 for a tle or omm orbit, two-body otherwise. sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
              * @enum {string}
              */
-            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical";
+            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "sgp4";
             /**
              * @description Also search the Moon's shadow (conical, mean lunar radius 1737.4 km); its eclipses are listed apart, in moonEclipses
              * @default false
              */
             moon?: boolean;
+            omm?: components["schemas"]["OrbitMeanElementsMessage"];
             state?: components["schemas"]["InitialState"];
+            tle?: components["schemas"]["TwoLineElementSet"];
             /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); enters only the local time of the ascending node */
             ut1MinusUtc?: number;
             /** @description Search window (epochs in timeSystem, UTC by default), stop after start, at most 31 days */
@@ -1096,6 +1129,16 @@ export interface components {
                 number
             ];
             elements: components["schemas"]["Elements"];
+            /** @description tle or omm with ageAt: the age of the element set at that epoch */
+            elementSetAge?: {
+                /**
+                 * @description ISO 8601 UTC timestamp with milliseconds
+                 * @example 2026-12-01T00:00:00.000Z
+                 */
+                at: string;
+                /** @description days from the element epoch to `at` (negative before it) */
+                days: number;
+            };
             /**
              * @description ISO 8601 UTC timestamp with milliseconds
              * @example 2026-12-01T00:00:00.000Z
@@ -1107,6 +1150,8 @@ export interface components {
             intersectsBody: boolean | null;
             /** @description J2 secular rates (null when the body has no J2 or the orbit is unbound) */
             j2: components["schemas"]["J2Rates"] | null;
+            /** @description tle or omm only: the catalogue mean elements as given (units converted). The rest of the answer is osculating, from the SGP4 state at the element epoch rotated to gcrf */
+            meanElements?: components["schemas"]["CatalogueMeanElements"];
             /** @description deg/s: mean motion (ellipse), sqrt(mu/-a^3) expressed in deg/s (hyperbola); for a parabola 2 sqrt(mu/p^3) in 1/s, the rate of the dimensionless M_p */
             meanMotion: number;
             /** @enum {string} */
@@ -1148,8 +1193,12 @@ export interface components {
                 ];
             };
         };
+        /** @description A CCSDS Orbit Mean-elements Message (one segment). Only MEAN_ELEMENT_THEORY SGP4 is propagated (absent is taken as SGP4); SGP, SGP4-XP and others answer 422 omm-unsupported. EPOCH is UTC; MEAN_MOTION in rev/day, angles in deg, BSTAR in 1/earth radii */
+        OrbitMeanElementsMessage: string | {
+            [key: string]: string | number;
+        };
         /**
-         * @description An orbit about a central body, by state vector or by elements
+         * @description An orbit about a central body, by state vector, by elements, or by a catalogue element set (tle, omm)
          * @example {
          *       "centralBody": "earth",
          *       "elements": {
@@ -1164,6 +1213,11 @@ export interface components {
          *     }
          */
         OrbitRequest: {
+            /**
+             * @description tle or omm only: the epoch (UTC) at which to state the age of the element set (elementSetAge); SGP4 errors grow with it (about a kilometre at the element epoch, kilometres more each day; common practice, no source)
+             * @example 2026-12-01T00:00:00Z
+             */
+            ageAt?: string;
             centralBody?: components["schemas"]["CentralBody"];
             elements?: components["schemas"]["InitialElements"];
             /**
@@ -1171,7 +1225,9 @@ export interface components {
              * @enum {string}
              */
             format?: "json" | "svg";
+            omm?: components["schemas"]["OrbitMeanElementsMessage"];
             state?: components["schemas"]["InitialState"];
+            tle?: components["schemas"]["TwoLineElementSet"];
             /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); used only to bring an itrf state to gcrf */
             ut1MinusUtc?: number;
         };
@@ -1299,7 +1355,7 @@ export interface components {
             /** @description s: the scan step sized from the orbit so no pass above the limit is missed */
             coarseStep: number;
             /** @enum {string} */
-            model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris";
+            model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris" | "sgp4";
             /** @description In time order of AOS, then station order */
             passes: components["schemas"]["Pass"][];
             /** @description Present when refraction was asked: the elevations of the answer (limits, AOS/LOS, maxElevation, pointing) are apparent ones. Absent: geometric elevations */
@@ -1325,59 +1381,7 @@ export interface components {
                 stop: string;
             };
         };
-        /**
-         * @description A spacecraft, ground stations and a window
-         * @example {
-         *       "centralBody": "earth",
-         *       "elements": {
-         *         "epoch": "2026-12-01T00:00:00Z",
-         *         "semiMajorAxis": 6928.137,
-         *         "eccentricity": 0.0012,
-         *         "inclination": 97.6,
-         *         "raan": 40,
-         *         "argPeriapsis": 90,
-         *         "trueAnomaly": 10
-         *       },
-         *       "window": {
-         *         "start": "2026-12-01T00:00:00Z",
-         *         "stop": "2026-12-02T00:00:00Z"
-         *       },
-         *       "stations": [
-         *         {
-         *           "id": "korrin-hill",
-         *           "latitude": 61.2,
-         *           "longitude": 24.9,
-         *           "altitude": 0.21,
-         *           "minElevation": 5
-         *         },
-         *         {
-         *           "id": "veyra-point",
-         *           "latitude": -31.4,
-         *           "longitude": 138.6,
-         *           "altitude": 0.32,
-         *           "minElevation": 10,
-         *           "horizonMask": [
-         *             {
-         *               "azimuth": 0,
-         *               "elevation": 10
-         *             },
-         *             {
-         *               "azimuth": 90,
-         *               "elevation": 20
-         *             },
-         *             {
-         *               "azimuth": 180,
-         *               "elevation": 10
-         *             }
-         *           ]
-         *         }
-         *       ],
-         *       "pointing": {
-         *         "step": 10,
-         *         "carrierFrequency": 2200000000
-         *       }
-         *     }
-         */
+        /** @description A spacecraft, ground stations and a window */
         PassesRequest: {
             /** @description With refraction optical only: the conditions Bennett's refraction is scaled to */
             atmosphere?: {
@@ -1405,11 +1409,11 @@ export interface components {
              */
             format?: "json" | "svg";
             /**
-             * @description two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
-             * @default two-body
+             * @description Default: sgp4 for a tle or omm orbit, two-body otherwise. sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
              * @enum {string}
              */
-            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical";
+            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "sgp4";
+            omm?: components["schemas"]["OrbitMeanElementsMessage"];
             /** @description Ask for an antenna pointing track of each pass */
             pointing?: {
                 /** @description Carrier frequency, Hz: adds the first-order Doppler shift, Hz, to each sample */
@@ -1430,6 +1434,7 @@ export interface components {
                 /** @description deg: the least allowed angle between the antenna boresight and the Sun */
                 angle: number;
             };
+            tle?: components["schemas"]["TwoLineElementSet"];
             /**
              * @description deg (default -6, civil twilight): a pass point is visible (optically) when the spacecraft is sunlit and the Sun's elevation at the station is below this
              * @default -6
@@ -1540,13 +1545,13 @@ export interface components {
         StateSample: {
             /** @description ISO 8601 UTC */
             epoch: string;
-            /** @description km, 6 decimals (gcrf or itrf) */
+            /** @description km, 6 decimals (gcrf, itrf or teme) */
             position: [
                 number,
                 number,
                 number
             ];
-            /** @description km/s, 9 decimals (gcrf or itrf) */
+            /** @description km/s, 9 decimals (gcrf, itrf or teme) */
             velocity: [
                 number,
                 number,
@@ -1586,9 +1591,9 @@ export interface components {
             /** @description Forces of the numerical model (empty for the analytic models) */
             forces: components["schemas"]["Force"][];
             /** @enum {string} */
-            frame: "gcrf" | "itrf" | "geodetic";
+            frame: "gcrf" | "itrf" | "geodetic" | "teme";
             /** @enum {string} */
-            model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris";
+            model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris" | "sgp4";
             object: {
                 id: string;
                 name: string;
@@ -1622,23 +1627,22 @@ export interface components {
              */
             forces?: components["schemas"]["Force"][];
             /**
-             * @description json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN; gcrf or itrf) | geojson (RFC 7946 ground track on WGS-84, split at the antimeridian; earth only, whatever the frame) | svg (the ground track on a world map; earth only, whatever the frame). Without it the Accept header chooses (application/json, text/csv, text/plain for OEM, application/geo+json, image/svg+xml); default json
+             * @description json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN; gcrf, itrf or teme) | geojson (RFC 7946 ground track on WGS-84, split at the antimeridian; earth only, whatever the frame) | svg (the ground track on a world map; earth only, whatever the frame). Without it the Accept header chooses (application/json, text/csv, text/plain for OEM, application/geo+json, image/svg+xml); default json
              * @enum {string}
              */
             format?: "json" | "csv" | "oem" | "geojson" | "svg";
             /**
-             * @description Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected: ~10 m at LEO); geodetic (WGS-84 latitude and longitude in deg, height in km). itrf and geodetic need centralBody earth
+             * @description Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected: ~10 m at LEO); geodetic (WGS-84 latitude and longitude in deg, height in km); teme (true equator, mean equinox: the frame of SGP4; from PEF by GMST 1982, Vallado et al. 2006; for the sgp4 model the method's own states, for the others rotated from gcrf through PEF). itrf, geodetic and teme need centralBody earth
              * @default gcrf
              * @enum {string}
              */
-            frame?: "gcrf" | "itrf" | "geodetic";
+            frame?: "gcrf" | "itrf" | "geodetic" | "teme";
             grid: components["schemas"]["TimeGrid"];
             /**
-             * @description two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
-             * @default two-body
+             * @description Default: sgp4 for a tle or omm orbit, two-body otherwise. sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
              * @enum {string}
              */
-            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical";
+            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "sgp4";
             /**
              * @description Labels for the exported track
              * @default {
@@ -1658,12 +1662,14 @@ export interface components {
                  */
                 name?: string;
             };
+            omm?: components["schemas"]["OrbitMeanElementsMessage"];
             /**
              * @description Propagate as a point mass even below the body radius; by default a track that meets the body is refused (422 impact)
              * @default false
              */
             passThroughBody?: boolean;
             state?: components["schemas"]["InitialState"];
+            tle?: components["schemas"]["TwoLineElementSet"];
             /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); without either, 0 costs up to ~0.4 km along-track in Earth-fixed frames */
             ut1MinusUtc?: number;
         };
@@ -1922,6 +1928,15 @@ export interface components {
             track?: {
                 grid: components["schemas"]["TimeGrid"];
             };
+        };
+        /** @description A two-line element set (SGP4 mean elements, TEME, epoch UTC). Checksums are verified; Alpha-5 catalogue numbers are accepted; two-digit years 57-99 are 1957-1999, 00-56 are 2000-2056. A malformed field answers 422 tle-malformed naming the line, the columns and what was expected */
+        TwoLineElementSet: {
+            /** @description Line 1 of the two-line set: exactly 69 characters, columns as in Spacetrack Report No. 3 (epoch, mean motion derivatives, BSTAR), checksum in column 69 */
+            line1: string;
+            /** @description Line 2: exactly 69 characters (inclination, RAAN, eccentricity, argument of perigee, mean anomaly in deg; mean motion in rev/day), checksum in column 69 */
+            line2: string;
+            /** @description Object name (line 0 of a three-line set) */
+            name?: string;
         };
     };
     responses: never;

@@ -19,7 +19,7 @@ export const TRACK_FORMATS = [
   ['svg', 'image/svg+xml'],
 ] as const;
 export type TrackFormat = (typeof TRACK_FORMATS)[number][0];
-export const TRACK_FRAMES = ['gcrf', 'itrf', 'geodetic'] as const;
+export const TRACK_FRAMES = ['gcrf', 'itrf', 'geodetic', 'teme'] as const;
 export type TrackFrame = (typeof TRACK_FRAMES)[number];
 
 /** What the states must be converted to before formatting. */
@@ -28,6 +28,8 @@ export interface TrackNeeds {
   readonly earthFixed: boolean;
   /** WGS-84 latitude, longitude, height: frame geodetic, or a ground track (GeoJSON, SVG map). */
   readonly geodetic: boolean;
+  /** TEME states (frame teme). */
+  readonly teme: boolean;
 }
 
 /** Formats that carry the ground track (latitude, longitude) whatever the frame. */
@@ -36,12 +38,13 @@ const isGroundTrack = (format: TrackFormat): boolean => format === 'geojson' || 
 /** The conversions a (format, frame) needs; refuses the combinations no format can carry. */
 export function trackNeeds(format: TrackFormat, frame: TrackFrame, builtInEarth: boolean): TrackNeeds {
   const ground = isGroundTrack(format);
-  const needs = { earthFixed: frame !== 'gcrf' || ground, geodetic: frame === 'geodetic' || ground };
+  const needs = { earthFixed: frame === 'itrf' || frame === 'geodetic' || ground, geodetic: frame === 'geodetic' || ground, teme: frame === 'teme' };
+  if (needs.teme && !builtInEarth) throw new ProblemError('unsupported-frame', 'frame teme (true equator, mean equinox of the Earth) needs the built-in centralBody "earth"');
   if (needs.earthFixed && !builtInEarth) {
     throw new ProblemError('unsupported-frame', `frame ${frame}${ground ? ` and ${format === 'svg' ? 'the SVG map' : 'GeoJSON'}` : ''} need the built-in centralBody "earth"`);
   }
   if (format === 'oem' && frame === 'geodetic') {
-    throw new ProblemError('unsupported-frame', 'an OEM carries Cartesian states: choose frame gcrf or itrf');
+    throw new ProblemError('unsupported-frame', 'an OEM carries Cartesian states: choose frame gcrf, itrf or teme');
   }
   return needs;
 }
@@ -71,7 +74,7 @@ export interface TrackProductInput {
   readonly format: TrackFormat;
   readonly frame: TrackFrame;
   readonly epochsTT: Float64Array;
-  /** Cartesian states in the output frame (gcrf or itrf), 6 per sample. */
+  /** Cartesian states in the output frame (gcrf, itrf or teme), 6 per sample. */
   readonly states: Float64Array;
   /** Latitude and longitude in degrees, height in km, 3 per sample, when the needs asked for them. */
   readonly geodeticDeg: Float64Array | null;
@@ -117,7 +120,7 @@ export function trackProduct(t: TrackProductInput): Product {
         objectName: t.object.name,
         objectId: t.object.id,
         centerName: t.oem.centerName,
-        refFrame: t.frame === 'itrf' ? 'ITRF' : 'GCRF',
+        refFrame: t.frame === 'itrf' ? 'ITRF' : t.frame === 'teme' ? 'TEME' : 'GCRF',
         comments: t.oem.comments,
       }),
     };

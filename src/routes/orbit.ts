@@ -11,6 +11,8 @@ import { resolveBody } from '../api/body.js';
 import { utcScenario } from '../api/epoch.js';
 import { frameOptions } from '../api/earth-orientation.js';
 import { orbitPlotInput, orbitSolverInput, toOrbitAnswer } from '../api/orbit.js';
+import { catalogInitialState, elementSetAge, meanElementsAnswer } from '../api/catalog.js';
+import { epochTT as epochTTOf } from '../api/epoch.js';
 import { OrbitAnswer, OrbitRequest, PLOT_FORMATS } from '../schemas/orbit.js';
 import { solveOrbit } from '../solver/conic/orbit.js';
 
@@ -39,10 +41,18 @@ const orbit: FastifyPluginAsyncZod = async (app) => {
     const scenario = format === 'json' ? req : { ...req, format };
     return app.answers.respond(request, reply, 'orbit', scenario, (hash) => {
       const body = resolveBody(req.centralBody);
-      const { epochTT, input } = orbitSolverInput(req, body, frameOptions(req.ut1MinusUtc));
+      // A catalogue orbit: the osculating state at the element epoch from SGP4, with the mean elements as given.
+      const catalog = catalogInitialState(body, req, '');
+      if (catalog && !catalog.ok) throw solverProblem(catalog);
+      const { epochTT, input } = catalog?.ok ? { epochTT: catalog.value.epochTT, input: { r: catalog.value.r, v: catalog.value.v } } : orbitSolverInput(req, body, frameOptions(req.ut1MinusUtc));
       const solved = solveOrbit(body, input);
       if (!solved.ok) throw solverProblem(solved);
-      const answer = toOrbitAnswer(solved.value, body, epochTT, hash);
+      const set = catalog?.ok ? catalog.value.set : undefined;
+      const answer = {
+        ...toOrbitAnswer(solved.value, body, epochTT, hash),
+        ...(set ? { meanElements: meanElementsAnswer(set) } : {}),
+        ...(set && req.ageAt !== undefined ? { elementSetAge: elementSetAge(set, epochTTOf(req.ageAt)) } : {}),
+      };
       assertFinite(answer); // the plot is drawn from the answer: the same check for both formats
       return format === 'json' ? jsonAnswer(answer) : { contentType: SVG_MEDIA_TYPE, body: Buffer.from(orbitSvg(orbitPlotInput(answer))) };
     });

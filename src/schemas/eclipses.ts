@@ -5,7 +5,7 @@ import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { MAX_ECLIPSE_WINDOW_S } from '../solver/light/eclipses.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { DEMO_EPOCH, EpochOut, EpochText, refineEpochs, TimeSystemField, ScenarioHash, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
-import { modelFields } from './forces.js';
+import { modelFields, withDefaultModel } from './forces.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
 /** Answer formats of /v1/eclipses. */
@@ -30,6 +30,7 @@ export const EclipsesRequest = z
   })
   .strict()
   .superRefine(requireOneOrbitInput)
+  .transform(withDefaultModel)
   .meta({
     description: 'A spacecraft and a window',
     examples: [{ centralBody: 'earth', elements: DEMO_ELEMENTS, window: { start: DEMO_EPOCH, stop: '2026-12-02T00:00:00Z' } }],

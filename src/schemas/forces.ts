@@ -2,6 +2,20 @@
 import { z } from 'zod';
 import { STATE_MODELS } from '../solver/propagation/propagator.js';
 
+/** Models of the API: the state models, and sgp4 for catalogue orbits (tle, omm). */
+export const API_MODELS = [...STATE_MODELS, 'sgp4'] as const;
+export type ApiModel = (typeof API_MODELS)[number];
+
+/**
+ * The model a request runs when it names none: sgp4 for a catalogue orbit (tle, omm), two-body
+ * otherwise. Applied as the last step of the request schemas, so the scenario (and its hash)
+ * always holds the model run; requests without a catalogue orbit hash as before.
+ */
+export const withDefaultModel = <T extends { model?: ApiModel | undefined; tle?: unknown; omm?: unknown }>(req: T): Omit<T, 'model'> & { model: ApiModel } => ({
+  ...req,
+  model: req.model ?? (req.tle !== undefined || req.omm !== undefined ? 'sgp4' : 'two-body'),
+});
+
 export const Force = z
   .discriminatedUnion('kind', [
     z.object({ kind: z.literal('j2') }).strict().describe('The central body\'s J2 about its spin axis (needs j2 and radius)'),
@@ -19,7 +33,9 @@ export const Force = z
   .meta({ id: 'Force' });
 
 export const modelFields = {
-  model: z.enum(STATE_MODELS).default('two-body').describe(
+  model: z.enum(API_MODELS).optional().describe(
+    'Default: sgp4 for a tle or omm orbit, two-body otherwise. ' +
+    'sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). ' +
     'two-body: exact Keplerian motion (universal variables), no perturbations. ' +
     'j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). ' +
     'j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane\'s (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). ' +

@@ -2,7 +2,8 @@
 import { z } from 'zod';
 import { CentralBodyInput, BodySummary } from './body.js';
 import { STATE_FRAMES } from '../solver/earth/state-frames.js';
-import { DEMO_EPOCH, EpochOut, EpochText, MAX_POSITION_KM, PositionKm, refineEpochs, ScenarioHash, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT, Vec3, VelocityKmS } from './common.js';
+import { DEMO_EPOCH, Epoch, EpochOut, EpochText, MAX_POSITION_KM, PositionKm, refineEpochs, ScenarioHash, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT, Vec3, VelocityKmS } from './common.js';
+import { OmmInput, TleInput } from './catalog.js';
 
 export const StateInput = z
   .object({
@@ -51,17 +52,21 @@ export const orbitFields = {
   centralBody: CentralBodyInput,
   state: StateInput.optional(),
   elements: ElementsInput.optional(),
+  tle: TleInput.optional(),
+  omm: OmmInput.optional(),
 };
 
 /** The orbit fields of a validated request, as the edge layer (src/api/orbit.ts) reads them. */
 export interface OrbitInputFields {
   readonly state?: z.output<typeof StateInput> | undefined;
   readonly elements?: z.output<typeof ElementsInput> | undefined;
+  readonly tle?: z.output<typeof TleInput> | undefined;
+  readonly omm?: z.output<typeof OmmInput> | undefined;
 }
 
-export function requireOneOrbitInput(req: { state?: unknown; elements?: unknown }, ctx: z.RefinementCtx): void {
-  if ((req.state === undefined) === (req.elements === undefined)) {
-    ctx.addIssue({ code: 'custom', path: ['state'], message: 'give exactly one of state and elements' });
+export function requireOneOrbitInput(req: { state?: unknown; elements?: unknown; tle?: unknown; omm?: unknown }, ctx: z.RefinementCtx): void {
+  if ([req.state, req.elements, req.tle, req.omm].filter((x) => x !== undefined).length !== 1) {
+    ctx.addIssue({ code: 'custom', path: ['state'], message: 'give exactly one of state, elements, tle and omm' });
   }
 }
 
@@ -77,11 +82,18 @@ export const plotFormatField = (plots: string) => z.enum(['json', 'svg']).option
   .describe(`json (the numbers) | svg (${plots}). Without it the Accept header chooses (application/json, image/svg+xml); default json`);
 
 export const OrbitRequest = z
-  .object({ ...orbitFields, ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; used only to bring an itrf state to gcrf`), format: plotFormatField('the orbit in its plane, to scale with the body: periapsis, apoapsis, line of nodes, position at the epoch') })
+  .object({
+    ...orbitFields,
+    ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; used only to bring an itrf state to gcrf`),
+    ageAt: Epoch.optional().describe('tle or omm only: the epoch (UTC) at which to state the age of the element set (elementSetAge); SGP4 errors grow with it (about a kilometre at the element epoch, kilometres more each day; common practice, no source)'),
+    format: plotFormatField('the orbit in its plane, to scale with the body: periapsis, apoapsis, line of nodes, position at the epoch') })
   .strict()
   .superRefine(requireOneOrbitInput)
+  .superRefine((req, ctx) => {
+    if (req.ageAt !== undefined && req.tle === undefined && req.omm === undefined) ctx.addIssue({ code: 'custom', path: ['ageAt'], message: 'ageAt applies to tle and omm orbits only' });
+  })
   .meta({
-    description: 'An orbit about a central body, by state vector or by elements',
+    description: 'An orbit about a central body, by state vector, by elements, or by a catalogue element set (tle, omm)',
     examples: [{ centralBody: 'earth', elements: DEMO_ELEMENTS }],
   })
   .meta({ id: 'OrbitRequest' });
@@ -121,6 +133,32 @@ export const J2Rates = z.object({
 })
   .meta({ id: 'J2Rates' });
 
+export const MeanElementsAnswer = z.object({
+  format: z.enum(['tle', 'omm']),
+  theory: z.literal('SGP4').describe('The mean-element theory: SGP4 (Vallado et al. 2006, WGS-72 constants)'),
+  name: z.string().nullable(),
+  catalogNumber: z.number().int().describe('Catalogue number (Alpha-5 decoded: A = 10 ... Z = 33)'),
+  catalogId: z.string().describe('Catalogue number as written'),
+  internationalDesignator: z.string().nullable(),
+  classification: z.string().nullable(),
+  epoch: EpochOut.describe('Element epoch, UTC'),
+  meanMotion: z.number().describe('Kozai mean motion as given, deg/s'),
+  revolutionsPerDay: z.number().describe('The same mean motion in rev/day, as the formats give it'),
+  eccentricity: z.number(),
+  inclination: z.number().describe('deg, TEME'),
+  raan: z.number().describe('deg, TEME'),
+  argPeriapsis: z.number().describe('deg'),
+  meanAnomaly: z.number().describe('deg'),
+  bstar: z.number().describe('B* drag term, 1/earth radii'),
+  meanMotionDot: z.number().describe('first derivative of the mean motion divided by 2, rev/day^2 (as given; SGP4 does not use it)'),
+  meanMotionDdot: z.number().describe('second derivative of the mean motion divided by 6, rev/day^3 (as given; SGP4 does not use it)'),
+  elementSetNumber: z.number().int().nullable(),
+  revolutionNumber: z.number().int().nullable().describe('revolution number at epoch'),
+  semiMajorAxis: z.number().describe('Brouwer mean semi-major axis, km (WGS-72 earth radii x 6378.135), as the method derives it: not osculating'),
+  regime: z.enum(['near-earth', 'deep-space']).describe('near-earth (SGP4, period under 225 min) or deep-space (SDP4, with lunar-solar terms and resonances)'),
+})
+  .meta({ id: 'CatalogueMeanElements' });
+
 export const OrbitAnswer = z.object({
   scenarioHash: ScenarioHash,
   centralBody: BodySummary,
@@ -139,6 +177,10 @@ export const OrbitAnswer = z.object({
   speed: z.number().describe('km/s at epoch'),
   intersectsBody: z.boolean().nullable().describe('true when the periapsis radius is below the body radius (null without a radius)'),
   j2: J2Rates.nullable().describe('J2 secular rates (null when the body has no J2 or the orbit is unbound)'),
+  meanElements: MeanElementsAnswer.optional().describe('tle or omm only: the catalogue mean elements as given (units converted). The rest of the answer is osculating, from the SGP4 state at the element epoch rotated to gcrf'),
+  elementSetAge: z.object({ at: EpochOut, days: z.number().describe('days from the element epoch to `at` (negative before it)') }).optional()
+    .describe('tle or omm with ageAt: the age of the element set at that epoch'),
 })
   .meta({ id: 'OrbitAnswer' });
 export type OrbitAnswer = z.infer<typeof OrbitAnswer>;
+export type MeanElementsAnswer = z.infer<typeof MeanElementsAnswer>;

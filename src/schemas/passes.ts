@@ -5,7 +5,7 @@ import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTIN
 import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { BENNETT_PRESSURE_HPA, BENNETT_TEMPERATURE_C, REFRACTION_MODELS } from '../solver/stations/refraction.js';
 import { DEMO_EPOCH, EpochOut, EpochText, refineEpochs, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
-import { modelFields } from './forces.js';
+import { modelFields, withDefaultModel } from './forces.js';
 import { DEMO_ELEMENTS, orbitFields, plotFormatField, requireOneOrbitInput } from './orbit.js';
 
 /** Pointing step of the sky plots when the request asks for no pointing track, s. */
@@ -67,6 +67,7 @@ export const PassesRequest = z
   .superRefine((req, ctx) => {
     if (req.atmosphere !== undefined && req.refraction !== 'optical') ctx.addIssue({ code: 'custom', path: ['atmosphere'], message: 'atmosphere applies to refraction "optical" only' });
   })
+  .transform(withDefaultModel)
   .meta({
     description: 'A spacecraft, ground stations and a window',
     examples: [{

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { TRACK_FORMATS, TRACK_FRAMES, type TrackFormat } from '../formats/track-output.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { DEMO_EPOCH, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
-import { Force, modelFields } from './forces.js';
+import { Force, modelFields, withDefaultModel } from './forces.js';
 import { TimeGrid } from './grid.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
@@ -23,16 +23,18 @@ export const TrackRequest = z
     ...modelFields,
     frame: z.enum(TRACK_FRAMES).default('gcrf').describe(
       'Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected: ~10 m at LEO); ' +
-      'geodetic (WGS-84 latitude and longitude in deg, height in km). itrf and geodetic need centralBody earth'),
+      'geodetic (WGS-84 latitude and longitude in deg, height in km); ' +
+      'teme (true equator, mean equinox: the frame of SGP4; from PEF by GMST 1982, Vallado et al. 2006; for the sgp4 model the method\'s own states, for the others rotated from gcrf through PEF). itrf, geodetic and teme need centralBody earth'),
     ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; without either, 0 costs up to ~0.4 km along-track in Earth-fixed frames`),
     format: z.enum(TRACK_FORMATS.map(([f]) => f) as [TrackFormat, ...TrackFormat[]]).optional()
-      .describe('json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN; gcrf or itrf) | geojson (RFC 7946 ground track on WGS-84, split at the antimeridian; earth only, whatever the frame) | svg (the ground track on a world map; earth only, whatever the frame). ' +
+      .describe('json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN; gcrf, itrf or teme) | geojson (RFC 7946 ground track on WGS-84, split at the antimeridian; earth only, whatever the frame) | svg (the ground track on a world map; earth only, whatever the frame). ' +
         'Without it the Accept header chooses (application/json, text/csv, text/plain for OEM, application/geo+json, image/svg+xml); default json'),
     object: ObjectLabel.describe('Labels for the exported track'),
     passThroughBody: z.boolean().default(false).describe('Propagate as a point mass even below the body radius; by default a track that meets the body is refused (422 impact)'),
   })
   .strict()
   .superRefine(requireOneOrbitInput)
+  .transform(withDefaultModel)
   .meta({
     description: 'An orbit and a time grid',
     examples: [{
@@ -48,8 +50,8 @@ export type TrackRequest = z.output<typeof TrackRequest>;
 
 export const StateSample = z.object({
   epoch: z.string().describe('ISO 8601 UTC'),
-  position: z.tuple([z.number(), z.number(), z.number()]).describe('km, 6 decimals (gcrf or itrf)'),
-  velocity: z.tuple([z.number(), z.number(), z.number()]).describe('km/s, 9 decimals (gcrf or itrf)'),
+  position: z.tuple([z.number(), z.number(), z.number()]).describe('km, 6 decimals (gcrf, itrf or teme)'),
+  velocity: z.tuple([z.number(), z.number(), z.number()]).describe('km/s, 9 decimals (gcrf, itrf or teme)'),
 })
   .meta({ id: 'StateSample' });
 

@@ -7,6 +7,7 @@
 // Imports the solver only.
 
 import { gcrfToItrfBatch, type FrameOptions } from '../solver/earth/frames.js';
+import { gcrfToTemeBatch } from '../solver/earth/teme.js';
 import { geodeticBatch } from '../solver/earth/geodetic.js';
 import { eclipseCoarseStep, findEclipses, type EclipseSearchOptions, type EclipseSearchResult } from '../solver/light/eclipses.js';
 import { sunAvoidance, type SunAvoidance } from '../solver/light/sun-avoidance.js';
@@ -26,8 +27,8 @@ import { stateFunction, type PropagationSpec } from '../solver/propagation/propa
 // thread, behind the bounded queue. The costs per unit of size were measured on that machine.
 /** Jobs estimated under this many work units run inline (~1 ms). */
 export const INLINE_WORK_UNITS = 20_000;
-/** Work units per sample: inertial two-body (the grid kernel), j2-secular (elements + Kepler), j2-analytic (two Kepler solves and the short-period terms: ~1.5 x j2-secular, measured), ephemeris (interpolation; about 1 us a sample at degree 7). */
-const UNITS_PER_SAMPLE = { 'two-body': 1, 'j2-secular': 2, 'j2-analytic': 3, numerical: 2, ephemeris: 20 } as const satisfies Record<TrackInput['model'], number>;
+/** Work units per sample: inertial two-body (the grid kernel), j2-secular (elements + Kepler), j2-analytic (two Kepler solves and the short-period terms: ~1.5 x j2-secular, measured), ephemeris (interpolation; about 1 us a sample at degree 7), sgp4 (the method, ~1.5 us, and TEME -> GCRF). */
+const UNITS_PER_SAMPLE = { 'two-body': 1, 'j2-secular': 2, 'j2-analytic': 3, numerical: 2, ephemeris: 20, sgp4: 40 } as const satisfies Record<TrackInput['model'], number>;
 /**
  * Set-up of the J2 models, once per job: j2-secular integrates three to five revolutions for its
  * mean elements (4 to 20 ms, measured on the shared machine: always a worker), j2-analytic inverts
@@ -78,6 +79,7 @@ export function workEstimate(job: Job): number {
       let units = n * UNITS_PER_SAMPLE[job.input.model] + (MODEL_SETUP_UNITS[job.input.model] ?? 0);
       if (job.earthFixed) units += n * UNITS_PER_EARTH_FIXED_SAMPLE;
       if (job.geodetic) units += n * UNITS_PER_GEODETIC_SAMPLE;
+      if (job.teme) units += n * UNITS_PER_EARTH_FIXED_SAMPLE;
       if (job.input.model === 'numerical') units += orbitsCovered(job.input, job.input.epochsTT) * STEPS_PER_ORBIT * UNITS_PER_INTEGRATOR_STEP;
       return units;
     }
@@ -133,6 +135,8 @@ export interface TrackJob {
   readonly earthFixed: FrameOptions | null;
   /** Also WGS-84 latitude, longitude (rad) and height (km) of the ITRF states; needs earthFixed. */
   readonly geodetic: boolean;
+  /** Also TEME states (the sgp4 model's own; the other models' rotated from GCRF). */
+  readonly teme?: boolean;
 }
 
 export interface TrackJobResult {
@@ -142,6 +146,8 @@ export interface TrackJobResult {
   readonly earthFixed: Float64Array | null;
   /** Latitude, longitude (rad), height (km), 3 per sample; null unless asked. */
   readonly geodetic: Float64Array | null;
+  /** TEME states, 6 per sample; null unless asked. */
+  readonly teme: Float64Array | null;
 }
 
 /** A whole pass search; the propagator is rebuilt in the worker from the propagation spec (plain data). */
@@ -222,7 +228,8 @@ function runTrack(job: TrackJob): Outcome<TrackJobResult> {
   if (!run.ok) return run;
   const earthFixed = job.earthFixed ? gcrfToItrfBatch(run.value.epochsTT, run.value.states, job.earthFixed) : null;
   const geodetic = job.geodetic && earthFixed ? geodeticBatch(earthFixed) : null;
-  return success({ track: run.value, earthFixed, geodetic });
+  const teme = job.teme ? run.value.teme ?? gcrfToTemeBatch(run.value.epochsTT, run.value.states, job.earthFixed ?? {}) : null;
+  return success({ track: run.value, earthFixed, geodetic, teme });
 }
 
 function runPasses(job: PassesJob): Outcome<PassesJobResult> {
@@ -291,9 +298,11 @@ export function toWire(kind: JobKind, result: JobResult<Job>): Wire {
     case 'track': {
       const r = result as Outcome<TrackJobResult>;
       if (r.ok) {
-        const { track, earthFixed, geodetic } = r.value;
+        const { track, earthFixed, geodetic, teme } = r.value;
         keep(track.epochsTT);
         keep(track.states);
+        if (track.teme) keep(track.teme);
+        if (teme) keep(teme);
         if (earthFixed) keep(earthFixed);
         if (geodetic) keep(geodetic);
       }

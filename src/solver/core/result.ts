@@ -20,6 +20,7 @@ export const SOLVER_FAILURE_CODES = [
   'energy-below-minimum',
   'no-radial-period',
   'outside-coverage',
+  'sgp4-failed',
 ] as const;
 
 export type SolverFailureCode = (typeof SOLVER_FAILURE_CODES)[number];

@@ -4,6 +4,8 @@
 //   j2-analytic Brouwer-Lyddane J2 theory: secular drift plus the short-period terms (j2-analytic.ts)
 //   numerical   integrated two-body gravity plus chosen forces (J2, drag, Sun, Moon, radiation pressure)
 //   ephemeris   states interpolated from given nodes (ephemeris.ts); r0, v0, epochTT are its first node
+//   sgp4        the SGP4/SDP4 method from catalogue mean elements (sgp4.ts); r0, v0, epochTT are its
+//               GCRF state at the element epoch
 
 import type { CentralBody } from '../bodies/bodies.js';
 import { checkCoverage, ephemerisInterpolator, ephemerisStates, type Ephemeris } from './ephemeris.js';
@@ -15,10 +17,11 @@ import { failure, success, type Outcome } from '../core/result.js';
 import { propagate, propagateGrid } from '../conic/universal.js';
 import type { Vec3 } from '../core/vec3.js';
 import { cubicHermiteWeights } from '../numerics/hermite.js';
+import { sgp4StateFunction, sgp4StatesGcrf, type Sgp4ElementSet } from './sgp4.js';
 
 /** The models that propagate an initial state. */
 export const STATE_MODELS = ['two-body', 'j2-secular', 'j2-analytic', 'numerical'] as const;
-export const MODELS = [...STATE_MODELS, 'ephemeris'] as const;
+export const MODELS = [...STATE_MODELS, 'ephemeris', 'sgp4'] as const;
 export type Model = (typeof MODELS)[number];
 
 export interface PropagationSpec {
@@ -34,7 +37,14 @@ export interface PropagationSpec {
   readonly passThroughBody?: boolean;
   /** The nodes of the ephemeris model (required by it, ignored by the others). */
   readonly ephemeris?: Ephemeris;
+  /** The element set of the sgp4 model (required by it, ignored by the others). */
+  readonly sgp4?: Sgp4ElementSet;
 }
+
+const sgp4Of = (spec: PropagationSpec): Sgp4ElementSet => {
+  if (!spec.sgp4) throw new TypeError('the sgp4 model needs spec.sgp4');
+  return spec.sgp4;
+};
 
 const ephemerisOf = (spec: PropagationSpec): Ephemeris => {
   if (!spec.ephemeris) throw new TypeError('the ephemeris model needs spec.ephemeris');
@@ -73,6 +83,8 @@ export function statesAt(spec: PropagationSpec, epochsTT: Float64Array): Outcome
       const run = ephemerisStates(ephemerisOf(spec), epochsTT);
       return run.ok ? success(run.value.states) : run;
     }
+    case 'sgp4':
+      return sgp4StatesGcrf(sgp4Of(spec), epochsTT);
     case 'numerical': {
       const run = propagateNumerical({ body, forces: spec.forces ?? [], r0, v0, epochTT, epochsTT, passThroughBody: spec.passThroughBody ?? false });
       return run.ok ? success(run.value.states) : run;
@@ -94,6 +106,7 @@ export function stateFunction(spec: PropagationSpec, startTT: number, stopTT: nu
   if (spec.model === 'j2-secular') return j2SecularPropagator(body, r0, v0, epochTT);
   // The same spin axis as the numerical model over this span (its nodes run from startTT to stopTT).
   if (spec.model === 'j2-analytic') return j2AnalyticPropagator(body, r0, v0, epochTT, bodySpinAxis(body, spanMiddle(epochTT, [startTT, stopTT])));
+  if (spec.model === 'sgp4') return success(sgp4StateFunction(sgp4Of(spec), startTT, stopTT));
   if (spec.model === 'ephemeris') {
     const e = ephemerisOf(spec);
     const covered = checkCoverage(e, startTT, stopTT);

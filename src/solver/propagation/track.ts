@@ -10,6 +10,8 @@ import { MODELS, statesAt, type PropagationSpec } from './propagator.js';
 import { conservationDrift, type ConservationDrift } from '../conic/universal.js';
 import type { Vec3 } from '../core/vec3.js';
 import { bodySpinAxis, spanMiddle } from './numerical.js';
+import { temeToGcrfBatch } from '../earth/teme.js';
+import { sgp4StatesTeme } from './sgp4.js';
 
 export const TRACK_MODELS = MODELS;
 
@@ -28,13 +30,22 @@ export interface Track {
   readonly conservation: Conservation;
   /** The ephemeris model: how it interpolated and its error estimate (absent for the other models). */
   readonly interpolation?: InterpolationReport;
+  /** The sgp4 model: the method's own TEME states (6 per sample), before their rotation to GCRF. */
+  readonly teme?: Float64Array;
 }
 
 export function propagateTrack(input: TrackInput): Outcome<Track> {
   const { body, epochsTT } = input;
   let interpolation: InterpolationReport | undefined;
   let states: Float64Array;
-  if (input.model === 'ephemeris') {
+  let teme: Float64Array | undefined;
+  if (input.model === 'sgp4') {
+    if (!input.sgp4) throw new TypeError('the sgp4 model needs input.sgp4');
+    const run = sgp4StatesTeme(input.sgp4, epochsTT);
+    if (!run.ok) return run;
+    teme = run.value;
+    states = temeToGcrfBatch(epochsTT, teme);
+  } else if (input.model === 'ephemeris') {
     if (!input.ephemeris) throw new TypeError('the ephemeris model needs input.ephemeris');
     const run = ephemerisStates(input.ephemeris, epochsTT);
     if (!run.ok) return run;
@@ -50,6 +61,7 @@ export function propagateTrack(input: TrackInput): Outcome<Track> {
     if (hit) return hit;
   }
   const conservation = conservationOf(input, states);
+  if (teme) return success({ epochsTT, states, conservation, teme });
   return success(interpolation ? { epochsTT, states, conservation, interpolation } : { epochsTT, states, conservation });
 }
 
@@ -75,6 +87,7 @@ export interface Conservation {
 function conservationOf(input: TrackInput, states: Float64Array): Conservation {
   const { body, model } = input;
   const forces = input.forces ?? [];
+  if (model === 'sgp4') return { quantity: 'none', drift: null, meaning: 'SGP4 mean elements with drag and (deep space) lunar-solar terms: no conserved quantity, so no drift is reported' };
   if (model === 'ephemeris') return { quantity: 'none', drift: null, meaning: 'interpolated from the given ephemeris: no dynamics of the service\'s own to conserve anything' };
   if (model === 'two-body') return { quantity: 'two-body', drift: conservationDrift({ states }, body.gm), meaning: 'exact invariants of Keplerian motion: the drift is rounding' };
   if (model === 'numerical' && forces.length === 0) {
@@ -144,7 +157,8 @@ function surfaceCrossing(input: TrackInput, states: Float64Array): Outcome<never
       return failure('impact', `the trajectory is below the ${body.name} radius (${radius} km) at sample ${i}; set passThroughBody to propagate it as a point mass anyway`);
     }
   }
-  if (input.model === 'ephemeris') return undefined; // given states: the samples are all there is to check
+  // Given states, and SGP4 (whose mean elements are no conic; it reports decay itself): the samples are all there is to check.
+  if (input.model === 'ephemeris' || input.model === 'sgp4') return undefined;
   const el = stateToElements(r0, v0, body.gm);
   if (!el.ok) return el;
   const { semiLatusRectum: p, eccentricity: e, semiMajorAxis: a, meanAnomaly: m0, orbitType } = el.value;
