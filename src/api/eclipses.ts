@@ -7,7 +7,7 @@ import type { FrameOptions } from '../solver/earth/frames.js';
 import type { Eclipse as SolverEclipse, EclipseSearchResult } from '../solver/light/eclipses.js';
 import { formatUtcIso } from '../solver/time/time.js';
 import type { Eclipse, EclipsesAnswer, EclipsesRequest } from '../schemas/eclipses.js';
-import type { EclipsesJob } from '../workers/jobs.js';
+import type { EclipsesJob, PropagationStop } from '../workers/jobs.js';
 import { epochTT } from './epoch.js';
 import { searchWindow } from './search-window.js';
 
@@ -35,7 +35,7 @@ const toEclipse = (e: SolverEclipse): Eclipse => ({
 });
 
 /** The /v1/eclipses answer for a finished search. */
-export function toEclipsesAnswer(req: Omit<EclipsesRequest, 'format'>, hash: string, found: EclipseSearchResult): EclipsesAnswer {
+export function toEclipsesAnswer(req: Omit<EclipsesRequest, 'format'>, hash: string, found: EclipseSearchResult & { stopped?: PropagationStop }): EclipsesAnswer {
   return {
     scenarioHash: hash,
     model: req.model,
@@ -47,5 +47,6 @@ export function toEclipsesAnswer(req: Omit<EclipsesRequest, 'format'>, hash: str
     beta: { start: found.beta.start * RAD, min: found.beta.min * RAD, max: found.beta.max * RAD },
     sunSynchronous: found.sunSynchronous,
     ascendingNodeLocalTime: found.sunSynchronous ? found.nodeLocalTimeH : null,
+    ...(found.stopped ? { propagationStopped: { epoch: formatUtcIso(found.stopped.epochTT), code: found.stopped.code, reason: found.stopped.message } } : {}),
   };
 }

@@ -114,5 +114,6 @@ export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string,
       : {}),
     passes: found.passes.map((p, i) => toPassAnswer(p, found.light[i]!, req.pointing?.carrierFrequency,
       found.sunAvoidance && req.sunAvoidance ? { result: found.sunAvoidance[i]!, limit: req.sunAvoidance.angle * DEG } : undefined)),
+    ...(found.stopped ? { propagationStopped: { epoch: formatUtcIso(found.stopped.epochTT), code: found.stopped.code, reason: found.stopped.message } } : {}),
   };
 }

@@ -773,6 +773,7 @@ export interface components {
             model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris" | "sgp4";
             /** @description The Moon's shadow, in time order; null unless moon was asked */
             moonEclipses: components["schemas"]["Eclipse"][] | null;
+            propagationStopped?: components["schemas"]["PropagationStopped"];
             /** @description SHA-256 (hex) of the normalised scenario and the solver version; also the ETag */
             scenarioHash: string;
             /** @description The shadow model and the Sun used, in words */
@@ -1358,6 +1359,7 @@ export interface components {
             model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris" | "sgp4";
             /** @description In time order of AOS, then station order */
             passes: components["schemas"]["Pass"][];
+            propagationStopped?: components["schemas"]["PropagationStopped"];
             /** @description Present when refraction was asked: the elevations of the answer (limits, AOS/LOS, maxElevation, pointing) are apparent ones. Absent: geometric elevations */
             refraction?: {
                 /** @enum {string} */
@@ -1541,6 +1543,18 @@ export interface components {
             title: string;
             /** @description /problems/{code}, as problem documents give it */
             type: string;
+        };
+        /** @description Present only when the propagation stopped inside the window: what was found lies before `epoch` */
+        PropagationStopped: {
+            /** @description The problem code the failure has elsewhere (sgp4-failed) */
+            code: string;
+            /**
+             * @description The first epoch (to 1 ms) where the propagation failed
+             * @example 2026-12-01T00:00:00.000Z
+             */
+            epoch: string;
+            /** @description What the method reported, with the epoch */
+            reason: string;
         };
         StateSample: {
             /** @description ISO 8601 UTC */

@@ -1,6 +1,7 @@
 // Catalogue orbit inputs: a two-line element set or a CCSDS OMM (read by src/formats/tle.ts and
 // omm.ts; src/api/catalog.ts turns their problems into 422 answers naming line, columns or keyword).
 import { z } from 'zod';
+import { EpochOut } from './common.js';
 
 export const TleInput = z
   .object({
@@ -23,3 +24,11 @@ export const OmmInput = z
   ])
   .describe('A CCSDS Orbit Mean-elements Message (one segment). Only MEAN_ELEMENT_THEORY SGP4 is propagated (absent is taken as SGP4); SGP, SGP4-XP and others answer 422 omm-unsupported. EPOCH is UTC; MEAN_MOTION in rev/day, angles in deg, BSTAR in 1/earth radii')
   .meta({ id: 'OrbitMeanElementsMessage' });
+
+/** Where a search's propagation stopped inside its window (the sgp4 model's errors): the answer covers the window up to there. */
+export const PropagationStopped = z.object({
+  epoch: EpochOut.describe('The first epoch (to 1 ms) where the propagation failed'),
+  code: z.string().describe('The problem code the failure has elsewhere (sgp4-failed)'),
+  reason: z.string().describe('What the method reported, with the epoch'),
+}).describe('Present only when the propagation stopped inside the window: what was found lies before `epoch`')
+  .meta({ id: 'PropagationStopped' });

@@ -6,6 +6,7 @@ import { MAX_ECLIPSE_WINDOW_S } from '../solver/light/eclipses.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { DEMO_EPOCH, EpochOut, EpochText, refineEpochs, TimeSystemField, ScenarioHash, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
 import { modelFields, withDefaultModel } from './forces.js';
+import { PropagationStopped } from './catalog.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
 /** Answer formats of /v1/eclipses. */
@@ -67,6 +68,7 @@ export const EclipsesAnswer = z.object({
   }).describe('Beta angle of the osculating orbit plane'),
   sunSynchronous: z.boolean().describe('At the window start, the osculating orbit\'s first-order J2 node rate follows the mean Sun (within the tolerance of /v1/orbit)'),
   ascendingNodeLocalTime: z.number().nullable().describe('h, [0, 24): local mean solar time of the ascending node at the window start; null unless sunSynchronous'),
+  propagationStopped: PropagationStopped.optional(),
 })
   .meta({ id: 'EclipsesAnswer' });
 export type EclipsesAnswer = z.infer<typeof EclipsesAnswer>;

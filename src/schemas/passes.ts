@@ -6,6 +6,7 @@ import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { BENNETT_PRESSURE_HPA, BENNETT_TEMPERATURE_C, REFRACTION_MODELS } from '../solver/stations/refraction.js';
 import { DEMO_EPOCH, EpochOut, EpochText, refineEpochs, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
 import { modelFields, withDefaultModel } from './forces.js';
+import { PropagationStopped } from './catalog.js';
 import { DEMO_ELEMENTS, orbitFields, plotFormatField, requireOneOrbitInput } from './orbit.js';
 
 /** Pointing step of the sky plots when the request asks for no pointing track, s. */
@@ -128,6 +129,8 @@ export const Pass = z.object({
 })
   .meta({ id: 'Pass' });
 
+
+
 export const PassesAnswer = z.object({
   scenarioHash: z.string(),
   model: z.enum(TRACK_MODELS),
@@ -139,6 +142,7 @@ export const PassesAnswer = z.object({
     temperature: z.number().optional().describe('deg C (optical)'),
   }).optional().describe('Present when refraction was asked: the elevations of the answer (limits, AOS/LOS, maxElevation, pointing) are apparent ones. Absent: geometric elevations'),
   passes: z.array(Pass).describe('In time order of AOS, then station order'),
+  propagationStopped: PropagationStopped.optional(),
 })
   .meta({ id: 'PassesAnswer' });
 export type PassesAnswer = z.infer<typeof PassesAnswer>;

@@ -20,6 +20,7 @@ import { failure, success, type Failure, type Outcome } from '../solver/core/res
 import { DEFAULT_MAX_STEPS } from '../solver/numerics/ode.js';
 import { propagateTrack, type Track, type TrackInput } from '../solver/propagation/track.js';
 import { stateFunction, type PropagationSpec } from '../solver/propagation/propagator.js';
+import { sgp4FirstStop } from '../solver/propagation/sgp4.js';
 
 // Inline or worker thread is decided by an estimate of the work, in units of about one inertial
 // two-body grid sample (~50 ns on the two-core development machine): a job estimated under
@@ -164,8 +165,17 @@ export interface PassesJob {
   readonly sunAvoidance?: { readonly angle: number };
 }
 
+/** Where a search's propagation stopped (an SGP4 error), when it did: the search covers the window up to there. */
+export interface PropagationStop {
+  readonly epochTT: number;
+  readonly code: Failure['code'];
+  readonly message: string;
+}
+
 /** A pass search and the light on each pass (same order). */
 export interface PassesJobResult extends PassSearchResult {
+  /** Present when the propagation stopped inside the window (passes are those before it). */
+  readonly stopped?: PropagationStop;
   readonly light: readonly PassLight[];
   /** With job.sunAvoidance: per pass (same order). */
   readonly sunAvoidance?: readonly SunAvoidance[];
@@ -198,7 +208,7 @@ export interface CentralForceJobResult {
 interface JobTypes {
   track: { job: TrackJob; result: Outcome<TrackJobResult> };
   passes: { job: PassesJob; result: Outcome<PassesJobResult> };
-  eclipses: { job: EclipsesJob; result: Outcome<EclipseSearchResult> };
+  eclipses: { job: EclipsesJob; result: Outcome<EclipseSearchResult & { stopped?: PropagationStop }> };
   'central-force': { job: CentralForceJob; result: CentralForceJobResult };
 }
 export type JobKind = keyof JobTypes;
@@ -232,7 +242,22 @@ function runTrack(job: TrackJob): Outcome<TrackJobResult> {
   return success({ track: run.value, earthFixed, geodetic, teme });
 }
 
-function runPasses(job: PassesJob): Outcome<PassesJobResult> {
+/** The search window a job can run: to the epoch where SGP4 stops, when it does (a search then reports what it found before). */
+function searchSpan(job: PassesJob | EclipsesJob): { stopTT: number; stopped?: PropagationStop } {
+  if (job.spec.model !== 'sgp4' || !job.spec.sgp4) return { stopTT: job.stopTT };
+  const s = sgp4FirstStop(job.spec.sgp4, job.startTT, job.stopTT);
+  return s ? { stopTT: s.goodUntilTT, stopped: { epochTT: s.failedTT, code: s.failure.code, message: s.failure.message } } : { stopTT: job.stopTT };
+}
+
+function runPasses(whole: PassesJob): Outcome<PassesJobResult> {
+  const span = searchSpan(whole);
+  if (span.stopped && !(span.stopTT > whole.startTT)) return success({ passes: [], coarseStepS: 0, evaluations: 0, light: [], ...(whole.sunAvoidance ? { sunAvoidance: [] } : {}), stopped: span.stopped } as PassesJobResult);
+  const job = { ...whole, stopTT: span.stopTT };
+  const done = runPassesIn(job);
+  return done.ok && span.stopped ? success({ ...done.value, stopped: span.stopped }) : done;
+}
+
+function runPassesIn(job: PassesJob): Outcome<PassesJobResult> {
   const stateAt = stateFunction(job.spec, job.startTT, job.stopTT);
   if (!stateAt.ok) return stateAt;
   const found = findPasses({
@@ -251,10 +276,14 @@ function runPasses(job: PassesJob): Outcome<PassesJobResult> {
   return avoid.ok ? success({ ...found.value, light: light.value, sunAvoidance: avoid.value }) : avoid;
 }
 
-function runEclipses(job: EclipsesJob): Outcome<EclipseSearchResult> {
-  const stateAt = stateFunction(job.spec, job.startTT, job.stopTT);
+function runEclipses(whole: EclipsesJob): Outcome<EclipseSearchResult & { stopped?: PropagationStop }> {
+  const span = searchSpan(whole);
+  // A search needs some span: an SGP4 failure at the window start is the answer itself.
+  if (span.stopped && !(span.stopTT > whole.startTT + 1)) return failure('sgp4-failed', span.stopped.message);
+  const stateAt = stateFunction(whole.spec, whole.startTT, span.stopTT);
   if (!stateAt.ok) return stateAt;
-  return findEclipses({ stateAt: stateAt.value, startTT: job.startTT, stopTT: job.stopTT, options: job.options });
+  const found = findEclipses({ stateAt: stateAt.value, startTT: whole.startTT, stopTT: span.stopTT, options: whole.options });
+  return found.ok && span.stopped ? success({ ...found.value, stopped: span.stopped }) : found;
 }
 
 function runCentralForce(job: CentralForceJob): CentralForceJobResult {

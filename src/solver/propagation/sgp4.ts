@@ -127,6 +127,46 @@ export function sgp4EpochState(set: Sgp4ElementSet, opts: FrameOptions = {}): Ou
   return success({ r: g.r, v: g.v, teme: { r, v } });
 }
 
+/** Where the method first fails in [startTT, stopTT]: the last good epoch (to 1 ms) and the failure; undefined when it never does. */
+export interface Sgp4Stop {
+  /** The last epoch where the method answers, TT (startTT when it fails at once). */
+  readonly goodUntilTT: number;
+  readonly failure: Outcome<never> & { readonly ok: false };
+  /** TT epoch of the failure. */
+  readonly failedTT: number;
+}
+
+/**
+ * Scan [startTT, stopTT] every `stepS` seconds for the first epoch where SGP4 fails, then bisect
+ * to 1 ms. A failure shorter than the step can be missed: a search that meets it then stops
+ * with the failure itself (no passes listed), never with a wrong state.
+ */
+export function sgp4FirstStop(set: Sgp4ElementSet, startTT: number, stopTT: number, stepS = 30): Sgp4Stop | undefined {
+  const satrec = sgp4Init(set);
+  const out = new Float64Array(6);
+  const codeAt = (tt: number): number => sgp4Teme(satrec, (tt - set.epochTT) / 60, out);
+  let code = codeAt(startTT);
+  if (code !== 0) return { goodUntilTT: startTT, failedTT: startTT, failure: sgp4Failure(code, startTT, set) as Sgp4Stop['failure'] };
+  let good = startTT;
+  while (good < stopTT) {
+    const next = Math.min(stopTT, good + stepS);
+    code = codeAt(next);
+    if (code !== 0) {
+      let bad = next;
+      let badCode = code;
+      while (bad - good > 1e-3) {
+        const mid = 0.5 * (good + bad);
+        const c = codeAt(mid);
+        if (c === 0) good = mid;
+        else { bad = mid; badCode = c; }
+      }
+      return { goodUntilTT: good, failedTT: bad, failure: sgp4Failure(badCode, bad, set) as Sgp4Stop['failure'] };
+    }
+    good = next;
+  }
+  return undefined;
+}
+
 /** A GCRF state at any epoch of [startTT, stopTT] (for the pass and eclipse searches), rotated through one orientation table. */
 export function sgp4StateFunction(set: Sgp4ElementSet, startTT: number, stopTT: number, opts: FrameOptions = {}): (tt: number) => Outcome<{ r: Vec3; v: Vec3 }> {
   const satrec = sgp4Init(set);
