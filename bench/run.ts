@@ -9,6 +9,7 @@ import { benchJobs } from './jobs.js';
 import { benchJobsMemory } from './jobs-memory.js';
 import { benchKepler } from './kepler.js';
 import { benchPasses } from './passes.js';
+import { benchSgp4 } from './sgp4.js';
 import { benchTrackHttp } from './track-http.js';
 import { benchTrackKernel } from './track-kernel.js';
 
@@ -18,6 +19,7 @@ const suites: Array<[string, () => Promise<BenchResult[]>]> = [
   ['track-http', benchTrackHttp],
   ['cached-orbit', benchCachedOrbit],
   ['passes', benchPasses],
+  ['sgp4', benchSgp4],
   ['eclipses', benchEclipses],
   ['frames', benchFrames],
   ['jobs', benchJobs],
