@@ -60,7 +60,8 @@ describe('without API_KEYS', () => {
   it('the service is open and says so at start', async () => {
     const lines: string[] = [];
     const stream = new Writable({ write(chunk, _enc, done) { lines.push(String(chunk)); done(); } });
-    const app = await buildApp({ logger: { level: 'warn', stream } });
+    // Event-loop refusals off, as in testApp: a loaded machine must not turn this request into a 503.
+    const app = await buildApp({ logger: { level: 'warn', stream }, config: { MAX_EVENT_LOOP_DELAY_MS: 0 } });
     await app.ready();
     const res = await postJson(app, '/v1/orbit', GOOD.orbit);
     expect(res.statusCode).toBe(200);
