@@ -62,6 +62,20 @@ describe('POST /v1/orbit, format svg', () => {
     expect(((angle + argPeriapsis) % 180 + 180) % 180).toBeCloseTo(0, 1);
   });
 
+  it('an orbit given at periapsis or apoapsis: the position is a ring around the apsis marker, which stays visible', async () => {
+    for (const trueAnomaly of [0, 180]) {
+      const { elements } = await svgOf('/v1/orbit', { ...ECCENTRIC, elements: { ...ECCENTRIC.elements, trueAnomaly } });
+      const position = one(elements, 'position');
+      const apsis = markerCentre(one(elements, trueAnomaly === 0 ? 'periapsis' : 'apoapsis'));
+      const at = markerCentre(position);
+      expect(Math.hypot(at[0] - apsis[0], at[1] - apsis[1])).toBeLessThan(0.05);
+      expect(position.attrs.fill).toBe('none'); // a ring: the marker under it shows
+      expect(Number(position.attrs.r)).toBeGreaterThan(8); // wider than the apsis marker (7 px)
+    }
+    // Away from the apsides the position stays a filled dot.
+    expect(one((await svgOf('/v1/orbit', ECCENTRIC)).elements, 'position').attrs.fill).not.toBe('none');
+  });
+
   it('the demo orbit: body to scale, no apsis missing, same scenario same bytes; Accept chooses it too', async () => {
     const first = await svgOf('/v1/orbit', DEMO_ORBIT);
     const byAccept = await postJson(app, '/v1/orbit', DEMO_ORBIT, { accept: 'image/svg+xml' });

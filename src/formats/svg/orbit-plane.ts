@@ -9,6 +9,8 @@ const RAD_PER_DEG = Math.PI / 180;
 const WIDTH = 640;
 const SIZE = 440;
 const SAMPLES = 721;
+/** Closer than this (px) to an apsis marker, the position is drawn as a ring around it. */
+const ON_APSIS_PX = 10;
 
 export interface OrbitPlaneInput {
   /** The central body's name. */
@@ -63,12 +65,21 @@ export function orbitPlanePanel(o: OrbitPlaneInput): Panel {
   const ext = { uMin: Math.min(...us) - pad, uMax: Math.max(...us) + pad, vMin: Math.min(...vs) - pad, vMax: Math.max(...vs) + pad };
 
   const showApsides = o.orbitType !== 'circular';
+  // A position on an apsis (an orbit given at periapsis, the common case) would hide the apsis
+  // marker under its dot: it is then drawn as a ring around the marker, and the legend says so.
+  const scale = Math.min(SIZE / (ext.uMax - ext.uMin), SIZE / (ext.vMax - ext.vMin));
+  const apsisPoints = showApsides ? [[o.periapsisRadius, 0], ...(o.apoapsisRadius !== null ? [[-o.apoapsisRadius, 0]] : [])] : [];
+  const onApsis = apsisPoints.some(([u, v]) => Math.hypot(now[0] - u!, now[1] - v!) * scale < ON_APSIS_PX);
+  const ring = (x: number, y: number, r: number, extra = ''): string =>
+    `<circle${extra} cx="${px(x)}" cy="${px(y)}" r="${px(r)}" fill="none" stroke="${INK.main}" stroke-width="2"/>`;
   const entries = [
     { glyph: glyph.line(INK.main, 2.2), label: 'orbit' },
     ...(showApsides ? [{ glyph: glyph.diamond(11, 0, 6, INK.accent), label: 'periapsis' }] : []),
     ...(showApsides && o.apoapsisRadius !== null ? [{ glyph: glyph.square(11, 0, 5, INK.accent), label: 'apoapsis' }] : []),
     ...(o.raanDefined ? [{ glyph: glyph.line(INK.axis, 1.2, '8 3 2 3'), label: 'line of nodes' }] : []),
-    { glyph: glyph.dot(11, 0, 5, INK.main, '#ffffff'), label: 'position at epoch' },
+    onApsis
+      ? { glyph: ring(11, 0, 6), label: 'position at epoch (ringed: on an apsis)' }
+      : { glyph: glyph.dot(11, 0, 5, INK.main, '#ffffff'), label: 'position at epoch' },
   ];
   const legend = legendRow(84, 84, WIDTH - 20, entries);
   const top = 84 + legend.height + 8;
@@ -126,7 +137,7 @@ export function orbitPlanePanel(o: OrbitPlaneInput): Panel {
       marks.push(glyph.square(X(apo), Y(apo), 5.5, INK.accent, ' class="apoapsis"'));
     }
   }
-  marks.push(glyph.dot(X(now), Y(now), 5.5, INK.main, '#ffffff', ' class="position"'));
+  marks.push(onApsis ? ring(X(now), Y(now), 11, ' class="position"') : glyph.dot(X(now), Y(now), 5.5, INK.main, '#ffffff', ' class="position"'));
   out.push(`<g>${marks.join('')}</g>`);
   return { height: top + SIZE + 52, body: out.join('\n') };
 }
