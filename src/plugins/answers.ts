@@ -1,5 +1,9 @@
 // The scenario -> cache -> solve pipeline shared by every solving route.
 // Hash the normalised scenario; If-None-Match -> 304; cache hit -> stored bytes; miss -> produce, store, send.
+// Single flight: requests for a scenario whose computation is already running wait for it instead
+// of starting their own (100 identical requests cost one computation and one place in the pool's
+// queue). The computation belongs to the flight, not to the request that started it: a client that
+// goes away stops nothing, and every waiter gets the same answer, or the same failure.
 import { Readable } from 'node:stream';
 import fp from 'fastify-plugin';
 import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
@@ -19,21 +23,26 @@ export interface AnswerService {
   ): Promise<FastifyReply>;
   /**
    * Like respond, for big answers: the text is streamed chunk by chunk as it is formatted (never
-   * held whole unless it is small enough to cache) and stored when complete. produce must do all
-   * checks that can fail before it returns: once streaming starts the status is 200.
+   * held whole unless it is small enough to cache) and stored when complete. produce solves and
+   * returns the formatter: each request sharing the computation calls it for its own chunks. The
+   * formatter must do all checks that can fail before it returns: once streaming starts the status is 200.
    */
   respondStream(
     request: FastifyRequest,
     reply: FastifyReply,
     kind: ScenarioKind,
     scenario: unknown,
-    produce: (hash: string) => StreamedAnswer | Promise<StreamedAnswer>,
+    produce: (hash: string) => Formatter | Promise<Formatter>,
   ): Promise<FastifyReply>;
+  /** Computations running now, by scenario hash (each shared by every request that waits for it). */
+  inFlight(): number;
   sendStored(request: FastifyRequest, reply: FastifyReply, hash: string, answer: CachedAnswer, cacheState: 'hit' | 'miss'): FastifyReply;
 }
 
 /** A streamed answer is a formatter's product: a media type and its chunks. */
 export type StreamedAnswer = Product;
+/** Gives a fresh streamed answer (its own chunks) from a finished computation, each time it is called. */
+export type Formatter = () => StreamedAnswer;
 
 declare module 'fastify' {
   interface FastifyInstance {
@@ -64,6 +73,20 @@ export interface AnswersOptions {
 
 export default fp(async function answers(app: FastifyInstance, opts: AnswersOptions) {
   const { cache, maxStoredBytes } = opts;
+  // Running computations by scenario hash; an entry leaves when its computation settles.
+  const flights = new Map<string, Promise<CachedAnswer>>();
+  const streamFlights = new Map<string, Promise<Formatter>>();
+
+  /** The running computation of hash, or a new one started with start. */
+  function shared<T>(table: Map<string, Promise<T>>, hash: string, start: () => Promise<T>): Promise<T> {
+    const running = table.get(hash);
+    if (running) return running;
+    const flight = start();
+    table.set(hash, flight);
+    const leave = () => { table.delete(hash); };
+    flight.then(leave, leave);
+    return flight;
+  }
 
   const headers = (reply: FastifyReply, hash: string, cacheState: 'hit' | 'miss', contentType: string): FastifyReply =>
     reply
@@ -108,15 +131,20 @@ export default fp(async function answers(app: FastifyInstance, opts: AnswersOpti
     sendStored,
     respond: (request, reply, kind, scenario, produce) =>
       lookup(request, reply, kind, scenario, async (hash) => {
-        const answer = await produce(hash);
-        await cache.set(hash, answer);
+        const answer = await shared(flights, hash, async () => {
+          const produced = await produce(hash);
+          await cache.set(hash, produced);
+          return produced;
+        });
         return sendStored(request, reply, hash, answer, 'miss');
       }),
     respondStream: (request, reply, kind, scenario, produce) =>
       lookup(request, reply, kind, scenario, async (hash) => {
-        const answer = await produce(hash);
+        const format = await shared(streamFlights, hash, async () => produce(hash));
+        const answer = format();
         return headers(reply, hash, 'miss', answer.contentType).send(streamAndStore(hash, answer));
       }),
+    inFlight: () => flights.size + streamFlights.size,
   };
   app.decorate('answers', service);
   app.addHook('onClose', async () => cache.close());

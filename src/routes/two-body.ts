@@ -85,7 +85,7 @@ const twoBody: FastifyPluginAsyncZod = async (app) => {
         };
         assertFinite(tracks.head, 'answer.tracks');
       }
-      return { contentType: JSON_MEDIA_TYPE, chunks: answerChunks(head, tracks) };
+      return () => ({ contentType: JSON_MEDIA_TYPE, chunks: answerChunks(head, tracks) });
     });
   });
 };
