@@ -11,7 +11,7 @@ export interface ErrorEntry {
 }
 
 const SERVICE_ERRORS = {
-  'validation-failed': { status: 400, title: 'Request does not match the schema', meaning: 'A field is missing, has the wrong type, or is out of range; `errors` lists each offending field by its path.' },
+  'validation-failed': { status: 400, title: 'Request does not match the schema', meaning: 'A field is missing, has the wrong type, or is out of range; `errors` lists each offending field by its path, and a field that must be one of a list of names (or a name or an object) lists the names allowed. A body whose only issues are of one kind that has its own code (invalid-epoch, epoch-out-of-range, eccentricity-out-of-range) is answered with that code instead, with the same `errors` list.' },
   'malformed-json': { status: 400, title: 'Body is not valid JSON', meaning: 'The request body could not be parsed as JSON.' },
   'json-too-deep': { status: 400, title: 'Body nested too deeply', meaning: 'Objects and arrays in the body are nested deeper than MAX_JSON_DEPTH; no request of this service needs that.' },
   'malformed-url': { status: 400, title: 'URL is not valid', meaning: 'The request path holds a bad percent-encoding or is otherwise not a URL this service can read.' },
@@ -20,7 +20,7 @@ const SERVICE_ERRORS = {
   'header-too-large': { status: 431, title: 'Request headers too large', meaning: 'The request headers exceed the server\'s header size limit.' },
   'request-timeout': { status: 408, title: 'Request not received in time', meaning: 'The client did not send the whole request (headers and body) within the configured time (HEADERS_TIMEOUT_S, BODY_TIMEOUT_S); the connection is closed.' },
   'body-too-large': { status: 413, title: 'Body too large', meaning: 'The request body exceeds the configured BODY_LIMIT_BYTES.' },
-  'unsupported-media-type': { status: 415, title: 'Unsupported media type', meaning: 'POST bodies must be application/json.' },
+  'unsupported-media-type': { status: 415, title: 'Unsupported media type', meaning: 'POST bodies must be sent with Content-Type application/json; a body of any other type (text/plain, form data, none named) is refused before it is read.' },
   'not-acceptable': { status: 406, title: 'No acceptable representation', meaning: 'The Accept header names no format this endpoint can produce.' },
   'unauthorized': { status: 401, title: 'API key missing or not valid', meaning: 'With API keys configured, requests under /v1 need `Authorization: Bearer <key>` with a key listed in API_KEYS, and /metrics a key or METRICS_TOKEN; WWW-Authenticate says whether the key was missing or not valid (RFC 6750).' },
   'rate-limited': { status: 429, title: 'Too many requests', meaning: 'This API key (or, when the service is open, this client address) sent more requests this minute than RATE_LIMIT_PER_MIN (reads and POST /v1/orbit) or RATE_LIMIT_HEAVY_PER_MIN (other POSTs under /v1); retry after the seconds in Retry-After. RateLimit-Limit, RateLimit-Remaining and RateLimit-Reset say where the budget stands.' },
@@ -53,16 +53,15 @@ const SERVICE_ERRORS = {
 
 /** Expected solver failures: physically impossible or numerically unsolvable scenarios answer 422. */
 const SOLVER_ERRORS: Record<SolverFailureCode, ErrorEntry> = {
-  'invalid-epoch': { status: 400, title: 'Epoch is not a date', meaning: 'An epoch is not an ISO 8601 UTC timestamp of a real date and time.' },
-  'epoch-out-of-range': { status: 422, title: 'Epoch out of the supported range', meaning: 'Epochs must lie in 1972-2199 UTC (UTC before 1972 had no leap-second form).' },
+  'invalid-epoch': { status: 400, title: 'Epoch is not a date', meaning: 'An epoch is not calendar text of a real date and time in its time system (ISO 8601 ending in Z for UTC, the default; zone-less text for TAI, TT and GPS; a second 60 only inside a UTC leap second); `errors` names each such field.' },
+  'epoch-out-of-range': { status: 422, title: 'Epoch out of the supported range', meaning: 'Epochs must lie in 1972-2199 UTC (UTC before 1972 had no leap-second form), an epoch given in TAI, TT or GPS included once written in UTC; `errors` names each such field.' },
   'zero-position': { status: 422, title: 'Position is zero', meaning: 'The position vector (or the separation of two bodies) has zero length: no orbit is defined.' },
   'rectilinear-motion': { status: 422, title: 'Rectilinear motion', meaning: 'The angular momentum is zero (velocity parallel to position): there is no orbital plane.' },
-  'eccentricity-out-of-range': { status: 422, title: 'Eccentricity out of range', meaning: 'Eccentricity must be a finite number >= 0.' },
+  'eccentricity-out-of-range': { status: 422, title: 'Eccentricity out of range', meaning: 'Eccentricity must be a finite number >= 0 (elements.eccentricity; `errors` names the field).' },
   'semi-major-axis-sign': { status: 422, title: 'Semi-major axis inconsistent with the eccentricity', meaning: 'Ellipses need a > 0, hyperbolas a < 0, and a parabola (e = 1) is given by its semi-latus rectum.' },
   'anomaly-beyond-asymptote': { status: 422, title: 'True anomaly beyond the asymptote', meaning: 'On a hyperbola the true anomaly must satisfy |nu| < acos(-1/e).' },
   'no-convergence': { status: 422, title: 'Solver did not converge', meaning: 'An iterative solution did not converge within its iteration limit for this input.' },
   'impact': { status: 422, title: 'Trajectory meets the central body', meaning: 'The trajectory passes below the central body radius while the request asked for a trajectory that does not.' },
-  'parabolic-no-period': { status: 422, title: 'A parabola has no period', meaning: 'The quantity asked for exists only for bound orbits.' },
   'invalid-parameter': { status: 422, title: 'Parameter out of its physical range', meaning: 'A number is outside the range where the physics is defined (the detail names it).' },
   'invalid-horizon-mask': { status: 422, title: 'Horizon mask is not usable', meaning: 'A station horizon mask has azimuths outside [0, 360), repeated azimuths or elevations outside [-90, 90].' },
   'window-too-long': { status: 422, title: 'Time window too long', meaning: 'The pass- or eclipse-search window is longer than the service accepts; the detail names the maximum.' },

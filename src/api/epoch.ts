@@ -7,6 +7,7 @@
 // spelling gives one scenario, one hash and one answer.
 import { epochAsUtc, parseEpochIn, type TimeSystem } from '../solver/time/time-systems.js';
 import { parseUtcIso } from '../solver/time/time.js';
+import type { SolverFailureCode } from '../solver/core/result.js';
 
 /** Text already in the canonical spelling (a validated UTC epoch: no test of the date needed). */
 const CANONICAL = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(?:\.\d*[1-9])?Z$/;
@@ -19,17 +20,24 @@ export function canonicalEpoch(text: string, system: TimeSystem = 'UTC'): string
   return utc.value;
 }
 
-/** Why `text` is not an epoch in `system`, or undefined when it is one (schemas use this). */
-export function epochProblem(text: string, system: TimeSystem = 'UTC'): string | undefined {
+/** Why `text` is not an epoch in `system` (code invalid-epoch or epoch-out-of-range, and the reason), or undefined when it is one (schemas use this). */
+export function epochProblem(text: string, system: TimeSystem = 'UTC'): EpochProblem | undefined {
   const parsed = system === 'UTC' ? parseUtcIso(text) : parseEpochIn(text, system);
-  if (!parsed.ok) return parsed.message;
+  if (!parsed.ok) return { code: epochCode(parsed.code), message: parsed.message };
   // The instant must also be writable as UTC within the supported years (a TT epoch on the last day of 2199...).
   if (system !== 'UTC') {
     const utc = epochAsUtc(text, system);
-    if (!utc.ok) return utc.message;
+    if (!utc.ok) return { code: epochCode(utc.code), message: utc.message };
   }
   return undefined;
 }
+
+export interface EpochProblem {
+  readonly code: 'invalid-epoch' | 'epoch-out-of-range';
+  readonly message: string;
+}
+
+const epochCode = (code: SolverFailureCode): EpochProblem['code'] => (code === 'epoch-out-of-range' ? 'epoch-out-of-range' : 'invalid-epoch');
 
 /** TT seconds since J2000 of an epoch the schema has already validated. */
 export function epochTT(text: string, system: TimeSystem = 'UTC'): number {

@@ -8,7 +8,9 @@ import { epochTT } from './epoch.js';
 export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
   const system = grid.timeSystem ?? 'UTC';
   if (grid.times) {
-    if (grid.times.length > max) throw new ProblemError('too-many-samples', `${grid.times.length} times asked; the maximum is ${max} samples`);
+    if (grid.times.length > max) {
+      throw new ProblemError('too-many-samples', `${grid.times.length} times asked; the maximum is ${max} samples`, { errors: [{ path: 'body.grid.times', message: `more than ${max} samples` }] });
+    }
     return Float64Array.from(grid.times, (t) => epochTT(t, system));
   }
   const [start, stop] = [epochTT(grid.start!, system), epochTT(grid.stop!, system)];
@@ -16,7 +18,7 @@ export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
   // Written so that a NaN count is refused too; nothing is allocated before this check.
   if (!(count <= max)) {
     const asked = Number.isFinite(count) ? `the grid has ${count} samples` : `a step of ${grid.step} s gives more samples than a double counts`;
-    throw new ProblemError('too-many-samples', `${asked}; the maximum is ${max} (use a longer step or a shorter span)`);
+    throw new ProblemError('too-many-samples', `${asked}; the maximum is ${max} (use a longer step or a shorter span)`, { errors: [{ path: 'body.grid.step', message: `gives more than ${max} samples` }] });
   }
   return regularGrid(start, stop, grid.step!);
 }

@@ -97,6 +97,9 @@ export default fp(async function body(app: FastifyInstance) {
 
   // The body text as received, for the request memo (src/plugins/memo.ts) once it parsed cleanly.
   app.decorateRequest('bodyText', null);
+  // JSON only: fastify's own text/plain parser would hand a string to the schema (a 400 "expected
+  // object"); without it a text body is 415 unsupported-media-type like any other type.
+  app.removeContentTypeParser('text/plain');
   app.removeContentTypeParser('application/json');
   app.addContentTypeParser('application/json', { parseAs: 'string' }, (request, text, done) => {
     const json = text as string;

@@ -68,6 +68,48 @@ function listed(errors: readonly FieldIssue[], total = errors.length): { errors:
   };
 }
 
+interface ValidationItem {
+  readonly instancePath: string;
+  readonly message?: string | undefined;
+  readonly keyword?: string;
+  readonly params?: Record<string, unknown>;
+}
+interface PlainIssue {
+  readonly path: readonly PropertyKey[];
+  readonly message: string;
+  readonly code?: string;
+  readonly expected?: string;
+  readonly values?: readonly unknown[];
+  readonly errors?: readonly (readonly PlainIssue[])[];
+}
+
+/** The table code a schema issue carries (codedIssue in src/schemas/common.ts), else validation-failed. */
+function issueCode(v: ValidationItem): ErrorCode {
+  const inner = v.params?.params as { problem?: unknown } | undefined;
+  const code = typeof inner?.problem === 'string' ? inner.problem : undefined;
+  return code !== undefined && isErrorCode(code) ? code : 'validation-failed';
+}
+
+/**
+ * The issues of one validation item, paths relative to the body. A union (a built-in body name or
+ * an object) is explained by the one branch that fits the value (an object with a bad field gets
+ * that field's issue); when none fits, the alternatives are listed, so "pluto" reads
+ * `expected one of "sun"|...|"neptune", or an object` rather than zod's bare "Invalid input".
+ */
+function schemaIssues(v: ValidationItem): PlainIssue[] {
+  const path = v.instancePath.split('/').filter((p) => p !== '');
+  const message = v.message ?? 'invalid';
+  if (v.keyword !== 'invalid_union' || !Array.isArray(v.params?.errors) || v.params.errors.length === 0) return [{ path, message }];
+  const branches = v.params.errors as readonly (readonly PlainIssue[])[];
+  // A branch that refuses the value as a whole (not its type, not one of its values) does not fit it.
+  const refusesWhole = (b: readonly PlainIssue[]) => b.length === 1 && (b[0]!.code === 'invalid_type' || b[0]!.code === 'invalid_value') && b[0]!.path.length === 0;
+  const fitting = branches.filter((b) => !refusesWhole(b));
+  if (fitting.length === 1) return fitting[0]!.map((i) => ({ path: [...path, ...i.path], message: i.message }));
+  const wanted = branches.flatMap((b) => b.map((i) =>
+    i.code === 'invalid_value' && i.values ? `one of ${i.values.map((x) => JSON.stringify(x)).join('|')}` : i.code === 'invalid_type' && i.expected ? `a${/^[aeiou]/.test(i.expected) ? 'n' : ''} ${i.expected}` : i.message));
+  return [{ path, message: `Invalid input: expected ${[...new Set(wanted)].join(', or ')}` }];
+}
+
 /** Fastify's own client errors (body parsing, media type, size) mapped to our codes. */
 const FASTIFY_CODES: Record<string, ErrorCode> = {
   FST_ERR_CTP_INVALID_MEDIA_TYPE: 'unsupported-media-type',
@@ -79,21 +121,31 @@ const FASTIFY_CODES: Record<string, ErrorCode> = {
   FST_ERR_MAX_PARAM_LENGTH: 'uri-too-long',
 };
 
-function toProblem(error: FastifyError): ProblemError {
+function toProblem(error: FastifyError, request: FastifyRequest): ProblemError {
   if (error instanceof ProblemError) return error;
   if (hasZodFastifySchemaValidationErrors(error)) {
     const where = error.validationContext ?? 'body';
     // Only the first issues are turned into text; the count says how many there were.
-    const errors = error.validation.slice(0, MAX_LISTED_ISSUES).map((v) => ({
-      path: clip(`${where}${v.instancePath === '/' ? '' : v.instancePath.replaceAll('/', '.')}`),
-      message: clip(v.message ?? 'invalid'),
+    const issues = error.validation.slice(0, MAX_LISTED_ISSUES).flatMap((v) => schemaIssues(v));
+    const errors = issues.slice(0, MAX_LISTED_ISSUES).map((v) => ({
+      path: clip(`${where}${v.path.map((p) => `.${String(p)}`).join('')}`),
+      message: clip(v.message),
     }));
-    const more = error.validation.length - errors.length;
+    const total = Math.max(error.validation.length, errors.length);
+    const more = total - errors.length;
     const summary = errors.slice(0, 3).map((e) => `${e.path}: ${e.message}`).join('; ');
-    const rest = error.validation.length > 3 ? ` (and ${error.validation.length - 3} more${more > 0 ? `, ${MAX_LISTED_ISSUES} listed` : ''})` : '';
-    return new ProblemError('validation-failed', `The request does not match the schema: ${summary}${rest}`, { errors, errorCount: error.validation.length });
+    const rest = total > 3 ? ` (and ${total - 3} more${more > 0 ? `, ${MAX_LISTED_ISSUES} listed` : ''})` : '';
+    // A body whose every issue carries one code of the table (an epoch that is not a date, ...) is answered with it.
+    const codes = new Set(error.validation.map(issueCode));
+    const code = codes.size === 1 ? [...codes][0]! : 'validation-failed';
+    const lead = code === 'validation-failed' ? 'The request does not match the schema' : ERRORS[code].title;
+    return new ProblemError(code, `${lead}: ${summary}${rest}`, { errors, errorCount: total });
   }
   const mapped = error.code ? FASTIFY_CODES[error.code] : undefined;
+  if (mapped === 'unsupported-media-type') {
+    const given = request.headers['content-type'];
+    return new ProblemError(mapped, `${given === undefined ? 'a body without a Content-Type' : `Content-Type ${JSON.stringify(clip(given, 100))}`} is not read here: send the body as application/json`);
+  }
   if (mapped) return new ProblemError(mapped, error.message);
   if (error instanceof SyntaxError || (error.statusCode === 400 && /JSON/i.test(error.message))) {
     return new ProblemError('malformed-json', `The body is not valid JSON: ${error.message}`);
@@ -137,7 +189,7 @@ export function clientErrorHandler(error: NodeJS.ErrnoException, socket: Socket)
 
 export default fp(async function problems(app: FastifyInstance) {
   app.setErrorHandler((error: FastifyError, request, reply) => {
-    const problem = toProblem(error);
+    const problem = toProblem(error, request);
     if (problem.status >= 500) request.log.error({ err: error }, 'request failed');
     else request.log.info({ code: problem.code, detail: clip(problem.message) }, 'client error');
     return sendProblem(request, reply, problem);

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { SPEED_OF_LIGHT_KM_S } from '../solver/core/constants.js';
 import { parseUtcIso } from '../solver/time/time.js';
+import type { ErrorCode } from '../errors.js';
 import { TIME_SYSTEMS, type TimeSystem } from '../solver/time/time-systems.js';
 import { epochProblem } from '../api/epoch.js';
 
@@ -19,11 +20,20 @@ export const PositionKm = z.tuple([bounded(MAX_POSITION_KM), bounded(MAX_POSITIO
 export const VelocityKmS = z.tuple([bounded(MAX_SPEED_KM_S), bounded(MAX_SPEED_KM_S), bounded(MAX_SPEED_KM_S)])
   .describe('Velocity [vx, vy, vz] in km/s, each component below the speed of light');
 
+/**
+ * A schema issue answered with its own code of the error table rather than validation-failed
+ * (src/plugins/problems.ts reads `params.problem`: a body whose every issue carries one code is
+ * answered with that code).
+ */
+export function codedIssue(code: ErrorCode, message: string, path?: (string | number)[]): z.core.$ZodRawIssue {
+  return { code: 'custom', message, params: { problem: code }, input: undefined, ...(path ? { path } : {}) };
+}
+
 export const Epoch = z
   .string()
   .superRefine((text, ctx) => {
-    const parsed = parseUtcIso(text);
-    if (!parsed.ok) ctx.addIssue({ code: 'custom', message: parsed.message });
+    const problem = epochProblem(text, 'UTC');
+    if (problem) ctx.addIssue(codedIssue(problem.code, problem.message));
   })
   .describe('Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table')
   .meta({ example: DEMO_EPOCH });
@@ -36,13 +46,14 @@ export const TimeSystemField = z.enum(TIME_SYSTEMS).optional().describe(
 /** An epoch whose time system is named beside it: checked by refineEpochs on the enclosing object. */
 // Alone the text is checked as a date (as UTC when it carries a zone, else as zone-less calendar
 // text); refineEpochs then checks it in the part's own time system.
-const epochTextProblem = (text: string): string | undefined => epochProblem(text, /(?:Z|[+-]00:00)$/.test(text) ? 'UTC' : 'TAI');
+const hasZone = (text: string): boolean => /(?:Z|[+-]00:00)$/.test(text);
+const epochTextProblem = (text: string) => epochProblem(text, hasZone(text) ? 'UTC' : 'TAI');
 /** True for a string EpochText accepts (a cheap test for long lists). */
 export const isEpochText = (value: unknown): boolean => typeof value === 'string' && value.length <= 64 && epochTextProblem(value) === undefined;
 export const EpochText = z.string().max(64)
   .superRefine((text, ctx) => {
     const problem = epochTextProblem(text);
-    if (problem) ctx.addIssue({ code: 'custom', message: problem });
+    if (problem) ctx.addIssue(codedIssue(problem.code, problem.message));
   })
   .describe('Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199').meta({ example: DEMO_EPOCH });
 
@@ -52,9 +63,10 @@ export function refineEpochs(keys: readonly string[]) {
     const system = obj.timeSystem ?? 'UTC';
     for (const key of keys) {
       const v = obj[key];
-      if (typeof v !== 'string') continue;
+      // Text EpochText refused is reported once (by it); UTC text with its zone it has checked already.
+      if (typeof v !== 'string' || (system === 'UTC' && hasZone(v)) || epochTextProblem(v) !== undefined) continue;
       const problem = epochProblem(v, system);
-      if (problem) ctx.addIssue({ code: 'custom', path: [key], message: problem });
+      if (problem) ctx.addIssue(codedIssue(problem.code, problem.message, [key]));
     }
   };
 }

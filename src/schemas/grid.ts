@@ -1,7 +1,7 @@
 // Time grids at the API: a regular grid (start, stop, step) or a list of epochs.
 import { z } from 'zod';
 import { epochProblem } from '../api/epoch.js';
-import { EpochText, isEpochText, refineEpochs, TimeSystemField } from './common.js';
+import { codedIssue, EpochText, isEpochText, refineEpochs, TimeSystemField } from './common.js';
 import { boundedList, MAX_LISTED_ISSUES } from './list.js';
 
 export const TimeGrid = z
@@ -21,8 +21,9 @@ export const TimeGrid = z
     for (let i = 0; i < g.times.length && bad < MAX_LISTED_ISSUES; i++) {
       const t = g.times[i]!;
       if (system === 'UTC' && t.endsWith('Z')) continue; // checked as UTC already (EpochText)
+      if (!isEpochText(t)) continue; // refused by EpochText already
       const problem = epochProblem(t, system);
-      if (problem) { bad++; ctx.addIssue({ code: 'custom', path: ['times', i], message: problem }); }
+      if (problem) { bad++; ctx.addIssue(codedIssue(problem.code, problem.message, ['times', i])); }
     }
   })
   .superRefine((g, ctx) => {

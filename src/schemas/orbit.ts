@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { CentralBodyInput, BodySummary } from './body.js';
 import { STATE_FRAMES } from '../solver/earth/state-frames.js';
-import { DEMO_EPOCH, Epoch, EpochOut, EpochText, MAX_POSITION_KM, PositionKm, refineEpochs, ScenarioHash, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT, Vec3, VelocityKmS } from './common.js';
+import { codedIssue, DEMO_EPOCH, Epoch, EpochOut, EpochText, MAX_POSITION_KM, PositionKm, refineEpochs, ScenarioHash, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT, Vec3, VelocityKmS } from './common.js';
 import { OmmInput, TleInput } from './catalog.js';
 
 export const StateInput = z
@@ -27,7 +27,10 @@ export const ElementsInput = z
     timeSystem: TimeSystemField,
     semiMajorAxis: z.number().min(-MAX_POSITION_KM).max(MAX_POSITION_KM).optional().describe(`Semi-major axis a, km: positive for ellipses, negative for hyperbolas, |a| <= ${MAX_POSITION_KM}; omit for a parabola (give semiLatusRectum)`),
     semiLatusRectum: z.number().positive().max(MAX_POSITION_KM).optional().describe('Semi-latus rectum p, km: instead of semiMajorAxis, required when eccentricity = 1'),
-    eccentricity: z.number().min(0).describe('Eccentricity e >= 0 (0 circular, < 1 elliptic, 1 parabolic, > 1 hyperbolic)'),
+    // Refused as eccentricity-out-of-range (the solver's own code for it), not validation-failed; the document still says minimum 0.
+    eccentricity: z.number().superRefine((e, ctx) => {
+      if (!(e >= 0)) ctx.addIssue(codedIssue('eccentricity-out-of-range', `eccentricity must be >= 0, got ${e}`));
+    }).meta({ minimum: 0 }).describe('Eccentricity e >= 0 (0 circular, < 1 elliptic, 1 parabolic, > 1 hyperbolic)'),
     inclination: z.number().min(0).max(180).describe('Inclination, degrees [0, 180]'),
     raan: z.number().describe('Right ascension of the ascending node, degrees (ignored when equatorial)'),
     argPeriapsis: z.number().describe('Argument of periapsis, degrees (ignored when circular)'),

@@ -1,5 +1,6 @@
 // POST /v1/passes: ground-station passes of one spacecraft over a window.
 import { z } from 'zod';
+import { boundedList } from './list.js';
 import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTING_STEP_S } from '../solver/stations/passes.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
@@ -40,7 +41,7 @@ export const PassesRequest = z
     ...orbitFields,
     ...modelFields,
     window: z.object({ start: EpochText, stop: EpochText, timeSystem: TimeSystemField }).strict().superRefine(refineEpochs(['start', 'stop'])).describe(`Search window (epochs in timeSystem, UTC by default), stop after start, at most ${MAX_PASS_WINDOW_S / SECONDS_PER_DAY} days`),
-    stations: z.array(GroundStation).min(1).max(MAX_PASS_STATIONS).describe(`Ground stations, 1 to ${MAX_PASS_STATIONS}`),
+    stations: boundedList(GroundStation, { min: 1, max: MAX_PASS_STATIONS, tooMany: 'too-many-stations' }).describe(`Ground stations, 1 to ${MAX_PASS_STATIONS}`),
     pointing: z
       .object({
         step: z.number().min(MIN_POINTING_STEP_S).describe(`Pointing-track step, s (>= ${MIN_POINTING_STEP_S}); at most ${MAX_POINTING_SAMPLES} samples over all passes`),

@@ -73,7 +73,9 @@ export const SCENARIOS: Record<string, Sent> = {
 
   'batch every kind': post('/v1/batch', { items: Object.entries(GOOD).map(([kind, body], i) => ({ id: `item-${i}`, kind, request: body })) }),
 
-  'problem validation': post('/v1/orbit', { centralBody: 'earth', elements: { ...DEMO_ORBIT.elements, eccentricity: -1 } }),
+  'problem validation': post('/v1/orbit', { centralBody: 'earth', elements: { ...DEMO_ORBIT.elements, inclination: 200 } }),
+  'problem eccentricity': post('/v1/orbit', { centralBody: 'earth', elements: { ...DEMO_ORBIT.elements, eccentricity: -1 } }),
+  'problem epoch': post('/v1/orbit', { centralBody: 'earth', elements: { ...DEMO_ORBIT.elements, epoch: '2026-02-30T00:00:00Z' } }),
   'problem not acceptable': post('/v1/track', { ...DEMO_ORBIT, grid: TRACK_GRID }, { accept: 'application/pdf' }),
 };
 

@@ -151,8 +151,8 @@ describe('non-finite results are refused, never printed as null', () => {
     ['semiMajorAxis 5e-324 (velocity overflows)', '/v1/orbit', { centralBody: 'earth', elements: { ...DEMO_ORBIT.elements, semiMajorAxis: 5e-324 } }, '/problems/non-finite-result', 'answer.state.velocity.0'],
     ['the same orbit as an SVG plot', '/v1/orbit', { centralBody: 'earth', elements: { ...DEMO_ORBIT.elements, semiMajorAxis: 5e-324 }, format: 'svg' }, '/problems/non-finite-result', 'answer.state.velocity.0'],
     ['carrierFrequency 1e308 (the Doppler shift overflows)', '/v1/passes', { ...DEMO_ORBIT, window: day, stations: [DEMO_STATIONS[0]], pointing: { step: 60, carrierFrequency: 1e308 } }, '/problems/non-finite-result', 'answer.passes.0.pointing.0.dopplerShift'],
-    // span / 5e-324 is Infinity: the sample count is refused before any allocation.
-    ['grid.step 5e-324', '/v1/track', { ...DEMO_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T00:10:00Z', step: 5e-324 } }, '/problems/too-many-samples', null],
+    // span / 5e-324 is Infinity: the sample count is refused before any allocation, naming the step.
+    ['grid.step 5e-324', '/v1/track', { ...DEMO_ORBIT, grid: { start: EPOCH, stop: '2026-12-01T00:10:00Z', step: 5e-324 } }, '/problems/too-many-samples', 'body.grid.step'],
     ['grid.step 5e-324 on a zero-length span is one sample', '/v1/track', { ...DEMO_ORBIT, grid: { start: EPOCH, stop: EPOCH, step: 5e-324 } }, '', null],
   ];
   for (const [what, url, body, type, path] of cases) {
@@ -169,7 +169,7 @@ describe('non-finite results are refused, never printed as null', () => {
       expect(problem.type).toBe(type);
       if (path !== null) {
         expect(problem.errors?.map((e) => e.path)).toEqual([path]);
-        expect(problem.detail).toContain(path);
+        if (type === '/problems/non-finite-result') expect(problem.detail).toContain(path);
       }
     });
   }

@@ -261,7 +261,7 @@ describe('POST /v1/passes', () => {
       [{ ...demo, window: { start: EPOCH, stop: '2027-01-15T00:00:00Z' } }, 422, '/problems/window-too-long'],
       [{ ...demo, window: { start: '2026-12-02T00:00:00Z', stop: EPOCH } }, 400, '/problems/validation-failed'],
       [{ ...demo, stations: [demo.stations[0], demo.stations[0]] }, 422, '/problems/invalid-parameter'],
-      [{ ...demo, stations: Array.from({ length: 101 }, (_, i) => ({ ...demo.stations[0], id: `s${i}` })) }, 400, '/problems/validation-failed'],
+      [{ ...demo, stations: Array.from({ length: 101 }, (_, i) => ({ ...demo.stations[0], id: `s${i}` })) }, 422, '/problems/too-many-stations'],
       [{ ...demo, stations: [{ ...demo.stations[0], horizonMask: [{ azimuth: 360, elevation: 5 }] }] }, 400, '/problems/validation-failed'],
       [{ ...demo, centralBody: 'moon', elements: { ...demo.elements, semiMajorAxis: 2000 } }, 422, '/problems/unsupported-frame'],
       [{ ...demo, elements: { ...demo.elements, semiMajorAxis: 6500, eccentricity: 0.1 } }, 422, '/problems/impact'],

@@ -11,7 +11,6 @@ export const SOLVER_FAILURE_CODES = [
   'anomaly-beyond-asymptote',
   'no-convergence',
   'impact',
-  'parabolic-no-period',
   'invalid-parameter',
   'invalid-horizon-mask',
   'window-too-long',
