@@ -249,6 +249,69 @@ function interpolated(table: OrientationTable, tt: number): Orientation {
 export const gcrfToItrfTabled = (table: OrientationTable, tt: number, r: Vec3, v: Vec3): StateVectors =>
   forward(interpolated(table, tt), r, v);
 
+/**
+ * gcrfToItrfTabled without a new array or object: the ITRF state of (r0..r2, v0..v2) written to
+ * out[o..o+5]. The same operations in the same order as interpolated() + forward(), so the same
+ * bits (test/solver/earth/frames-into.test.ts compares them); for searches that convert tens of
+ * thousands of single states.
+ */
+export function gcrfToItrfTabledInto(
+  table: OrientationTable, tt: number,
+  r0: number, r1: number, r2: number, v0: number, v1: number, v2: number,
+  out: Float64Array, o: number,
+): void {
+  const { nodes, spacing, startTT, polar } = table;
+  const x = (tt - startTT) / spacing;
+  const i = Math.min(Math.max(Math.floor(x), 0), nodes.length - 2);
+  const f = x - i;
+  const ua = table.ut1MinusTT[i]!;
+  const ub = table.ut1MinusTT[i + 1]!;
+  const du = Math.abs(ub - ua) > UT1_JUMP_S ? ut1MinusTT(tt, table.options) : ua + f * (ub - ua);
+  const a = nodes[i]!;
+  const b = nodes[i + 1]!;
+  // lerp(a, b, f) element by element (mat3.ts), then forward().
+  const q0 = a[0] + f * (b[0] - a[0]), q1 = a[1] + f * (b[1] - a[1]), q2 = a[2] + f * (b[2] - a[2]);
+  const q3 = a[3] + f * (b[3] - a[3]), q4 = a[4] + f * (b[4] - a[4]), q5 = a[5] + f * (b[5] - a[5]);
+  const q6 = a[6] + f * (b[6] - a[6]), q7 = a[7] + f * (b[7] - a[7]), q8 = a[8] + f * (b[8] - a[8]);
+  const era = earthRotationAngle((tt + du) / SECONDS_PER_DAY);
+  const c = Math.cos(era);
+  const s = Math.sin(era);
+  const qr0 = q0 * r0 + q1 * r1 + q2 * r2;
+  const qr1 = q3 * r0 + q4 * r1 + q5 * r2;
+  const qr2 = q6 * r0 + q7 * r1 + q8 * r2;
+  const qv0 = q0 * v0 + q1 * v1 + q2 * v2;
+  const qv1 = q3 * v0 + q4 * v1 + q5 * v2;
+  const qv2 = q6 * v0 + q7 * v1 + q8 * v2;
+  const rp0 = c * qr0 + s * qr1;
+  const rp1 = -s * qr0 + c * qr1;
+  const rp2 = qr2;
+  const om = EARTH_ROTATION_RATE_RAD_S;
+  const vp0 = c * qv0 + s * qv1 + om * rp1;
+  const vp1 = -s * qv0 + c * qv1 - om * rp0;
+  const vp2 = qv2;
+  if (polar.length === 0) {
+    out[o] = rp0;
+    out[o + 1] = rp1;
+    out[o + 2] = rp2;
+    out[o + 3] = vp0;
+    out[o + 4] = vp1;
+    out[o + 5] = vp2;
+    return;
+  }
+  const pa = polar[i]!;
+  const pb = polar[i + 1]!;
+  const w0 = pa[0] + f * (pb[0] - pa[0]), w1 = pa[1] + f * (pb[1] - pa[1]), w2 = pa[2] + f * (pb[2] - pa[2]);
+  const w3 = pa[3] + f * (pb[3] - pa[3]), w4 = pa[4] + f * (pb[4] - pa[4]), w5 = pa[5] + f * (pb[5] - pa[5]);
+  const w6 = pa[6] + f * (pb[6] - pa[6]), w7 = pa[7] + f * (pb[7] - pa[7]), w8 = pa[8] + f * (pb[8] - pa[8]);
+  // apply(w, rp), apply(w, vp) (mat3.ts).
+  out[o] = w0 * rp0 + w1 * rp1 + w2 * rp2;
+  out[o + 1] = w3 * rp0 + w4 * rp1 + w5 * rp2;
+  out[o + 2] = w6 * rp0 + w7 * rp1 + w8 * rp2;
+  out[o + 3] = w0 * vp0 + w1 * vp1 + w2 * vp2;
+  out[o + 4] = w3 * vp0 + w4 * vp1 + w5 * vp2;
+  out[o + 5] = w6 * vp0 + w7 * vp1 + w8 * vp2;
+}
+
 /** itrfToGcrf through a table (fast path). */
 export const itrfToGcrfTabled = (table: OrientationTable, tt: number, r: Vec3, v: Vec3): StateVectors =>
   inverse(interpolated(table, tt), r, v);

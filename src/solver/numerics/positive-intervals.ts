@@ -24,8 +24,10 @@ export interface PositiveIntervalSearch<T> {
   readonly sample: (k: number) => T;
   /** True when step k (times k to k+1) cannot hold a positive value; skipped unless an interval is open. */
   readonly ruledOut?: (k: number) => boolean;
-  /** The evaluation at any time of the grid's span (refinement). */
-  readonly at: (t: number) => T;
+  /** The evaluation at any time of the grid's span (refinement); needed unless valueAt is given. */
+  readonly at?: (t: number) => T;
+  /** value(at(t)), the same number, computed directly where that is cheaper; wins over `at`. */
+  readonly valueAt?: (t: number) => number;
   readonly value: (x: T) => number;
   readonly rate: (x: T) => number;
   /** Flags given to intervals positive at the first or the last sample. */
@@ -40,7 +42,9 @@ export interface PositiveIntervalSearch<T> {
 export function positiveIntervals<T>(s: PositiveIntervalSearch<T>): PositiveInterval[] {
   const { times, sample, value, rate } = s;
   const out: PositiveInterval[] = [];
-  const fn = (t: number): number => value(s.at(t));
+  const at = s.at;
+  const fn = s.valueAt ?? (at ? (t: number): number => value(at(t)) : undefined);
+  if (!fn) throw new TypeError('positiveIntervals needs at or valueAt');
   const count = times.length;
   let open: { start: number; startsBefore: boolean } | undefined;
   for (let k = 0; k + 1 < count; k++) {

@@ -31,7 +31,7 @@
 // the same elevation trend can then be missed. Passes already up at the window start or still up
 // at its end are clipped to the window and flagged.
 
-import { EARTH_ROTATION_RATE_RAD_S, gcrfToItrfTabled, orientationTable, type FrameOptions, type OrientationTable, type StateVectors } from '../earth/frames.js';
+import { EARTH_ROTATION_RATE_RAD_S, gcrfToItrfTabledInto, orientationTable, type FrameOptions, type OrientationTable } from '../earth/frames.js';
 import { createHorizonMask, horizonLimit, horizonLimitSlope, isFlatMask, type HorizonMask, type MaskPoint } from './horizon-mask.js';
 import { BODIES } from '../bodies/bodies.js';
 import { goldenSectionMax } from '../numerics/golden-section.js';
@@ -41,7 +41,10 @@ import { scanStep } from '../propagation/scan-step.js';
 import { DEG, SECONDS_PER_DAY } from '../core/math.js';
 import { failure, success, type Outcome } from '../core/result.js';
 import { refractionOf, type Refraction, type RefractionSpec } from './refraction.js';
-import { dopplerFactor, lookAngles, stationFromGeodetic, type LookAngles, type Station } from './topocentric.js';
+import {
+  dopplerFactor, elevationOf, lookAnglesInto, stationFromGeodetic, LOOK_AZIMUTH, LOOK_AZIMUTH_RATE, LOOK_ELEVATION, LOOK_ELEVATION_RATE,
+  LOOK_RANGE, LOOK_RANGE_RATE, type LookAngles, type Station,
+} from './topocentric.js';
 import { dot, norm, type Vec3 } from '../core/vec3.js';
 
 /** Longest pass-search window, s (31 days). */
@@ -188,36 +191,90 @@ function prepareStations(stations: readonly PassStation[], lift: number): Outcom
   return success(out);
 }
 
-/** Shared state of one search: the orientation table, the propagator and a call counter. */
+/** Earth-fixed states kept from the latest TCA search (its final point is looked at again). */
+const RECENT = 64;
+
+/**
+ * Shared state of one search: the orientation table, the propagator, a call counter and scratch
+ * arrays. Every evaluation writes its Earth-fixed state and look angles into these arrays instead
+ * of new objects (the search makes tens of thousands of them); the numbers are those of
+ * gcrfToItrfTabled and lookAngles, bit for bit.
+ */
 interface Context {
   readonly table: OrientationTable;
   readonly stateAt: StateAt;
   readonly startTT: number;
   readonly stopTT: number;
-  /** Look angles with the elevation (and its rate) apparent when refraction is asked. */
-  readonly look: (station: Station, r: Vec3, v: Vec3) => LookAngles;
+  /** Elevations (and their rates) become apparent ones when refraction is asked. */
+  readonly refraction: Refraction | null;
+  /** One Earth-fixed state (r, v) and its look angles (slots LOOK_*). */
+  readonly state: Float64Array;
+  readonly angles: Float64Array;
+  /** The fine scan of a masked station: sample times and 6 look angles per sample; grown as needed. */
+  fineTimes: Float64Array;
+  fineLooks: Float64Array;
+  /** Epochs and Earth-fixed states of the latest TCA search's evaluations. */
+  readonly recentTimes: Float64Array;
+  readonly recentStates: Float64Array;
+  recentCount: number;
   calls: number;
 }
 
-/** Look angles as the search reads them: lookAngles itself without refraction. */
-function lookWith(refraction: Refraction | null): (station: Station, r: Vec3, v: Vec3) => LookAngles {
-  if (!refraction) return lookAngles;
-  return (station, r, v) => {
-    const l = lookAngles(station, r, v);
-    return { ...l, elevation: refraction.apparent(l.elevation), elevationRate: refraction.slope(l.elevation) * l.elevationRate };
+/** The Earth-fixed state at tt written to out[o..o+5]: one propagator call. */
+function earthFixedInto(ctx: Context, tt: number, out: Float64Array, o: number): void {
+  ctx.calls++;
+  const { r, v } = gcrfStateAt(ctx.stateAt, tt);
+  gcrfToItrfTabledInto(ctx.table, tt, r[0], r[1], r[2], v[0], v[1], v[2], out, o);
+}
+
+/** Look angles of the Earth-fixed state s[o..] into out[p..] as the search reads them (apparent elevation with refraction). */
+function anglesInto(ctx: Context, st: Prepared, s: Float64Array, o: number, out: Float64Array, p: number): void {
+  lookAnglesInto(st.station, s, o, out, p);
+  const rf = ctx.refraction;
+  if (!rf) return;
+  const geometric = out[p + LOOK_ELEVATION]!;
+  out[p + LOOK_ELEVATION] = rf.apparent(geometric);
+  out[p + LOOK_ELEVATION_RATE] = rf.slope(geometric) * out[p + LOOK_ELEVATION_RATE]!;
+}
+
+/** The elevation of the Earth-fixed position s[o..] as the search reads it. */
+function elevationIn(ctx: Context, st: Prepared, s: Float64Array, o: number): number {
+  const geometric = elevationOf(st.station, s, o);
+  return ctx.refraction ? ctx.refraction.apparent(geometric) : geometric;
+}
+
+/** Look angles of the Earth-fixed state s[o..] as an object. */
+function looksOf(ctx: Context, st: Prepared, s: Float64Array, o: number): LookAngles {
+  const a = ctx.angles;
+  anglesInto(ctx, st, s, o, a, 0);
+  return {
+    azimuth: a[LOOK_AZIMUTH]!,
+    elevation: a[LOOK_ELEVATION]!,
+    range: a[LOOK_RANGE]!,
+    rangeRate: a[LOOK_RANGE_RATE]!,
+    azimuthRate: a[LOOK_AZIMUTH_RATE]!,
+    elevationRate: a[LOOK_ELEVATION_RATE]!,
   };
 }
 
-function earthFixedAt(ctx: Context, tt: number): StateVectors {
-  ctx.calls++;
-  const s = gcrfStateAt(ctx.stateAt, tt);
-  return gcrfToItrfTabled(ctx.table, tt, s.r, s.v);
+/** Look angles at an epoch (one propagator call). */
+function lookAt(ctx: Context, st: Prepared, tt: number): LookAngles {
+  earthFixedInto(ctx, tt, ctx.state, 0);
+  return looksOf(ctx, st, ctx.state, 0);
+}
+
+/** Elevation at an epoch (one propagator call, no azimuth or rates). */
+function elevationAt(ctx: Context, st: Prepared, tt: number): number {
+  earthFixedInto(ctx, tt, ctx.state, 0);
+  return elevationIn(ctx, st, ctx.state, 0);
 }
 
 /** The coarse Earth-fixed track: times and 6 numbers per sample. */
 interface Track {
   readonly times: Float64Array;
   readonly states: Float64Array;
+  /** |r| per sample (norm() of vec3.ts), for the prefilter. */
+  readonly radii: Float64Array;
 }
 
 function coarseTrack(ctx: Context, batch: StateBatch | undefined, stepS: number): Track {
@@ -229,58 +286,85 @@ function coarseTrack(ctx: Context, batch: StateBatch | undefined, stepS: number)
   if (gcrf && gcrf.length !== 6 * count) throw new TypeError('stateBatch must return 6 numbers per epoch');
   for (let k = 0; k < count; k++) {
     const tt = times[k]!;
-    let s: StateVectors;
+    const o = 6 * k;
     if (gcrf) {
       ctx.calls++;
-      const o = 6 * k;
-      s = gcrfToItrfTabled(ctx.table, tt, [gcrf[o]!, gcrf[o + 1]!, gcrf[o + 2]!], [gcrf[o + 3]!, gcrf[o + 4]!, gcrf[o + 5]!]);
+      gcrfToItrfTabledInto(ctx.table, tt, gcrf[o]!, gcrf[o + 1]!, gcrf[o + 2]!, gcrf[o + 3]!, gcrf[o + 4]!, gcrf[o + 5]!, states, o);
     } else {
-      s = earthFixedAt(ctx, tt);
+      earthFixedInto(ctx, tt, states, o);
     }
-    states.set(s.r, 6 * k);
-    states.set(s.v, 6 * k + 3);
   }
-  return { times, states };
+  const radii = new Float64Array(count);
+  for (let k = 0; k < count; k++) radii[k] = Math.hypot(states[6 * k]!, states[6 * k + 1]!, states[6 * k + 2]!);
+  return { times, states, radii };
 }
-
-const trackR = (t: Track, k: number): Vec3 => [t.states[6 * k]!, t.states[6 * k + 1]!, t.states[6 * k + 2]!];
-const trackV = (t: Track, k: number): Vec3 => [t.states[6 * k + 3]!, t.states[6 * k + 4]!, t.states[6 * k + 5]!];
 
 /** An interval where the station sees the spacecraft. */
 type Interval = PositiveInterval;
 
-/** Fine sample times across [a, b]: steps of at most 10 s and 0.5 deg of azimuth or elevation. */
-function fineSamples(a: number, b: number, lookAtTime: (t: number) => LookAngles): { times: number[]; looks: LookAngles[] } {
-  const times = [a];
-  const looks = [lookAtTime(a)];
+/** Room for n fine samples. */
+function fineCapacity(ctx: Context, n: number): void {
+  if (n <= ctx.fineTimes.length) return;
+  const size = Math.max(n, 2 * ctx.fineTimes.length);
+  const times = new Float64Array(size);
+  const looks = new Float64Array(6 * size);
+  times.set(ctx.fineTimes);
+  looks.set(ctx.fineLooks);
+  ctx.fineTimes = times;
+  ctx.fineLooks = looks;
+}
+
+/**
+ * Fine sample times across [a, b] (steps of at most 10 s and 0.5 deg of azimuth or elevation) and
+ * their look angles, written to ctx.fineTimes and ctx.fineLooks; returns the sample count.
+ */
+function fineSamples(ctx: Context, st: Prepared, a: number, b: number): number {
+  let n = 0;
+  const push = (t: number): void => {
+    fineCapacity(ctx, n + 1);
+    ctx.fineTimes[n] = t;
+    earthFixedInto(ctx, t, ctx.state, 0);
+    anglesInto(ctx, st, ctx.state, 0, ctx.fineLooks, 6 * n);
+    n++;
+  };
+  push(a);
   let t = a;
   while (t < b) {
-    const l = looks[looks.length - 1]!;
-    const rate = Math.max(Math.abs(l.azimuthRate), Math.abs(l.elevationRate), 1e-12);
+    const o = 6 * (n - 1);
+    const rate = Math.max(Math.abs(ctx.fineLooks[o + LOOK_AZIMUTH_RATE]!), Math.abs(ctx.fineLooks[o + LOOK_ELEVATION_RATE]!), 1e-12);
     let dt = Math.min(FINE_MAX_STEP_S, Math.max(FINE_MIN_STEP_S, FINE_ANGLE_STEP / rate));
     if (b - (t + dt) < FINE_MIN_STEP_S) dt = b - t;
     t += dt;
-    times.push(t);
-    looks.push(lookAtTime(t));
+    push(t);
   }
-  return { times, looks };
+  return n;
 }
 
 function searchStation(ctx: Context, st: Prepared, track: Track, bounds: RateBounds): Interval[] {
   const count = track.times.length;
   const cache = new Array<LookAngles | undefined>(count);
-  const sample = (k: number): LookAngles => (cache[k] ??= ctx.look(st.station, trackR(track, k), trackV(track, k)));
-  const lookAtTime = (t: number): LookAngles => {
-    const s = earthFixedAt(ctx, t);
-    return ctx.look(st.station, s.r, s.v);
+  const sample = (k: number): LookAngles => (cache[k] ??= looksOf(ctx, st, track.states, 6 * k));
+  // Central angle between station and spacecraft per sample (each sample serves two steps of the prefilter).
+  const psis = new Float64Array(count).fill(Number.NaN);
+  const [u0, u1, u2] = st.unit;
+  const psi = (k: number): number => {
+    let x = psis[k]!;
+    if (Number.isNaN(x)) {
+      const s = track.states;
+      const o = 6 * k;
+      // dot() of vec3.ts written out.
+      x = Math.acos(Math.min(1, Math.max(-1, (s[o]! * u0 + s[o + 1]! * u1 + s[o + 2]! * u2) / track.radii[k]!)));
+      psis[k] = x;
+    }
+    return x;
   };
   const low = st.mask.lowest;
   const tolerances = { rootTolS: ROOT_TOLERANCE_S, peakTolS: PEAK_TOLERANCE_S };
   const envelope = positiveIntervals<LookAngles>({
     times: track.times,
     sample,
-    ruledOut: (k) => !mayBeVisible(st, track, k, bounds),
-    at: lookAtTime,
+    ruledOut: (k) => !mayBeVisible(st, track, k, bounds, psi(k), psi(k + 1)),
+    valueAt: (t) => elevationAt(ctx, st, t) - low,
     value: (l) => l.elevation - low,
     rate: (l) => l.elevationRate,
     edges: { startsBefore: true, endsAfter: true },
@@ -288,15 +372,22 @@ function searchStation(ctx: Context, st: Prepared, track: Track, bounds: RateBou
   });
   if (st.flat) return envelope;
   const mask = st.mask;
+  const angles = ctx.angles;
   const out: Interval[] = [];
   for (const iv of envelope) {
-    const fine = fineSamples(iv.start, iv.stop, lookAtTime);
-    const inside = positiveIntervals<LookAngles>({
-      times: fine.times,
-      sample: (k) => fine.looks[k]!,
-      at: lookAtTime,
-      value: (l) => l.elevation - horizonLimit(mask, l.azimuth),
-      rate: (l) => l.elevationRate - horizonLimitSlope(mask, l.azimuth) * l.azimuthRate,
+    const n = fineSamples(ctx, st, iv.start, iv.stop);
+    const looks = ctx.fineLooks;
+    // Fine sample k is its index; its look angles are looks[6k + LOOK_*].
+    const inside = positiveIntervals<number>({
+      times: ctx.fineTimes.subarray(0, n),
+      sample: (k) => k,
+      valueAt: (t) => {
+        earthFixedInto(ctx, t, ctx.state, 0);
+        anglesInto(ctx, st, ctx.state, 0, angles, 0);
+        return angles[LOOK_ELEVATION]! - horizonLimit(mask, angles[LOOK_AZIMUTH]!);
+      },
+      value: (k) => looks[6 * k + LOOK_ELEVATION]! - horizonLimit(mask, looks[6 * k + LOOK_AZIMUTH]!),
+      rate: (k) => looks[6 * k + LOOK_ELEVATION_RATE]! - horizonLimitSlope(mask, looks[6 * k + LOOK_AZIMUTH]!) * looks[6 * k + LOOK_AZIMUTH_RATE]!,
       edges: iv,
       ...tolerances,
     });
@@ -306,18 +397,15 @@ function searchStation(ctx: Context, st: Prepared, track: Track, bounds: RateBou
 }
 
 /**
- * Prefilter: false when the station cannot see the spacecraft anywhere in step k. Uses lower
+ * Prefilter: false when the station cannot see the spacecraft anywhere in step k (central angles
+ * psiA, psiB at its ends). Uses lower
  * bounds on the central angle and upper bounds on the radius over the step (Lipschitz bounds
  * from psiDotMax and radialSpeedMax).
  */
-function mayBeVisible(st: Prepared, track: Track, k: number, bounds: RateBounds): boolean {
-  const ra = trackR(track, k);
-  const rb = trackR(track, k + 1);
-  const na = norm(ra);
-  const nb = norm(rb);
+function mayBeVisible(st: Prepared, track: Track, k: number, bounds: RateBounds, psiA: number, psiB: number): boolean {
+  const na = track.radii[k]!;
+  const nb = track.radii[k + 1]!;
   const dt = track.times[k + 1]! - track.times[k]!;
-  const psiA = Math.acos(Math.min(1, Math.max(-1, dot(ra, st.unit) / na)));
-  const psiB = Math.acos(Math.min(1, Math.max(-1, dot(rb, st.unit) / nb)));
   const psiLow = (psiA + psiB - bounds.psiDotMax * dt) / 2;
   const rHigh = (na + nb + bounds.radialSpeedMax * dt) / 2;
   const e = st.geocentricLow;
@@ -335,7 +423,7 @@ function peakBracket(ctx: Context, st: Prepared, track: Track, a: number, b: num
   const first = Math.max(0, Math.floor((a - times[0]!) / (times[1]! - times[0]!)));
   for (let k = first; k < times.length && times[k]! < b; k++) {
     if (times[k]! <= a) continue;
-    const el = ctx.look(st.station, trackR(track, k), trackV(track, k)).elevation;
+    const el = elevationIn(ctx, st, track.states, 6 * k);
     if (el > bestEl) {
       bestEl = el;
       best = k;
@@ -345,16 +433,31 @@ function peakBracket(ctx: Context, st: Prepared, track: Track, a: number, b: num
   return [Math.max(a, times[best - 1] ?? a), Math.min(b, times[best + 1] ?? b)];
 }
 
+/** The elevation at tt, its Earth-fixed state kept among the recent ones (the TCA search). */
+function elevationKept(ctx: Context, st: Prepared, tt: number): number {
+  const slot = ctx.recentCount % RECENT;
+  ctx.recentCount++;
+  ctx.recentTimes[slot] = tt;
+  earthFixedInto(ctx, tt, ctx.recentStates, 6 * slot);
+  return elevationIn(ctx, st, ctx.recentStates, 6 * slot);
+}
+
+/** Look angles at tt: from a recent state of that very epoch when one is kept, else one propagator call. */
+function lookAtRecent(ctx: Context, st: Prepared, tt: number): LookAngles {
+  for (let j = ctx.recentCount - 1; j >= 0 && j >= ctx.recentCount - RECENT; j--) {
+    const slot = j % RECENT;
+    if (ctx.recentTimes[slot] === tt) return looksOf(ctx, st, ctx.recentStates, 6 * slot);
+  }
+  return lookAt(ctx, st, tt);
+}
+
 function describe(ctx: Context, st: Prepared, track: Track, iv: Interval, pointingStepS: number | undefined): Pass {
-  const lookAt = (t: number): LookAngles => {
-    const s = earthFixedAt(ctx, t);
-    return ctx.look(st.station, s.r, s.v);
-  };
-  const aos = lookAt(iv.start);
-  const los = lookAt(iv.stop);
+  const aos = lookAt(ctx, st, iv.start);
+  const los = lookAt(ctx, st, iv.stop);
   const [a, b] = peakBracket(ctx, st, track, iv.start, iv.stop);
-  let tca = b - a > PEAK_TOLERANCE_S ? goldenSectionMax((t) => lookAt(t).elevation, a, b, PEAK_TOLERANCE_S).t : a;
-  let top = lookAt(tca);
+  ctx.recentCount = 0;
+  let tca = b - a > PEAK_TOLERANCE_S ? goldenSectionMax((t) => elevationKept(ctx, st, t), a, b, PEAK_TOLERANCE_S).t : a;
+  let top = lookAtRecent(ctx, st, tca);
   for (const [t, l] of [[iv.start, aos], [iv.stop, los]] as const) {
     if (l.elevation > top.elevation) {
       tca = t;
@@ -379,7 +482,7 @@ function describe(ctx: Context, st: Prepared, track: Track, iv: Interval, pointi
   const pointing: PointingSample[] = [];
   for (let i = 0; ; i++) {
     const t = Math.min(iv.start + i * pointingStepS, iv.stop);
-    const l = t === iv.start ? aos : t === iv.stop ? los : lookAt(t);
+    const l = t === iv.start ? aos : t === iv.stop ? los : lookAt(ctx, st, t);
     pointing.push({ tt: t, azimuth: l.azimuth, elevation: l.elevation, range: l.range, rangeRate: l.rangeRate, dopplerFactor: dopplerFactor(l.rangeRate) });
     if (t >= iv.stop) break;
   }
@@ -406,7 +509,21 @@ export function findPasses(search: PassSearch): Outcome<PassSearchResult> {
   const refraction = options.refraction ? refractionOf(options.refraction) : null;
   const prepared = prepareStations(stations, refraction?.max ?? 0);
   if (!prepared.ok) return prepared;
-  const ctx: Context = { table: orientationTable(startTT, stopTT, options), stateAt: search.stateAt, startTT, stopTT, look: lookWith(refraction), calls: 0 };
+  const ctx: Context = {
+    table: orientationTable(startTT, stopTT, options),
+    stateAt: search.stateAt,
+    startTT,
+    stopTT,
+    refraction,
+    state: new Float64Array(6),
+    angles: new Float64Array(6),
+    fineTimes: new Float64Array(256),
+    fineLooks: new Float64Array(6 * 256),
+    recentTimes: new Float64Array(RECENT),
+    recentStates: new Float64Array(6 * RECENT),
+    recentCount: 0,
+    calls: 0,
+  };
   try {
     ctx.calls++;
     const first = gcrfStateAt(ctx.stateAt, startTT);

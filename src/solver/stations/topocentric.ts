@@ -91,6 +91,60 @@ export function lookAngles(station: Station, r: Vec3, v: Vec3): LookAngles {
   };
 }
 
+/** Slots of lookAnglesInto's output. */
+export const LOOK_AZIMUTH = 0;
+export const LOOK_ELEVATION = 1;
+export const LOOK_RANGE = 2;
+export const LOOK_RANGE_RATE = 3;
+export const LOOK_AZIMUTH_RATE = 4;
+export const LOOK_ELEVATION_RATE = 5;
+
+/**
+ * lookAngles of the Earth-fixed state s[o..o+5] (position, velocity) without a new object: the six
+ * values written to out[p + LOOK_*]. The same operations in the same order as lookAngles, so the
+ * same bits (test/solver/stations/topocentric-into.test.ts compares them).
+ */
+export function lookAnglesInto(station: Station, s: ArrayLike<number>, o: number, out: Float64Array, p: number): void {
+  const dx = s[o]! - station.position[0];
+  const dy = s[o + 1]! - station.position[1];
+  const dz = s[o + 2]! - station.position[2];
+  const { east: e, north: n, up: u } = station;
+  const v0 = s[o + 3]!;
+  const v1 = s[o + 4]!;
+  const v2 = s[o + 5]!;
+  const pe = dx * e[0] + dy * e[1] + dz * e[2];
+  const pn = dx * n[0] + dy * n[1] + dz * n[2];
+  const pu = dx * u[0] + dy * u[1] + dz * u[2];
+  const ve = v0 * e[0] + v1 * e[1] + v2 * e[2];
+  const vn = v0 * n[0] + v1 * n[1] + v2 * n[2];
+  const vu = v0 * u[0] + v1 * u[1] + v2 * u[2];
+  const horizSq = pe * pe + pn * pn;
+  const horiz = Math.sqrt(horizSq);
+  const range = Math.sqrt(horizSq + pu * pu);
+  let azimuth = horiz > 0 ? Math.atan2(pe, pn) : 0;
+  if (azimuth < 0) azimuth += TWO_PI;
+  if (azimuth >= TWO_PI) azimuth = 0;
+  const horizRate = horiz > 0 ? (pe * ve + pn * vn) / horiz : 0;
+  out[p + LOOK_AZIMUTH] = azimuth;
+  out[p + LOOK_ELEVATION] = Math.atan2(pu, horiz);
+  out[p + LOOK_RANGE] = range;
+  out[p + LOOK_RANGE_RATE] = (pe * ve + pn * vn + pu * vu) / range;
+  out[p + LOOK_AZIMUTH_RATE] = horiz > 0 ? (ve * pn - pe * vn) / horizSq : 0;
+  out[p + LOOK_ELEVATION_RATE] = (vu * horiz - pu * horizRate) / (range * range);
+}
+
+/** The elevation lookAngles gives for the Earth-fixed position s[o..o+2], computing nothing else (same bits). */
+export function elevationOf(station: Station, s: ArrayLike<number>, o: number): number {
+  const dx = s[o]! - station.position[0];
+  const dy = s[o + 1]! - station.position[1];
+  const dz = s[o + 2]! - station.position[2];
+  const { east: e, north: n, up: u } = station;
+  const pe = dx * e[0] + dy * e[1] + dz * e[2];
+  const pn = dx * n[0] + dy * n[1] + dz * n[2];
+  const pu = dx * u[0] + dy * u[1] + dz * u[2];
+  return Math.atan2(pu, Math.sqrt(pe * pe + pn * pn));
+}
+
 /**
  * Received / transmitted frequency ratio for a one-way link, first order in v/c (no relativistic
  * terms, no light-time): 1 - rangeRate / c. Common practice, no source.

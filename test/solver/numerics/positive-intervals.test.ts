@@ -34,4 +34,15 @@ describe('positiveIntervals', () => {
     expectClose(out[0]!.start, 3.29, 1e-7, 'start');
     expectClose(out[0]!.stop, 3.31, 1e-7, 'stop');
   });
+
+  it('valueAt in place of at: the same intervals to the bit; neither given is a programmer error', () => {
+    const fn = (t: number): number => Math.sin(1.3 * t) - 0.2;
+    const rate = (t: number): number => 1.3 * Math.cos(1.3 * t);
+    const times = Array.from({ length: 31 }, (_, k) => k * 0.45);
+    const common = { times, sample: (k: number) => times[k]!, value: fn, rate, edges: { startsBefore: true, endsAfter: true }, rootTolS: 1e-6, peakTolS: 1e-6 };
+    const withAt = positiveIntervals({ ...common, at: (t) => t });
+    expect(withAt.length).toBeGreaterThan(1);
+    expect(positiveIntervals({ ...common, valueAt: fn })).toEqual(withAt);
+    expect(() => positiveIntervals(common)).toThrow(TypeError);
+  });
 });
