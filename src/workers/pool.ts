@@ -50,6 +50,10 @@ export interface SolverPoolOptions {
   readonly closeTimeoutMs?: number;
   /** Milliseconds a job may take in a thread (queueing included); past it the thread is stopped and replaced. Unset: no deadline. */
   readonly deadlineMs?: number;
+  /** Heap (V8 old generation), MiB, of each thread; a job that needs more ends its thread (WorkerDiedError). Unset: Node's default. */
+  readonly maxHeapMb?: number;
+  /** Told when a thread dies with no job in hand (piscina's 'error' event; unheard it would throw). */
+  readonly onIdleWorkerError?: (error: unknown) => void;
 }
 
 export interface PoolStats {
@@ -75,6 +79,9 @@ function workerEntry(): { filename: string; execArgv?: string[] } {
 }
 
 /** piscina's refusals when its queue is full (5.x wording; test/http/overload.test.ts pins them). */
+/** Node's error for a worker thread stopped at its resourceLimits (the thread is gone; piscina starts another). */
+const WORKER_OUT_OF_MEMORY = 'ERR_WORKER_OUT_OF_MEMORY';
+
 const QUEUE_FULL = new Set(['Task queue is at limit', 'No task queue available and all Workers are busy']);
 
 export class SolverPool {
@@ -92,7 +99,7 @@ export class SolverPool {
   /** Start the threads now rather than on the first heavy job. */
   start(): void {
     if (this.#closing || this.#piscina) return;
-    const { threads, queueLimit, closeTimeoutMs = 30_000 } = this.#options;
+    const { threads, queueLimit, closeTimeoutMs = 30_000, maxHeapMb, onIdleWorkerError } = this.#options;
     this.#piscina = new Piscina({
       ...workerEntry(),
       minThreads: threads,
@@ -101,7 +108,9 @@ export class SolverPool {
       maxQueue: queueLimit,
       closeTimeout: closeTimeoutMs,
       recordTiming: false,
+      ...(maxHeapMb !== undefined ? { resourceLimits: { maxOldGenerationSizeMb: maxHeapMb } } : {}),
     });
+    this.#piscina.on('error', (error: unknown) => onIdleWorkerError?.(error));
   }
 
   /**
@@ -140,7 +149,9 @@ export class SolverPool {
       if (error instanceof Error && QUEUE_FULL.has(error.message)) throw new PoolOverloadedError('the solver queue is full');
       if (deadline?.aborted) throw new DeadlineExceededError(deadlineMs!);
       if (error instanceof Error && error.name === 'AbortError') throw new PoolOverloadedError('the service is shutting down');
-      if (error instanceof Error && /^worker exited with code/.test(error.message)) throw new WorkerDiedError(job.kind, error);
+      if (error instanceof Error && (/^worker exited with code/.test(error.message) || (error as NodeJS.ErrnoException).code === WORKER_OUT_OF_MEMORY)) {
+        throw new WorkerDiedError(job.kind, error);
+      }
       throw new WorkerFailedError(job.kind, error);
     } finally {
       this.#active--;

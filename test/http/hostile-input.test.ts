@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import fc from 'fast-check';
+import { Redis } from 'ioredis';
 import { Problem } from '../../src/schemas/common.js';
 import { OrbitAnswer } from '../../src/schemas/orbit.js';
 import { PassesAnswer } from '../../src/schemas/passes.js';
@@ -8,6 +9,8 @@ import { TrackAnswer } from '../../src/schemas/track.js';
 import { postJson, testApp } from '../helpers/app.js';
 import { GOOD } from '../helpers/batch.js';
 import { DEMO_ORBIT, DEMO_STATIONS, EPOCH } from '../helpers/demo.js';
+import { deleteKeys, runPrefix } from '../helpers/jobs.js';
+import { REDIS_URL, redisAvailable } from '../helpers/redis.js';
 
 // Hostile bodies and URLs a careless or malicious client sends. Every answer is a small problem
 // document from the error table, never a 5xx. Expected behaviour: RFC 9457 (problem details),
@@ -92,6 +95,33 @@ describe('deep nesting', () => {
   it('brackets inside strings do not count as nesting', async () => {
     const res = await postJson(app, '/v1/orbit', { centralBody: { name: '['.repeat(60), gm: 398600.4418 }, elements: DEMO_ORBIT.elements });
     expect(res.statusCode, res.body).toBe(200);
+  });
+});
+
+describe('deep nesting with the Redis job queue', async () => {
+  const ok = await redisAvailable();
+  it.skipIf(!ok)('POST /v1/jobs: 10 000 deep inside items[].request is 400 json-too-deep (not 503 with Retry-After) and nothing is queued; 60 deep is queued', { timeout: 30_000 }, async () => {
+    const prefix = runPrefix('deep-jobs');
+    const queued = await testApp({ config: { REDIS_URL, JOB_KEY_PREFIX: `${prefix}jobs:`, CACHE_KEY_PREFIX: `${prefix}answer:`, ASKERS_KEY_PREFIX: `${prefix}askers:`, RATE_LIMIT_KEY_PREFIX: `${prefix}rl:` } });
+    const redis = new Redis(REDIS_URL);
+    try {
+      const nested = (n: number) => `{"items":[{"kind":"orbit","request":{"centralBody":${'['.repeat(n)}${']'.repeat(n)}}}]}`;
+      const deep = await queued.inject({ method: 'POST', url: '/v1/jobs', payload: nested(10_000), headers: { 'content-type': 'application/json' } });
+      expect(deep.statusCode, deep.body.slice(0, 300)).toBe(400);
+      expect(problemOf(deep).type).toBe('/problems/json-too-deep');
+      expect(deep.headers['retry-after']).toBeUndefined();
+      // Under MAX_JSON_DEPTH (64) the body parses and is queued as it is (the item gets its
+      // endpoint's 400 as its line when a worker runs it): stored in Redis, never a Redis error.
+      const shallow = await queued.inject({ method: 'POST', url: '/v1/jobs', payload: nested(60), headers: { 'content-type': 'application/json' } });
+      expect(shallow.statusCode, shallow.body.slice(0, 300)).toBe(202);
+      const list = await queued.inject({ url: '/v1/jobs' });
+      expect(list.statusCode).toBe(200);
+      expect(list.json().jobs.map((j: { id: string }) => j.id)).toEqual([shallow.json().id]);
+    } finally {
+      await queued.close();
+      await deleteKeys(redis, prefix);
+      redis.disconnect();
+    }
   });
 });
 
