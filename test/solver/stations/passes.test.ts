@@ -5,6 +5,7 @@ import { createHorizonMask, horizonLimit, type MaskPoint } from '../../../src/so
 import {
   MAX_PASS_STATIONS,
   MAX_PASS_WINDOW_S,
+  MAX_POINTING_SAMPLES,
   findPasses,
   type GcrfState,
   type Pass,
@@ -289,6 +290,32 @@ describe('findPasses', () => {
     const one = findPasses({ stateAt: orbit, startTT: T0, stopTT: T0 + DAY, stations: STATIONS });
     const many = findPasses({ stateAt: orbit, stateBatch, startTT: T0, stopTT: T0 + DAY, stations: STATIONS });
     expect(many).toEqual(one);
+  });
+
+  it('refuses pointing tracks over MAX_POINTING_SAMPLES at the station where the count crosses it, before searching the others', () => {
+    // A 550 km polar orbit over 100 stations for 7 days, a sample every second: each station sees
+    // it for about 40 minutes a day, so the count passes 500 000 after some 30 stations.
+    const orbit = circular(6378.137 + 550, 97.6 * DEG, 0.3, 0);
+    const crowd = Array.from({ length: MAX_PASS_STATIONS }, (_, i) => station(`s${i}`, -70 + (140 * i) / 99, -180 + ((i * 137) % 360), 0));
+    let calls = 0;
+    const counted: StateAt = (t) => { calls++; return orbit(t); };
+    const full = findPasses({ stateAt: counted, startTT: T0, stopTT: T0 + 7 * DAY, stations: crowd });
+    if (!full.ok) throw new Error(full.message);
+    const searchCalls = calls;
+    // The samples the pointing tracks would hold, counted from the passes found (AOS, every step, LOS).
+    const asked = full.value.passes.reduce((n, p) => n + Math.ceil((p.los - p.aos) / 1) + 1, 0);
+    expect(asked).toBeGreaterThan(2 * MAX_POINTING_SAMPLES);
+    calls = 0;
+    const refused = findPasses({ stateAt: counted, startTT: T0, stopTT: T0 + 7 * DAY, stations: crowd, options: { pointingStepS: 1 } });
+    expect(!refused.ok && refused.code).toBe('invalid-parameter');
+    const at = /after (\d+) of 100 stations/.exec(refused.ok ? '' : refused.message);
+    expect(at).not.toBeNull();
+    expect(Number(at![1])).toBeLessThan(MAX_PASS_STATIONS / 2);
+    // The stations after it were never searched: fewer than half the propagator calls of the whole search.
+    expect(calls).toBeLessThan(searchCalls / 2);
+    // Under the limit (a 10 s step here) the same search answers, with every pointing track.
+    const tenSeconds = findPasses({ stateAt: orbit, startTT: T0, stopTT: T0 + DAY, stations: crowd.slice(0, 10), options: { pointingStepS: 10 } });
+    expect(tenSeconds.ok && tenSeconds.value.passes.every((p) => p.pointing!.length >= 2)).toBe(true);
   });
 
   it('refuses windows over 31 days, more than 100 stations, bad masks and reversed windows', () => {
