@@ -2,14 +2,15 @@
 // eclipses (TT seconds, radians) -> the answer (ISO epochs, degrees) and the CSV table.
 import type { CentralBody } from '../solver/bodies/bodies.js';
 import { RAD } from '../solver/core/math.js';
-import type { Vec3 } from '../solver/core/vec3.js';
 import type { FrameOptions } from '../solver/earth/frames.js';
-import type { Eclipse as SolverEclipse, EclipseSearchResult } from '../solver/light/eclipses.js';
+import type { Eclipse as SolverEclipse } from '../solver/light/eclipses.js';
 import { formatUtcIso } from '../solver/time/time.js';
 import type { Eclipse, EclipsesAnswer, EclipsesRequest } from '../schemas/eclipses.js';
-import type { EclipsesJob, PropagationStop } from '../workers/jobs.js';
+import type { EclipsesJob, EclipsesJobResult } from '../workers/jobs.js';
 import { epochTT } from './epoch.js';
 import { searchWindow } from './search-window.js';
+import { searchDiagnostics } from './diagnostics.js';
+import type { InitialState } from './orbit.js';
 
 export const SHADOW_MODEL_TEXT =
   'conical umbra and penumbra of a spherical Earth of the WGS-84 equatorial radius (and of the Moon, mean radius 1737.4 km, when asked) ' +
@@ -17,7 +18,7 @@ export const SHADOW_MODEL_TEXT =
   '(annual aberration, no light-time); no atmosphere, no oblateness';
 
 /** The worker job of a validated eclipse request (the window checked by searchWindow). */
-export function eclipseSearchJob(req: Omit<EclipsesRequest, 'format'>, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, frame: FrameOptions): EclipsesJob {
+export function eclipseSearchJob(req: Omit<EclipsesRequest, 'format'>, body: CentralBody, start: InitialState, frame: FrameOptions): EclipsesJob {
   const { spec, startTT, stopTT } = searchWindow(req, body, start);
   return { kind: 'eclipses', spec, startTT, stopTT, options: { moon: req.moon, ...frame, gm: body.gm } };
 }
@@ -35,7 +36,7 @@ const toEclipse = (e: SolverEclipse): Eclipse => ({
 });
 
 /** The /v1/eclipses answer for a finished search. */
-export function toEclipsesAnswer(req: Omit<EclipsesRequest, 'format'>, hash: string, found: EclipseSearchResult & { stopped?: PropagationStop }): EclipsesAnswer {
+export function toEclipsesAnswer(req: Omit<EclipsesRequest, 'format'>, hash: string, found: EclipsesJobResult, start: InitialState): EclipsesAnswer {
   return {
     scenarioHash: hash,
     model: req.model,
@@ -48,5 +49,6 @@ export function toEclipsesAnswer(req: Omit<EclipsesRequest, 'format'>, hash: str
     sunSynchronous: found.sunSynchronous,
     ascendingNodeLocalTime: found.sunSynchronous ? found.nodeLocalTimeH : null,
     ...(found.stopped ? { propagationStopped: { epoch: formatUtcIso(found.stopped.epochTT), code: found.stopped.code, reason: found.stopped.message } } : {}),
+    ...searchDiagnostics(found, start),
   };
 }

@@ -15,6 +15,7 @@ import { stateToGcrf } from '../solver/earth/state-frames.js';
 import type { Sgp4ElementSet } from '../solver/propagation/sgp4.js';
 import { describeBody } from './body.js';
 import { catalogInitialState } from './catalog.js';
+import { ephemerisInitialState, ephemerisOrbit, type EphemerisOrbit } from './ephemeris.js';
 import { epochTT } from './epoch.js';
 
 export type SolverOrbitInput = { r: Vec3; v: Vec3 } | { elements: SolverElementsInput };
@@ -51,11 +52,23 @@ export function orbitSolverInput(req: OrbitInputFields, body: CentralBody, frame
   };
 }
 
+/** The initial state of an orbit and what its model runs from besides (catalogue set, ephemeris). */
+export interface InitialState {
+  readonly r: Vec3;
+  readonly v: Vec3;
+  readonly epochTT: number;
+  readonly sgp4?: Sgp4ElementSet | undefined;
+  readonly ephemeris?: EphemerisOrbit | undefined;
+}
+
 /**
- * The initial Cartesian state of a request's orbit (state given, elements converted, or a
- * catalogue element set run through SGP4 to its epoch; then `sgp4` carries the set).
+ * The initial Cartesian state of a request's orbit (state given, elements converted, a
+ * catalogue element set run through SGP4 to its epoch, then `sgp4` carries the set, or an
+ * ephemeris's first node, then `ephemeris` carries it).
  */
-export function initialState(body: CentralBody, req: OrbitInputFields & { model?: string }, frame: FrameOptions = {}): Outcome<{ r: Vec3; v: Vec3; epochTT: number; sgp4?: Sgp4ElementSet }> {
+export function initialState(body: CentralBody, req: OrbitInputFields & { model?: string }, frame: FrameOptions = {}): Outcome<InitialState> {
+  const eph = ephemerisOrbit(req, body, frame);
+  if (eph) return success({ ...ephemerisInitialState(eph), ephemeris: eph });
   const catalog = catalogInitialState(body, req, req.model ?? '');
   if (catalog) return catalog;
   const { epochTT: epoch, input } = orbitSolverInput(req, body, frame);

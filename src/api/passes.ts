@@ -2,7 +2,6 @@
 // and the solver's passes (TT seconds, radians) -> the answer (ISO epochs, degrees).
 import type { CentralBody } from '../solver/bodies/bodies.js';
 import { DEG, RAD } from '../solver/core/math.js';
-import type { Vec3 } from '../solver/core/vec3.js';
 import type { FrameOptions } from '../solver/earth/frames.js';
 import type { Pass, PassStation } from '../solver/stations/passes.js';
 import { dopplerShift } from '../solver/stations/topocentric.js';
@@ -14,6 +13,8 @@ import type { SunAvoidance } from '../solver/light/sun-avoidance.js';
 import { BENNETT_PRESSURE_HPA, BENNETT_TEMPERATURE_C, type RefractionSpec } from '../solver/stations/refraction.js';
 import { epochTT } from './epoch.js';
 import { searchWindow } from './search-window.js';
+import { searchDiagnostics } from './diagnostics.js';
+import type { InitialState } from './orbit.js';
 
 /** A request's station for the pass search (degrees -> radians). */
 export const stationForSearch = (s: GroundStation): PassStation => ({
@@ -76,7 +77,7 @@ export function toPassAnswer(p: Pass, light: PassLight, carrierFrequencyHz: numb
 }
 
 /** The worker job of a validated pass request (the window checked by searchWindow). */
-export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number }, frame: FrameOptions, forPlots = false): PassesJob {
+export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralBody, start: InitialState, frame: FrameOptions, forPlots = false): PassesJob {
   const { spec, startTT, stopTT } = searchWindow(req, body, start);
   // The sky plots need a pointing track: without one asked they use their own step, longer for long searches.
   const plotStepS = SVG_POINTING_STEP_S * Math.max(1, Math.ceil(((stopTT - startTT) * req.stations.length) / SVG_POINTING_BUDGET_S));
@@ -102,7 +103,7 @@ function refractionOption(req: Omit<PassesRequest, 'format'>): { refraction?: Re
 }
 
 /** The /v1/passes answer for a finished search. */
-export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string, found: PassesJobResult): PassesAnswer {
+export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string, found: PassesJobResult, start: InitialState): PassesAnswer {
   return {
     scenarioHash: hash,
     model: req.model,
@@ -115,5 +116,6 @@ export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string,
     passes: found.passes.map((p, i) => toPassAnswer(p, found.light[i]!, req.pointing?.carrierFrequency,
       found.sunAvoidance && req.sunAvoidance ? { result: found.sunAvoidance[i]!, limit: req.sunAvoidance.angle * DEG } : undefined)),
     ...(found.stopped ? { propagationStopped: { epoch: formatUtcIso(found.stopped.epochTT), code: found.stopped.code, reason: found.stopped.message } } : {}),
+    ...searchDiagnostics(found, start),
   };
 }

@@ -3,32 +3,34 @@
 import type { CentralBody } from '../solver/bodies/bodies.js';
 import type { Conservation } from '../solver/propagation/track.js';
 import { RAD } from '../solver/core/math.js';
-import type { Vec3 } from '../solver/core/vec3.js';
 import type { FrameOptions } from '../solver/earth/frames.js';
 import type { Track } from '../solver/propagation/track.js';
-import type { Sgp4ElementSet } from '../solver/propagation/sgp4.js';
+import type { InitialState } from './orbit.js';
+import { interpolationDiagnostics } from './ephemeris.js';
 import type { TrackDiagnostics, TrackRequest } from '../schemas/track.js';
 import type { TrackNeeds, TrackFormat, TrackProductInput } from '../formats/track-output.js';
 import type { TrackJob, TrackJobResult } from '../workers/jobs.js';
 
-/** The answer's diagnostics from a track's conservation report. */
-export function trackDiagnostics(c: Conservation): TrackDiagnostics {
+/** The answer's diagnostics from a track's conservation report (and, for the ephemeris model, its interpolation). */
+export function trackDiagnostics(c: Conservation, interpolation?: TrackDiagnostics['interpolation']): TrackDiagnostics {
   return {
     conservedQuantity: c.quantity,
     meaning: c.meaning,
     energyRelativeDrift: c.drift ? c.drift.energy : null,
     energyDriftVsPotential: c.drift ? c.drift.energyVsPotential : null,
     angularMomentumRelativeDrift: c.drift ? c.drift.angularMomentumVector : null,
+    ...(interpolation ? { interpolation } : {}),
   };
 }
 
 /** The worker job of a validated track request (its grid buffer moves to the worker). */
-export function trackJob(req: TrackRequest, body: CentralBody, start: { r: Vec3; v: Vec3; epochTT: number; sgp4?: Sgp4ElementSet | undefined }, epochsTT: Float64Array, needs: TrackNeeds, frame: FrameOptions): TrackJob {
+export function trackJob(req: TrackRequest, body: CentralBody, start: InitialState, epochsTT: Float64Array, needs: TrackNeeds, frame: FrameOptions): TrackJob {
   return {
     kind: 'track',
     input: {
       body, model: req.model, forces: req.forces, r0: start.r, v0: start.v, epochTT: start.epochTT, epochsTT, passThroughBody: req.passThroughBody,
       ...(req.model === 'sgp4' && start.sgp4 ? { sgp4: start.sgp4 } : {}),
+      ...(req.model === 'ephemeris' && start.ephemeris ? { ephemeris: start.ephemeris.ephemeris } : {}),
     },
     teme: needs.teme,
     earthFixed: needs.earthFixed ? frame : null,
@@ -46,8 +48,10 @@ function geodeticDegrees(g: Float64Array): Float64Array {
 }
 
 /** The product's inputs for a solved track job. */
-export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: string, body: CentralBody, initialEpochTT: number, result: TrackJobResult): TrackProductInput {
+export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: string, body: CentralBody, start: InitialState, result: TrackJobResult): TrackProductInput {
+  const initialEpochTT = start.epochTT;
   const inertial: Track = result.track;
+  const interpolation = inertial.interpolation && start.ephemeris ? interpolationDiagnostics(inertial.interpolation, start.ephemeris.info) : undefined;
   return {
     format,
     frame: req.frame,
@@ -63,7 +67,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
       object: req.object,
       sampleCount: inertial.epochsTT.length,
       // Conservation is checked on the inertial states, whatever the output frame.
-      diagnostics: trackDiagnostics(inertial.conservation),
+      diagnostics: trackDiagnostics(inertial.conservation, interpolation),
     },
     object: req.object,
     oem: {
@@ -71,6 +75,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
       centerName: body.name.toUpperCase(),
       comments: [
         `model ${req.model}, GM ${body.gm} km**3/s**2; scenario ${hash}`,
+        ...(interpolation ? [`interpolated from the given ephemeris (${interpolation.segments.map((s) => `${s.method} degree ${s.degree}`).join(', ')}); largest position error estimate ${interpolation.maxPositionErrorEstimate.toExponential(2)} km`] : []),
         ...(req.frame === 'teme' ? ['TEME: true equator, mean equinox, rotated from PEF by GMST 1982 (Vallado et al. 2006); the frame of SGP4'] : []),
         ...(req.frame === 'itrf' ? [`Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected; UT1-UTC ${req.ut1MinusUtc ?? 0} s`] : []),
         'CREATION_DATE is the epoch of the initial state, so that one scenario always gives the same bytes',

@@ -767,6 +767,7 @@ export interface components {
             };
             /** @description s: the scan step sized from the orbit so that no eclipse is missed, even one shorter than the step */
             coarseStep: number;
+            diagnostics?: components["schemas"]["SearchDiagnostics"];
             /** @description The Earth's shadow, in time order */
             eclipses: components["schemas"]["Eclipse"][];
             /** @enum {string} */
@@ -797,6 +798,7 @@ export interface components {
         EclipsesRequest: {
             centralBody?: components["schemas"]["CentralBody"];
             elements?: components["schemas"]["InitialElements"];
+            ephemeris?: components["schemas"]["EphemerisOrbit"];
             /**
              * @description Forces of the numerical model, each kind at most once (ignored by the analytic models)
              * @default []
@@ -808,10 +810,10 @@ export interface components {
              */
             format?: "json" | "csv" | "svg";
             /**
-             * @description Default: sgp4 for a tle or omm orbit, two-body otherwise. sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
+             * @description Default: sgp4 for a tle or omm orbit, ephemeris for an ephemeris orbit, two-body otherwise. ephemeris: the given OEM interpolated (the only model of an ephemeris orbit, and only for one; see ephemeris.oem); never extrapolated. sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
              * @enum {string}
              */
-            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "sgp4";
+            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "sgp4" | "ephemeris";
             /**
              * @description Also search the Moon's shadow (conical, mean lunar radius 1737.4 km); its eclipses are listed apart, in moonEclipses
              * @default false
@@ -867,6 +869,11 @@ export interface components {
             trueAnomaly: number;
             /** @description deg, raan + argPeriapsis + trueAnomaly */
             trueLongitude: number;
+        };
+        /** @description An ephemeris to interpolate (model ephemeris, implied): samples and search windows must lie inside its coverage, else 422 outside-coverage naming the coverage; it is never extrapolated */
+        EphemerisOrbit: {
+            /** @description A CCSDS 502.0-B-3 Orbit Ephemeris Message in KVN (the text of the file, versions 1.0 to 3.0): a header, then one or more segments (META_START ... META_STOP, data lines "epoch x y z x_dot y_dot z_dot [x_ddot y_ddot z_ddot]" in km, km/s, km/s**2, optional covariance blocks, which are skipped). CENTER_NAME EARTH; REF_FRAME GCRF, ICRF, EME2000, ITRF (or a realisation such as ITRF2014; Earth-fixed, velocity relative to the rotating Earth, converted with the request's Earth orientation) or TEME; TIME_SYSTEM UTC, TAI, TT or GPS; INTERPOLATION LAGRANGE, HERMITE (positions with their velocities, and accelerations where the lines give them) or LINEAR, INTERPOLATION_DEGREE 1 to 15 (default 7 for LAGRANGE and when INTERPOLATION is absent, 5 for HERMITE, 1 for LINEAR). Each segment is used over USEABLE_START_TIME .. USEABLE_STOP_TIME (else START_TIME .. STOP_TIME) within its first and last data line; an epoch covered by two segments is taken from the earlier one. At most 1000 segments and 500000 data lines. A malformed message answers 422 oem-malformed, one the service does not read (another centre, frame, time system or method; XML) 422 oem-unsupported, each naming the line */
+            oem: string;
         };
         Force: {
             /** @constant */
@@ -980,6 +987,12 @@ export interface components {
                 number,
                 number
             ];
+        };
+        /** @description The ephemeris model: how each segment was interpolated and an error estimate */
+        InterpolationDiagnostics: {
+            /** @description km: the largest estimated interpolation error in position over the epochs computed, from the change the farthest node makes (the last term of Newton's form: the error of the interpolant one node smaller, so it overstates the error of the one used). It says nothing of the errors already in the file's states */
+            maxPositionErrorEstimate: number;
+            segments: components["schemas"]["SegmentInterpolation"][];
         };
         J2Rates: {
             /** @description Secular argument-of-periapsis rate from J2, deg/day */
@@ -1199,7 +1212,7 @@ export interface components {
             [key: string]: string | number;
         };
         /**
-         * @description An orbit about a central body, by state vector, by elements, or by a catalogue element set (tle, omm)
+         * @description An orbit about a central body, by state vector, by elements, by a catalogue element set (tle, omm), or by an ephemeris (the osculating orbit of its first node)
          * @example {
          *       "centralBody": "earth",
          *       "elements": {
@@ -1221,6 +1234,7 @@ export interface components {
             ageAt?: string;
             centralBody?: components["schemas"]["CentralBody"];
             elements?: components["schemas"]["InitialElements"];
+            ephemeris?: components["schemas"]["EphemerisOrbit"];
             /**
              * @description json (the numbers) | svg (the orbit in its plane, to scale with the body: periapsis, apoapsis, line of nodes, position at the epoch). Without it the Accept header chooses (application/json, image/svg+xml); default json
              * @enum {string}
@@ -1229,7 +1243,7 @@ export interface components {
             omm?: components["schemas"]["OrbitMeanElementsMessage"];
             state?: components["schemas"]["InitialState"];
             tle?: components["schemas"]["TwoLineElementSet"];
-            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); used only to bring an itrf state to gcrf */
+            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); used only to bring an itrf state (or itrf ephemeris nodes) to gcrf */
             ut1MinusUtc?: number;
         };
         Pass: {
@@ -1355,6 +1369,7 @@ export interface components {
         PassesAnswer: {
             /** @description s: the scan step sized from the orbit so no pass above the limit is missed */
             coarseStep: number;
+            diagnostics?: components["schemas"]["SearchDiagnostics"];
             /** @enum {string} */
             model: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "ephemeris" | "sgp4";
             /** @description In time order of AOS, then station order */
@@ -1400,6 +1415,7 @@ export interface components {
             };
             centralBody?: components["schemas"]["CentralBody"];
             elements?: components["schemas"]["InitialElements"];
+            ephemeris?: components["schemas"]["EphemerisOrbit"];
             /**
              * @description Forces of the numerical model, each kind at most once (ignored by the analytic models)
              * @default []
@@ -1411,10 +1427,10 @@ export interface components {
              */
             format?: "json" | "svg";
             /**
-             * @description Default: sgp4 for a tle or omm orbit, two-body otherwise. sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
+             * @description Default: sgp4 for a tle or omm orbit, ephemeris for an ephemeris orbit, two-body otherwise. ephemeris: the given OEM interpolated (the only model of an ephemeris orbit, and only for one; see ephemeris.oem); never extrapolated. sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
              * @enum {string}
              */
-            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "sgp4";
+            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "sgp4" | "ephemeris";
             omm?: components["schemas"]["OrbitMeanElementsMessage"];
             /** @description Ask for an antenna pointing track of each pass */
             pointing?: {
@@ -1556,6 +1572,36 @@ export interface components {
             /** @description What the method reported, with the epoch */
             reason: string;
         };
+        /** @description What the answer rests on, when it is worth saying (absent otherwise) */
+        SearchDiagnostics: {
+            /** @description Model ephemeris only: how each segment was interpolated and the largest position error estimate over the epochs the search evaluated */
+            interpolation?: components["schemas"]["InterpolationDiagnostics"];
+        };
+        SegmentInterpolation: {
+            /** @description The degree interpolated with: fewer nodes than asked in a short segment lower it, Hermite rounds it up to whole nodes */
+            degree: number;
+            /** @description INTERPOLATION_DEGREE of the file, or the default when it gives none */
+            degreeAsked: number;
+            /** @description False when the file named no INTERPOLATION_DEGREE and the default was taken */
+            degreeFromFile: boolean;
+            /**
+             * @description lagrange: each component through the nearest nodes; hermite: positions matched with their velocities (and accelerations) at the nearest nodes
+             * @enum {string}
+             */
+            method: "lagrange" | "hermite";
+            /** @description Data lines of the segment */
+            nodes: number;
+            nodesPerSample: number;
+            /** @description REF_FRAME as written in the file (its nodes were brought to gcrf) */
+            refFrame: string;
+            /** @description Start of the segment's coverage, ISO 8601 UTC */
+            start: string;
+            /** @description Stop of the segment's coverage, ISO 8601 UTC */
+            stop: string;
+            /** @description TIME_SYSTEM of the file's epochs */
+            timeSystem: string;
+            usesAccelerations: boolean;
+        };
         StateSample: {
             /** @description ISO 8601 UTC */
             epoch: string;
@@ -1628,6 +1674,8 @@ export interface components {
             energyDriftVsPotential: number | null;
             /** @description max |E_k - E_0| / |E_0| of the conserved energy of conservedQuantity across the samples; null when none */
             energyRelativeDrift: number | null;
+            /** @description Model ephemeris only: how each segment was interpolated and the largest position error estimate over the samples */
+            interpolation?: components["schemas"]["InterpolationDiagnostics"];
             /** @description One sentence: what the drifts measure for this model (rounding, integration error, or the terms an analytic model leaves out), or why there are none */
             meaning: string;
         };
@@ -1635,6 +1683,7 @@ export interface components {
         TrackRequest: {
             centralBody?: components["schemas"]["CentralBody"];
             elements?: components["schemas"]["InitialElements"];
+            ephemeris?: components["schemas"]["EphemerisOrbit"];
             /**
              * @description Forces of the numerical model, each kind at most once (ignored by the analytic models)
              * @default []
@@ -1653,10 +1702,10 @@ export interface components {
             frame?: "gcrf" | "itrf" | "geodetic" | "teme";
             grid: components["schemas"]["TimeGrid"];
             /**
-             * @description Default: sgp4 for a tle or omm orbit, two-body otherwise. sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
+             * @description Default: sgp4 for a tle or omm orbit, ephemeris for an ephemeris orbit, two-body otherwise. ephemeris: the given OEM interpolated (the only model of an ephemeris orbit, and only for one; see ephemeris.oem); never extrapolated. sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). two-body: exact Keplerian motion (universal variables), no perturbations. j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). j2-analytic: Brouwer (1959) J2 theory with the short-period terms in Lyddane's (1963) form: mean elements (the given state inverted, so the first sample is the given state) drifting at the secular J2 rates to second order, plus the first-order short-period terms, J2 about the same axis as numerical; bound orbits with e < 0.95 about a body with J2; within 0.1 km of numerical J2 over 7 days in LEO and 1.5 km for Molniya and GTO orbits (measured; long-period terms left out, see docs/accuracy.md). numerical: two-body gravity plus `forces`, integrated (extrapolation method, relative tolerance 1e-13)
              * @enum {string}
              */
-            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "sgp4";
+            model?: "two-body" | "j2-secular" | "j2-analytic" | "numerical" | "sgp4" | "ephemeris";
             /**
              * @description Labels for the exported track
              * @default {

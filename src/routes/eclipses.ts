@@ -51,7 +51,7 @@ const eclipses: FastifyPluginAsyncZod = async (app) => {
       // Long windows run on a worker thread; the propagator is rebuilt there from this state.
       const found = await app.pool.solve(eclipseSearchJob(req, body, start.value, frame));
       if (!found.ok) throw solverProblem(found);
-      const answer = toEclipsesAnswer(req, hash, found.value);
+      const answer = toEclipsesAnswer(req, hash, found.value, start.value);
       if (format === 'json') return jsonAnswer(answer);
       if (format === 'svg') return { contentType: SVG_MEDIA_TYPE, body: Buffer.from(eclipsesSvg(answer)) };
       return { contentType: CSV_MEDIA_TYPE, body: Buffer.from(eclipsesCsv(answer.eclipses, answer.moonEclipses)) };

@@ -12,6 +12,7 @@ import { utcScenario } from '../api/epoch.js';
 import { frameOptions } from '../api/earth-orientation.js';
 import { orbitPlotInput, orbitSolverInput, toOrbitAnswer } from '../api/orbit.js';
 import { catalogInitialState, elementSetAge, meanElementsAnswer } from '../api/catalog.js';
+import { ephemerisInitialState, ephemerisOrbit } from '../api/ephemeris.js';
 import { epochTT as epochTTOf } from '../api/epoch.js';
 import { OrbitAnswer, OrbitRequest, PLOT_FORMATS } from '../schemas/orbit.js';
 import { solveOrbit } from '../solver/conic/orbit.js';
@@ -44,7 +45,11 @@ const orbit: FastifyPluginAsyncZod = async (app) => {
       // A catalogue orbit: the osculating state at the element epoch from SGP4, with the mean elements as given.
       const catalog = catalogInitialState(body, req, '');
       if (catalog && !catalog.ok) throw solverProblem(catalog);
-      const { epochTT, input } = catalog?.ok ? { epochTT: catalog.value.epochTT, input: { r: catalog.value.r, v: catalog.value.v } } : orbitSolverInput(req, body, frameOptions(req.ut1MinusUtc));
+      const frame = frameOptions(req.ut1MinusUtc);
+      // An ephemeris: the osculating orbit of its first node (GCRF).
+      const eph = ephemerisOrbit(req, body, frame);
+      const first = eph ? ephemerisInitialState(eph) : catalog?.ok ? catalog.value : undefined;
+      const { epochTT, input } = first ? { epochTT: first.epochTT, input: { r: first.r, v: first.v } } : orbitSolverInput(req, body, frame);
       const solved = solveOrbit(body, input);
       if (!solved.ok) throw solverProblem(solved);
       const set = catalog?.ok ? catalog.value.set : undefined;

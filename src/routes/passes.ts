@@ -54,7 +54,7 @@ const passes: FastifyPluginAsyncZod = async (app) => {
       // propagator is rebuilt there from this state.
       const found = await app.pool.solve(passSearchJob(req, body, start.value, frame, format === 'svg'));
       if (!found.ok) throw solverProblem(found);
-      const answer = toPassesAnswer(req, hash, found.value);
+      const answer = toPassesAnswer(req, hash, found.value, start.value);
       assertFinite(answer); // the plots are drawn from the answer: the same check for both formats
       return format === 'json' ? jsonAnswer(answer) : { contentType: SVG_MEDIA_TYPE, body: Buffer.from(passesSvg(answer.window, req.stations, answer.passes)) };
     });

@@ -51,7 +51,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
       // moves there and comes back); formatting stays here, in chunks.
       const result = await app.pool.solve(trackJob(req, body, start.value, epochs, needs, frame));
       if (!result.ok) throw solverProblem(result);
-      const input = trackProductInput(req, format, hash, body, start.value.epochTT, result.value);
+      const input = trackProductInput(req, format, hash, body, start.value, result.value);
       return () => trackProduct(input);
     });
   });

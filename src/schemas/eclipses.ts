@@ -1,6 +1,7 @@
 // POST /v1/eclipses: when a spacecraft is in the Earth's (and optionally the Moon's) shadow over a
 // window, with the beta angle (mapping to and from the solver: src/api/eclipses.ts).
 import { z } from 'zod';
+import { SearchDiagnostics } from './diagnostics.js';
 import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { MAX_ECLIPSE_WINDOW_S } from '../solver/light/eclipses.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
@@ -69,6 +70,7 @@ export const EclipsesAnswer = z.object({
   sunSynchronous: z.boolean().describe('At the window start, the osculating orbit\'s first-order J2 node rate follows the mean Sun (within the tolerance of /v1/orbit)'),
   ascendingNodeLocalTime: z.number().nullable().describe('h, [0, 24): local mean solar time of the ascending node at the window start; null unless sunSynchronous'),
   propagationStopped: PropagationStopped.optional(),
+  diagnostics: SearchDiagnostics.optional(),
 })
   .meta({ id: 'EclipsesAnswer' });
 export type EclipsesAnswer = z.infer<typeof EclipsesAnswer>;

@@ -2,18 +2,18 @@
 import { z } from 'zod';
 import { STATE_MODELS } from '../solver/propagation/propagator.js';
 
-/** Models of the API: the state models, and sgp4 for catalogue orbits (tle, omm). */
-export const API_MODELS = [...STATE_MODELS, 'sgp4'] as const;
+/** Models of the API: the state models, sgp4 for catalogue orbits (tle, omm) and ephemeris for ephemeris orbits. */
+export const API_MODELS = [...STATE_MODELS, 'sgp4', 'ephemeris'] as const;
 export type ApiModel = (typeof API_MODELS)[number];
 
 /**
- * The model a request runs when it names none: sgp4 for a catalogue orbit (tle, omm), two-body
- * otherwise. Applied as the last step of the request schemas, so the scenario (and its hash)
- * always holds the model run; requests without a catalogue orbit hash as before.
+ * The model a request runs when it names none: sgp4 for a catalogue orbit (tle, omm), ephemeris
+ * for an ephemeris, two-body otherwise. Applied as the last step of the request schemas, so the
+ * scenario (and its hash) always holds the model run; requests with a state or elements hash as before.
  */
-export const withDefaultModel = <T extends { model?: ApiModel | undefined; tle?: unknown; omm?: unknown }>(req: T): Omit<T, 'model'> & { model: ApiModel } => ({
+export const withDefaultModel = <T extends { model?: ApiModel | undefined; tle?: unknown; omm?: unknown; ephemeris?: unknown }>(req: T): Omit<T, 'model'> & { model: ApiModel } => ({
   ...req,
-  model: req.model ?? (req.tle !== undefined || req.omm !== undefined ? 'sgp4' : 'two-body'),
+  model: req.model ?? (req.ephemeris !== undefined ? 'ephemeris' : req.tle !== undefined || req.omm !== undefined ? 'sgp4' : 'two-body'),
 });
 
 export const Force = z
@@ -34,7 +34,8 @@ export const Force = z
 
 export const modelFields = {
   model: z.enum(API_MODELS).optional().describe(
-    'Default: sgp4 for a tle or omm orbit, two-body otherwise. ' +
+    'Default: sgp4 for a tle or omm orbit, ephemeris for an ephemeris orbit, two-body otherwise. ' +
+    'ephemeris: the given OEM interpolated (the only model of an ephemeris orbit, and only for one; see ephemeris.oem); never extrapolated. ' +
     'sgp4: the SGP4/SDP4 method (Vallado et al. 2006, WGS-72) from the catalogue mean elements, for tle and omm orbits only; the other models start from the SGP4 state at the element epoch (mean elements are not osculating: they are converted by SGP4 first). ' +
     'two-body: exact Keplerian motion (universal variables), no perturbations. ' +
     'j2-secular: Keplerian motion in mean elements (averaged over one revolution of the mean orbit) whose node, periapsis and mean anomaly drift at the first-order secular J2 rates, J2 about the frame z axis; bound orbits about a body with J2; short-period J2 terms left out (bounded error of 1 to 9 km at the first sample, up to ~25 km over a day, measured; see docs/accuracy.md). ' +

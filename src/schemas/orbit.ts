@@ -4,6 +4,7 @@ import { CentralBodyInput, BodySummary } from './body.js';
 import { STATE_FRAMES } from '../solver/earth/state-frames.js';
 import { codedIssue, DEMO_EPOCH, Epoch, EpochOut, EpochText, MAX_POSITION_KM, PositionKm, refineEpochs, ScenarioHash, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT, Vec3, VelocityKmS } from './common.js';
 import { OmmInput, TleInput } from './catalog.js';
+import { EphemerisInput } from './ephemeris.js';
 
 export const StateInput = z
   .object({
@@ -57,6 +58,7 @@ export const orbitFields = {
   elements: ElementsInput.optional(),
   tle: TleInput.optional(),
   omm: OmmInput.optional(),
+  ephemeris: EphemerisInput.optional(),
 };
 
 /** The orbit fields of a validated request, as the edge layer (src/api/orbit.ts) reads them. */
@@ -65,11 +67,12 @@ export interface OrbitInputFields {
   readonly elements?: z.output<typeof ElementsInput> | undefined;
   readonly tle?: z.output<typeof TleInput> | undefined;
   readonly omm?: z.output<typeof OmmInput> | undefined;
+  readonly ephemeris?: z.output<typeof EphemerisInput> | undefined;
 }
 
-export function requireOneOrbitInput(req: { state?: unknown; elements?: unknown; tle?: unknown; omm?: unknown }, ctx: z.RefinementCtx): void {
-  if ([req.state, req.elements, req.tle, req.omm].filter((x) => x !== undefined).length !== 1) {
-    ctx.addIssue({ code: 'custom', path: ['state'], message: 'give exactly one of state, elements, tle and omm' });
+export function requireOneOrbitInput(req: { state?: unknown; elements?: unknown; tle?: unknown; omm?: unknown; ephemeris?: unknown }, ctx: z.RefinementCtx): void {
+  if ([req.state, req.elements, req.tle, req.omm, req.ephemeris].filter((x) => x !== undefined).length !== 1) {
+    ctx.addIssue({ code: 'custom', path: ['state'], message: 'give exactly one of state, elements, tle, omm and ephemeris' });
   }
 }
 
@@ -87,7 +90,7 @@ export const plotFormatField = (plots: string) => z.enum(['json', 'svg']).option
 export const OrbitRequest = z
   .object({
     ...orbitFields,
-    ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; used only to bring an itrf state to gcrf`),
+    ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; used only to bring an itrf state (or itrf ephemeris nodes) to gcrf`),
     ageAt: Epoch.optional().describe('tle or omm only: the epoch (UTC) at which to state the age of the element set (elementSetAge); SGP4 errors grow with it (about a kilometre at the element epoch, kilometres more each day; common practice, no source)'),
     format: plotFormatField('the orbit in its plane, to scale with the body: periapsis, apoapsis, line of nodes, position at the epoch') })
   .strict()
@@ -96,7 +99,7 @@ export const OrbitRequest = z
     if (req.ageAt !== undefined && req.tle === undefined && req.omm === undefined) ctx.addIssue({ code: 'custom', path: ['ageAt'], message: 'ageAt applies to tle and omm orbits only' });
   })
   .meta({
-    description: 'An orbit about a central body, by state vector, by elements, or by a catalogue element set (tle, omm)',
+    description: 'An orbit about a central body, by state vector, by elements, by a catalogue element set (tle, omm), or by an ephemeris (the osculating orbit of its first node)',
     examples: [{ centralBody: 'earth', elements: DEMO_ELEMENTS }],
   })
   .meta({ id: 'OrbitRequest' });

@@ -1,6 +1,7 @@
 // POST /v1/passes: ground-station passes of one spacecraft over a window.
 import { z } from 'zod';
 import { boundedList } from './list.js';
+import { SearchDiagnostics } from './diagnostics.js';
 import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { MAX_PASS_STATIONS, MAX_PASS_WINDOW_S, MAX_POINTING_SAMPLES, MIN_POINTING_STEP_S } from '../solver/stations/passes.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
@@ -144,6 +145,7 @@ export const PassesAnswer = z.object({
   }).optional().describe('Present when refraction was asked: the elevations of the answer (limits, AOS/LOS, maxElevation, pointing) are apparent ones. Absent: geometric elevations'),
   passes: z.array(Pass).describe('In time order of AOS, then station order'),
   propagationStopped: PropagationStopped.optional(),
+  diagnostics: SearchDiagnostics.optional(),
 })
   .meta({ id: 'PassesAnswer' });
 export type PassesAnswer = z.infer<typeof PassesAnswer>;

@@ -5,6 +5,7 @@ import { TRACK_MODELS } from '../solver/propagation/track.js';
 import { DEMO_EPOCH, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
 import { Force, modelFields, withDefaultModel } from './forces.js';
 import { TimeGrid } from './grid.js';
+import { InterpolationDiagnostics } from './ephemeris.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
 
@@ -73,6 +74,7 @@ export const TrackDiagnostics = z.object({
   energyRelativeDrift: z.number().nullable().describe('max |E_k - E_0| / |E_0| of the conserved energy of conservedQuantity across the samples; null when none'),
   energyDriftVsPotential: z.number().nullable().describe('max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0; null when none'),
   angularMomentumRelativeDrift: z.number().nullable().describe('max |h_k - h_0| / |h_0|: the vector for two-body, the axial component h.k (over |h_0|) for j2; null when none'),
+  interpolation: InterpolationDiagnostics.optional().describe('Model ephemeris only: how each segment was interpolated and the largest position error estimate over the samples'),
 })
   .meta({ id: 'TrackDiagnostics' });
 

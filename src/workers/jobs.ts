@@ -19,7 +19,8 @@ import { SECONDS_PER_DAY } from '../solver/core/math.js';
 import { failure, success, type Failure, type Outcome } from '../solver/core/result.js';
 import { DEFAULT_MAX_STEPS } from '../solver/numerics/ode.js';
 import { propagateTrack, type Track, type TrackInput } from '../solver/propagation/track.js';
-import { stateFunction, type PropagationSpec } from '../solver/propagation/propagator.js';
+import { stateFunction, type PropagationSpec, type StateFunction } from '../solver/propagation/propagator.js';
+import { ephemerisStateFunction, type InterpolationReport } from '../solver/propagation/ephemeris.js';
 import { sgp4FirstStop } from '../solver/propagation/sgp4.js';
 
 // Inline or worker thread is decided by an estimate of the work, in units of about one inertial
@@ -176,6 +177,8 @@ export interface PropagationStop {
 export interface PassesJobResult extends PassSearchResult {
   /** Present when the propagation stopped inside the window (passes are those before it). */
   readonly stopped?: PropagationStop;
+  /** The ephemeris model: how it interpolated the epochs the search asked for. */
+  readonly interpolation?: InterpolationReport;
   readonly light: readonly PassLight[];
   /** With job.sunAvoidance: per pass (same order). */
   readonly sunAvoidance?: readonly SunAvoidance[];
@@ -189,6 +192,9 @@ export interface EclipsesJob {
   readonly stopTT: number;
   readonly options: EclipseSearchOptions;
 }
+
+/** An eclipse search, where its propagation stopped (sgp4) and how the ephemeris model interpolated. */
+export type EclipsesJobResult = EclipseSearchResult & { readonly stopped?: PropagationStop; readonly interpolation?: InterpolationReport };
 
 /** Effective-potential analysis and, when asked, the track r(t), phi(t). */
 export interface CentralForceJob {
@@ -208,7 +214,7 @@ export interface CentralForceJobResult {
 interface JobTypes {
   track: { job: TrackJob; result: Outcome<TrackJobResult> };
   passes: { job: PassesJob; result: Outcome<PassesJobResult> };
-  eclipses: { job: EclipsesJob; result: Outcome<EclipseSearchResult & { stopped?: PropagationStop }> };
+  eclipses: { job: EclipsesJob; result: Outcome<EclipsesJobResult> };
   'central-force': { job: CentralForceJob; result: CentralForceJobResult };
 }
 export type JobKind = keyof JobTypes;
@@ -257,11 +263,27 @@ function runPasses(whole: PassesJob): Outcome<PassesJobResult> {
   return done.ok && span.stopped ? success({ ...done.value, stopped: span.stopped }) : done;
 }
 
+/** The state function of a search, and for the ephemeris model the report of what it interpolated. */
+function searchStates(spec: PropagationSpec, startTT: number, stopTT: number): Outcome<StateFunction> & { report?: () => InterpolationReport } {
+  if (spec.model === 'ephemeris' && spec.ephemeris) {
+    const f = ephemerisStateFunction(spec.ephemeris, startTT, stopTT);
+    return f.ok ? { ...success(f.value.at), report: f.value.report } : f;
+  }
+  return stateFunction(spec, startTT, stopTT);
+}
+
+const withReport = <T extends object>(found: Outcome<T>, report: (() => InterpolationReport) | undefined): Outcome<T & { interpolation?: InterpolationReport }> =>
+  found.ok && report ? success({ ...found.value, interpolation: report() }) : found;
+
 function runPassesIn(job: PassesJob): Outcome<PassesJobResult> {
-  const stateAt = stateFunction(job.spec, job.startTT, job.stopTT);
+  const stateAt = searchStates(job.spec, job.startTT, job.stopTT);
   if (!stateAt.ok) return stateAt;
+  return withReport(passesAndLight(job, stateAt.value), stateAt.report);
+}
+
+function passesAndLight(job: PassesJob, stateAt: StateFunction): Outcome<PassesJobResult> {
   const found = findPasses({
-    stateAt: stateAt.value,
+    stateAt,
     startTT: job.startTT,
     stopTT: job.stopTT,
     stations: job.stations,
@@ -269,20 +291,20 @@ function runPassesIn(job: PassesJob): Outcome<PassesJobResult> {
   });
   if (!found.ok) return found;
   // The pass search's frame options (UT1 - UTC, EOP) serve the Sun's elevation too.
-  const light = lightPasses(found.value.passes, job.stations, stateAt.value, job.startTT, job.stopTT, { ...job.options, ...job.lighting });
+  const light = lightPasses(found.value.passes, job.stations, stateAt, job.startTT, job.stopTT, { ...job.options, ...job.lighting });
   if (!light.ok) return light;
   if (!job.sunAvoidance) return success({ ...found.value, light: light.value });
-  const avoid = sunAvoidance(found.value.passes, job.stations, stateAt.value, job.startTT, job.stopTT, job.sunAvoidance.angle, job.options);
+  const avoid = sunAvoidance(found.value.passes, job.stations, stateAt, job.startTT, job.stopTT, job.sunAvoidance.angle, job.options);
   return avoid.ok ? success({ ...found.value, light: light.value, sunAvoidance: avoid.value }) : avoid;
 }
 
-function runEclipses(whole: EclipsesJob): Outcome<EclipseSearchResult & { stopped?: PropagationStop }> {
+function runEclipses(whole: EclipsesJob): Outcome<EclipsesJobResult> {
   const span = searchSpan(whole);
   // A search needs some span: an SGP4 failure at the window start is the answer itself.
   if (span.stopped && !(span.stopTT > whole.startTT + 1)) return failure('sgp4-failed', span.stopped.message);
-  const stateAt = stateFunction(whole.spec, whole.startTT, span.stopTT);
+  const stateAt = searchStates(whole.spec, whole.startTT, span.stopTT);
   if (!stateAt.ok) return stateAt;
-  const found = findEclipses({ stateAt: stateAt.value, startTT: whole.startTT, stopTT: span.stopTT, options: whole.options });
+  const found = withReport(findEclipses({ stateAt: stateAt.value, startTT: whole.startTT, stopTT: span.stopTT, options: whole.options }), stateAt.report);
   return found.ok && span.stopped ? success({ ...found.value, stopped: span.stopped }) : found;
 }
 

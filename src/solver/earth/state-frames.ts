@@ -11,7 +11,8 @@
 // ITRF z axis there: polar motion (< 3e-6 rad) changes that term by < 1e-10 km/s^2.
 
 import type { Vec3 } from '../core/vec3.js';
-import { EARTH_ROTATION_RATE_RAD_S, FRAME_BIAS, gcrfToItrf, itrfToGcrf, type FrameOptions, type Mat3, type StateVectors } from './frames.js';
+import { EARTH_ROTATION_RATE_RAD_S, FRAME_BIAS, gcrfToItrf, itrfToGcrf, itrfToGcrfTabled, orientationTable, type FrameOptions, type Mat3, type StateVectors } from './frames.js';
+import { temeOrientationTable, temeToGcrfTabled } from './teme.js';
 
 export const STATE_FRAMES = ['gcrf', 'icrf', 'eme2000', 'itrf'] as const;
 export type StateFrame = (typeof STATE_FRAMES)[number];
@@ -61,21 +62,52 @@ export function accelerationToGcrf(frame: StateFrame, tt: number, r: Vec3, v: Ve
   return itrfToGcrf(tt, [2 * v[0], 2 * v[1], 2 * v[2]], [a[0] - w2 * r[0], a[1] - w2 * r[1], a[2]], opts).v;
 }
 
-/** Many states (6 per epoch) and optional accelerations (3 per epoch) in `frame` -> GCRF, each at its own epoch. */
+/** Frames of ephemeris nodes: the state frames and TEME (an operator's OEM may be in any of them). */
+export type NodeFrame = StateFrame | 'teme';
+
+/**
+ * Many states (6 per epoch) and optional accelerations (3 per epoch) in `frame` -> GCRF, each at its
+ * own epoch. ITRF and TEME go through an orientation table of frames.ts over the nodes' span (Q, W
+ * and UT1 interpolated between hourly nodes: sub-mm, measured there), so a file of 100,000 nodes
+ * costs no nutation series per node. TEME accelerations are rotated like positions (TEME turns
+ * with precession-nutation only, < 1e-11 rad/s: its frame terms are far below 1e-12 km/s^2).
+ */
 export function nodesToGcrf(
-  frame: StateFrame, epochsTT: Float64Array, states: Float64Array, accelerations: Float64Array | null, opts: FrameOptions = {},
+  frame: NodeFrame, epochsTT: Float64Array, states: Float64Array, accelerations: Float64Array | null, opts: FrameOptions = {},
 ): { states: Float64Array; accelerations: Float64Array | null } {
   if (frame === 'gcrf' || frame === 'icrf') return { states, accelerations };
+  const n = epochsTT.length;
+  if (states.length !== 6 * n || (accelerations && accelerations.length !== 3 * n)) throw new RangeError('6 state numbers (and 3 accelerations) per epoch');
   const out = new Float64Array(states.length);
   const acc = accelerations ? new Float64Array(accelerations.length) : null;
-  for (let k = 0; k < epochsTT.length; k++) {
+  if (n === 0) return { states: out, accelerations: acc };
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const t of epochsTT) { lo = Math.min(lo, t); hi = Math.max(hi, t); }
+  const table = frame === 'itrf' ? orientationTable(lo, hi, opts) : frame === 'teme' ? temeOrientationTable(lo, hi, opts) : undefined;
+  const w2 = EARTH_ROTATION_RATE_RAD_S * EARTH_ROTATION_RATE_RAD_S;
+  for (let k = 0; k < n; k++) {
     const o = 6 * k;
+    const tt = epochsTT[k]!;
     const r: Vec3 = [states[o]!, states[o + 1]!, states[o + 2]!];
     const v: Vec3 = [states[o + 3]!, states[o + 4]!, states[o + 5]!];
-    const s = stateToGcrf(frame, epochsTT[k]!, r, v, opts);
-    out.set(s.r, o);
-    out.set(s.v, o + 3);
-    if (acc) acc.set(accelerationToGcrf(frame, epochsTT[k]!, r, v, [accelerations![3 * k]!, accelerations![3 * k + 1]!, accelerations![3 * k + 2]!], opts), 3 * k);
+    const a: Vec3 | undefined = accelerations ? [accelerations[3 * k]!, accelerations[3 * k + 1]!, accelerations[3 * k + 2]!] : undefined;
+    let g: StateVectors;
+    let ag: Vec3 | undefined;
+    if (frame === 'eme2000') {
+      g = { r: applyT(FRAME_BIAS, r), v: applyT(FRAME_BIAS, v) };
+      ag = a && applyT(FRAME_BIAS, a);
+    } else if (frame === 'itrf') {
+      g = itrfToGcrfTabled(table!, tt, r, v);
+      // As accelerationToGcrf: (x, y) -> (M x, M y + dM/dt x) with x = 2 v, y = a - w^2 r_perp.
+      ag = a && itrfToGcrfTabled(table!, tt, [2 * v[0], 2 * v[1], 2 * v[2]], [a[0] - w2 * r[0], a[1] - w2 * r[1], a[2]]).v;
+    } else {
+      g = temeToGcrfTabled(table!, tt, r, v, opts);
+      ag = a && temeToGcrfTabled(table!, tt, a, [0, 0, 0], opts).r;
+    }
+    out.set(g.r, o);
+    out.set(g.v, o + 3);
+    if (acc && ag) acc.set(ag, 3 * k);
   }
   return { states: out, accelerations: acc };
 }

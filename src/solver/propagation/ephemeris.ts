@@ -239,6 +239,24 @@ export function ephemerisStates(e: Ephemeris, epochsTT: Float64Array): Outcome<{
   return success({ states, interpolation: f.report() });
 }
 
+/**
+ * A state function over [startTT, stopTT] for searches (refused when the span is not covered), and
+ * the interpolation report of the epochs it was asked for so far.
+ */
+export function ephemerisStateFunction(e: Ephemeris, startTT: number, stopTT: number): Outcome<{ at: (tt: number) => Outcome<{ r: Vec3; v: Vec3 }>; report: () => InterpolationReport }> {
+  const covered = checkCoverage(e, startTT, stopTT);
+  if (!covered.ok) return covered;
+  const f = ephemerisInterpolator(e);
+  const out = new Float64Array(6);
+  return success({
+    at: (tt) => {
+      const r = f.at(tt, out, 0);
+      return r.ok ? success({ r: [out[0]!, out[1]!, out[2]!], v: [out[3]!, out[4]!, out[5]!] }) : r;
+    },
+    report: f.report,
+  });
+}
+
 /** The first node's state and epoch (the ephemeris's "initial state"). */
 export function firstNode(e: Ephemeris): { r: Vec3; v: Vec3; epochTT: number } {
   const s = e.segments[0]!;

@@ -8,7 +8,7 @@
 //               GCRF state at the element epoch
 
 import type { CentralBody } from '../bodies/bodies.js';
-import { checkCoverage, ephemerisInterpolator, ephemerisStates, type Ephemeris } from './ephemeris.js';
+import { ephemerisStateFunction, ephemerisStates, type Ephemeris } from './ephemeris.js';
 import { j2AnalyticPropagator } from './j2-analytic.js';
 import { j2SecularPropagator } from './j2-secular.js';
 import { bodySpinAxis, propagateNumerical, spanMiddle } from './numerical.js';
@@ -108,15 +108,8 @@ export function stateFunction(spec: PropagationSpec, startTT: number, stopTT: nu
   if (spec.model === 'j2-analytic') return j2AnalyticPropagator(body, r0, v0, epochTT, bodySpinAxis(body, spanMiddle(epochTT, [startTT, stopTT])));
   if (spec.model === 'sgp4') return success(sgp4StateFunction(sgp4Of(spec), startTT, stopTT));
   if (spec.model === 'ephemeris') {
-    const e = ephemerisOf(spec);
-    const covered = checkCoverage(e, startTT, stopTT);
-    if (!covered.ok) return covered;
-    const f = ephemerisInterpolator(e);
-    return success((tt) => {
-      const out = new Float64Array(6);
-      const r = f.at(tt, out, 0);
-      return r.ok ? success({ r: [out[0]!, out[1]!, out[2]!], v: [out[3]!, out[4]!, out[5]!] }) : r;
-    });
+    const f = ephemerisStateFunction(ephemerisOf(spec), startTT, stopTT);
+    return f.ok ? success(f.value.at) : f;
   }
   const count = Math.max(2, Math.ceil((stopTT - startTT) / INTERPOLATION_NODE_SPACING_S) + 1);
   const h = (stopTT - startTT) / (count - 1);

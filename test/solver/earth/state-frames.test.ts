@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { gcrfToItrf } from '../../../src/solver/earth/frames.js';
+import { temeToGcrf } from '../../../src/solver/earth/teme.js';
 import { earthFixedToGeodetic } from '../../../src/solver/earth/geodetic.js';
 import { accelerationToGcrf, nodesToGcrf, stateFromGcrf, stateToGcrf } from '../../../src/solver/earth/state-frames.js';
 import type { Vec3 } from '../../../src/solver/core/vec3.js';
@@ -89,5 +90,30 @@ describe('state frames -> GCRF', () => {
     expect(out.states).not.toBe(states);
     expect(out.states[0]).not.toBeCloseTo(out.states[6]!, 0); // the Earth turned 15 deg
     expect(nodesToGcrf('gcrf', epochs, states, null).states).toBe(states);
+  });
+
+  it('nodesToGcrf through its orientation table agrees with the exact conversion of each node to 1 mm, 1 um/s and 1e-12 km/s^2 over a day (itrf, teme; accelerations too)', () => {
+    const n = 97;
+    const epochs = Float64Array.from({ length: n }, (_, i) => T + 900 * i);
+    const states = new Float64Array(6 * n);
+    const acc = new Float64Array(3 * n);
+    for (let i = 0; i < n; i++) {
+      const u = 0.001 * i;
+      states.set([7000 * Math.cos(u), 7000 * Math.sin(u), 1200, -0.8, 7.1, 1.9], 6 * i);
+      acc.set([-0.0081 * Math.cos(u), -0.0081 * Math.sin(u), -0.0014], 3 * i);
+    }
+    for (const frame of ['itrf', 'teme'] as const) {
+      const out = nodesToGcrf(frame, epochs, states, acc, { dut1: 0.2 });
+      for (let i = 0; i < n; i++) {
+        const r: Vec3 = [states[6 * i]!, states[6 * i + 1]!, states[6 * i + 2]!];
+        const v: Vec3 = [states[6 * i + 3]!, states[6 * i + 4]!, states[6 * i + 5]!];
+        const a: Vec3 = [acc[3 * i]!, acc[3 * i + 1]!, acc[3 * i + 2]!];
+        const exact = frame === 'itrf' ? stateToGcrf('itrf', epochs[i]!, r, v, { dut1: 0.2 }) : temeToGcrf(epochs[i]!, r, v, { dut1: 0.2 });
+        const ae = frame === 'itrf' ? accelerationToGcrf('itrf', epochs[i]!, r, v, a, { dut1: 0.2 }) : temeToGcrf(epochs[i]!, a, [0, 0, 0], { dut1: 0.2 }).r;
+        expectVecClose([...out.states.subarray(6 * i, 6 * i + 3)], exact.r, 1e-6, `${frame} r ${i}`);
+        expectVecClose([...out.states.subarray(6 * i + 3, 6 * i + 6)], exact.v, 1e-9, `${frame} v ${i}`);
+        expectVecClose([...out.accelerations!.subarray(3 * i, 3 * i + 3)], ae, 1e-12, `${frame} a ${i}`);
+      }
+    }
   });
 });
