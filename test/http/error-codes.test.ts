@@ -30,6 +30,9 @@ const ELSEWHERE: Partial<Record<ErrorCode, string>> = {
   'idempotency-conflict': 'test/http/jobs-control.test.ts',
   'job-not-comparable': 'test/http/jobs-control.test.ts',
   'callback-not-allowed': 'test/http/job-callbacks.test.ts',
+  'oem-malformed': 'test/http/ephemeris-input.test.ts', // each malformed OEM names its line
+  'oem-unsupported': 'test/http/ephemeris-input.test.ts',
+  'outside-coverage': 'test/http/ephemeris-input.test.ts',
 };
 
 /**
@@ -38,11 +41,6 @@ const ELSEWHERE: Partial<Record<ErrorCode, string>> = {
  * must move to a case.
  */
 const NOT_YET_REACHABLE: Partial<Record<ErrorCode, string>> = {
-  // The ephemeris orbit input (`ephemeris: { oem }`, issue 10) is not on the request schemas yet; the
-  // OEM reader (src/formats/oem-read.ts) and the coverage check (src/solver/propagation/ephemeris.ts) answer these.
-  'oem-malformed': 'no request carries an OEM until the ephemeris input lands',
-  'oem-unsupported': 'no request carries an OEM until the ephemeris input lands',
-  'outside-coverage': 'no request carries an ephemeris until the ephemeris input lands',
   // Kepler's equation (elliptic, hyperbolic, universal) and the radial quadrature return it; no body
   // was found that makes them fail (random searches near barrier tops and at extreme anomalies and spans).
   'no-convergence': 'no request found that makes an iteration fail',

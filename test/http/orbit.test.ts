@@ -110,7 +110,7 @@ describe('POST /v1/orbit', () => {
   it('both or neither of state and elements is a 400 naming the rule', async () => {
     const res = await postJson(app, '/v1/orbit', { centralBody: 'earth' });
     expect(res.statusCode).toBe(400);
-    expect(res.json().detail).toMatch(/exactly one of state, elements, tle and omm/);
+    expect(res.json().detail).toMatch(/exactly one of state, elements, tle, omm and ephemeris/);
   });
 
   it('physically meaningless inputs answer 422 naming the reason', async () => {
