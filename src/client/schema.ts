@@ -2725,7 +2725,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description limit-exceeded, job-not-comparable, callback-not-allowed */
+            /** @description limit-exceeded (more than BATCH_MAX_ITEMS items, or, in process, items larger than JOBS_MAX_BYTES), job-not-comparable, callback-not-allowed */
             422: {
                 headers: {
                     [name: string]: unknown;

@@ -10,7 +10,7 @@ import { randomUUID } from 'node:crypto';
 import type { JobCounts } from '../plugins/metrics.js';
 import type { BatchItem, JobStatus } from '../schemas/batch.js';
 import {
-  CANCELLED_REASON, deadlineReason, JOB_ID_PATTERN, QueueUnavailableError,
+  CANCELLED_REASON, deadlineReason, JOB_ID_PATTERN, JobTooLargeError, QueueUnavailableError,
   type JobEvents, type JobPage, type JobQueue, type JobRecord, type NewJob, type RunLines,
 } from './queue.js';
 
@@ -72,6 +72,11 @@ export class MemoryJobQueue implements JobQueue {
       const earlier = this.#jobs.get(this.#idempotent.get(idempotencySlot(job.owner, job.idempotencyKey)) ?? '');
       if (earlier) return earlier.record;
     }
+    // A job larger than the bound by itself is refused before anything stored is dropped for it.
+    const itemBytes = Buffer.byteLength(JSON.stringify(job.items));
+    if (itemBytes > (this.#options.maxBytes ?? Infinity)) {
+      throw new JobTooLargeError(`the job's items take ${itemBytes} bytes; the in-process queue keeps at most ${this.#options.maxBytes} bytes of jobs and results (JOBS_MAX_BYTES): send fewer items per job`);
+    }
     for (const [id, kept] of this.#jobs) {
       if (this.#jobs.size < this.#options.maxKept) break;
       if (finished(kept.record.status)) this.#drop(id);
@@ -79,7 +84,6 @@ export class MemoryJobQueue implements JobQueue {
     if (this.#jobs.size >= this.#options.maxKept) {
       throw new QueueUnavailableError(`the in-process queue holds ${this.#jobs.size} unfinished jobs (JOBS_MAX_KEPT ${this.#options.maxKept}); retry after ${RETRY_AFTER_S} s`, RETRY_AFTER_S);
     }
-    const itemBytes = Buffer.byteLength(JSON.stringify(job.items));
     if (!this.#makeRoom(itemBytes)) {
       throw new QueueUnavailableError(`the in-process queue holds as many bytes of jobs and results as it may (JOBS_MAX_BYTES); retry after ${RETRY_AFTER_S} s, when finished jobs have been read and expire`, RETRY_AFTER_S);
     }

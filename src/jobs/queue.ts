@@ -112,6 +112,14 @@ export class QueueUnavailableError extends Error {
   }
 }
 
+/** The job is larger than the queue could ever keep (JOBS_MAX_BYTES): a retry cannot succeed. */
+export class JobTooLargeError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'JobTooLargeError';
+  }
+}
+
 /** Job ids are random UUIDs (crypto.randomUUID); anything else is an unknown id, never a key lookup. */
 export const JOB_ID_PATTERN = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
 

@@ -12,7 +12,7 @@ import { ProblemError } from '../errors.js';
 import { BullJobQueue } from '../jobs/bullmq-queue.js';
 import { itemChanges, lineId } from '../jobs/changes.js';
 import { MemoryJobQueue } from '../jobs/memory-queue.js';
-import { jobLinks, QueueUnavailableError, type JobQueue, type JobRecord } from '../jobs/queue.js';
+import { jobLinks, JobTooLargeError, QueueUnavailableError, type JobQueue, type JobRecord } from '../jobs/queue.js';
 import { appRunner } from '../jobs/runner.js';
 import { toAnswer } from '../jobs/answer.js';
 import { callbackRefusal, callbackSettings, type CallbackSender } from '../jobs/callback.js';
@@ -36,6 +36,7 @@ async function queued<T>(work: Promise<T>): Promise<T> {
     if (error instanceof QueueUnavailableError) {
       throw new ProblemError('queue-unavailable', error.message, { headers: { 'retry-after': String(error.retryAfterS) } });
     }
+    if (error instanceof JobTooLargeError) throw new ProblemError('limit-exceeded', error.message);
     throw error;
   }
 }
@@ -111,7 +112,7 @@ const jobs: FastifyPluginAsyncZod = async (app) => {
         'When the queue cannot take the job the answer is 503 queue-unavailable with Retry-After.',
       headers: z.object({ 'idempotency-key': z.string().regex(IDEMPOTENCY_KEY_PATTERN).optional().describe('Your key for this submission: a repeat with the same body answers the same job') }),
       body: JobRequest,
-      response: { 202: JobAccepted.describe('Queued'), ...problemResponses, 409: problemAnswer('idempotency-conflict'), 422: problemAnswer('limit-exceeded, job-not-comparable, callback-not-allowed'), 503: unavailable },
+      response: { 202: JobAccepted.describe('Queued'), ...problemResponses, 409: problemAnswer('idempotency-conflict'), 422: problemAnswer('limit-exceeded (more than BATCH_MAX_ITEMS items, or, in process, items larger than JOBS_MAX_BYTES), job-not-comparable, callback-not-allowed'), 503: unavailable },
     },
   }, async (request, reply) => {
     const { label, items, deadline, compareTo, thresholdSeconds, thresholdDegrees, callbackUrl } = request.body;

@@ -109,3 +109,22 @@ describe('jobs in process', () => {
     await two.close();
   });
 });
+
+describe('jobs in process bounded in bytes (JOBS_MAX_BYTES)', () => {
+  it('a job whose items alone are larger than the bound answers 422 limit-exceeded without Retry-After (a retry could never succeed)', async () => {
+    const small = await testApp({ config: { JOBS_MAX_BYTES: 2048 } });
+    try {
+      const items = Array.from({ length: 16 }, (_, i) => ({ id: `plover-${i}`, kind: 'orbit', request: GOOD.orbit }));
+      const res = await postJson(small, '/v1/jobs', { items });
+      expect(res.statusCode, res.body).toBe(422);
+      expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
+      expect(Problem.parse(res.json())).toMatchObject({ type: '/problems/limit-exceeded' });
+      expect(res.json().detail).toMatch(/JOBS_MAX_BYTES/);
+      expect(res.headers['retry-after']).toBeUndefined();
+      // One item fits.
+      expect((await postJson(small, '/v1/jobs', { items: items.slice(0, 1) })).statusCode).toBe(202);
+    } finally {
+      await small.close();
+    }
+  });
+});

@@ -1,7 +1,7 @@
 import { setImmediate as nextTurn } from 'node:timers/promises';
 import { describe, expect, it } from 'vitest';
 import { MemoryJobQueue } from '../../src/jobs/memory-queue.js';
-import { QueueUnavailableError, type LineOut, type RunLines } from '../../src/jobs/queue.js';
+import { JobTooLargeError, QueueUnavailableError, type LineOut, type RunLines } from '../../src/jobs/queue.js';
 import type { BatchItem } from '../../src/schemas/batch.js';
 
 const items = (n: number): BatchItem[] => Array.from({ length: n }, (_, i) => ({ id: `i${i}`, kind: 'orbit', request: {} }));
@@ -148,6 +148,18 @@ describe('MemoryJobQueue bounded in bytes (JOBS_MAX_BYTES)', () => {
     await expect(refused).rejects.toBeInstanceOf(QueueUnavailableError);
     await expect(refused).rejects.toThrow(/JOBS_MAX_BYTES/);
     await expect(refused).rejects.toMatchObject({ retryAfterS: 30 });
+    await queue.stop();
+  });
+
+  it('a job whose items alone pass the bound is refused as too large (not retryable), and drops nothing to make room', async () => {
+    const queue = new MemoryJobQueue(fixedRunner, { maxKept: 100, ttlS: 60, maxBytes: 3000 });
+    const kept = await queue.enqueue({ items: items(2) });
+    expect((await settle(queue, kept.id)).status).toBe('done');
+    const huge = Array.from({ length: 4 }, (_, i) => ({ id: `i${i}`, kind: 'orbit' as const, request: { note: 'y'.repeat(1000) } }));
+    const refused = queue.enqueue({ items: huge });
+    await expect(refused).rejects.toBeInstanceOf(JobTooLargeError);
+    await expect(refused).rejects.toThrow(/JOBS_MAX_BYTES/);
+    expect(await queue.get(kept.id)).toBeDefined();
     await queue.stop();
   });
 
