@@ -14,35 +14,32 @@ const digitCount = (n: number): number =>
   n < 1e4 ? (n < 100 ? (n < 10 ? 1 : 2) : n < 1000 ? 3 : 4)
     : n < 1e6 ? (n < 1e5 ? 5 : 6) : n < 1e8 ? (n < 1e7 ? 7 : 8) : n < 1e9 ? 9 : 10;
 
-/** Writes a non-negative int32 with at least `width` digits at pos, right to left, two digits per division; returns the end. */
-function writeInt32(buf: Uint8Array, pos: number, n: number, width: number): number {
-  const end = pos + Math.max(digitCount(n), width);
-  let p = end;
-  let m = n;
-  while (m >= 100) {
-    const q = (m / 100) | 0;
-    const r = (m - q * 100) << 1;
-    buf[--p] = PAIRS[r + 1]!;
-    buf[--p] = PAIRS[r]!;
-    m = q;
-  }
-  if (m >= 10) {
-    buf[--p] = PAIRS[(m << 1) + 1]!;
-    buf[--p] = PAIRS[m << 1]!;
-  } else {
-    buf[--p] = ZERO + m;
-  }
-  while (p > pos) buf[--p] = ZERO;
-  return end;
-}
+/** "0000".."9999" as byte quadruples: four digits per division. */
+const QUADS = Uint8Array.from({ length: 40_000 }, (_, i) => ZERO + (Math.floor((i >> 2) / 10 ** (3 - (i & 3))) % 10));
+
+// Quotients by 100 and 10^4 as products: (m * 0.01) | 0 and (m * 1e-4) | 0 equal floor(m / 100)
+// and floor(m / 10^4) for every integer 0 <= m < 2^31 (both constants round above their exact
+// values, and the products' rounding error stays far below the gap to the next integer; checked
+// for all 2^31 values once, and at the quotient boundaries in test/formats/ascii-writer.test.ts).
+// A float64 division costs several multiplications here, and the digits are most of a track's work.
 
 /** Writes a non-negative int32 in exactly `width` digits (zero-padded; n has at most that many) ending before `end`. */
 function writeDigitsBefore(buf: Uint8Array, end: number, n: number, width: number): void {
   let p = end;
   const stop = end - width;
   let m = n;
-  while (m >= 100) {
-    const q = (m / 100) | 0;
+  while (m >= 10_000) {
+    const q = (m * 1e-4) | 0;
+    const r = (m - q * 10_000) << 2;
+    buf[p - 1] = QUADS[r + 3]!;
+    buf[p - 2] = QUADS[r + 2]!;
+    buf[p - 3] = QUADS[r + 1]!;
+    buf[p - 4] = QUADS[r]!;
+    p -= 4;
+    m = q;
+  }
+  if (m >= 100) {
+    const q = (m * 0.01) | 0;
     const r = (m - q * 100) << 1;
     buf[--p] = PAIRS[r + 1]!;
     buf[--p] = PAIRS[r]!;
@@ -55,6 +52,19 @@ function writeDigitsBefore(buf: Uint8Array, end: number, n: number, width: numbe
     buf[--p] = ZERO + m;
   }
   while (p > stop) buf[--p] = ZERO;
+}
+
+/** Writes a non-negative int32 with at least `width` digits at pos; returns the end. */
+function writeInt32(buf: Uint8Array, pos: number, n: number, width: number): number {
+  const digits = Math.max(digitCount(n), width);
+  writeDigitsBefore(buf, pos + digits, n, digits);
+  return pos + digits;
+}
+
+/** Two digits of 0 <= n < 100 at pos. */
+function writeTwo(buf: Uint8Array, pos: number, n: number): void {
+  buf[pos] = PAIRS[n << 1]!;
+  buf[pos + 1] = PAIRS[(n << 1) + 1]!;
 }
 
 /**
@@ -181,6 +191,25 @@ export class AsciiWriter {
     return this;
   }
 
+  /**
+   * count numbers of values from index `from`, number c with decimals[c] digits (as fixed()), each
+   * preceded by the byte `separator` when `leading`, else separated by it: one call per record.
+   */
+  fixedRun(values: Float64Array, from: number, count: number, decimals: readonly number[], separator: number, leading: boolean): this {
+    for (let c = 0; c < count; c++) {
+      if (leading || c > 0) {
+        this.#room(1);
+        this.#buf[this.#pos++] = separator;
+      }
+      const v = values[from + c]!;
+      const d = decimals[c]!;
+      const end = this.#pos + 40 <= this.#buf.length ? writeFixed(this.#buf, this.#pos, v, d) : -1;
+      if (end >= 0) this.#pos = end;
+      else this.fixed(v, d);
+    }
+    return this;
+  }
+
   /** An epoch as ISO 8601 UTC, with or without the trailing Z. */
   utc(tt: number, zone = true): this {
     const f = this.#fields;
@@ -189,20 +218,29 @@ export class AsciiWriter {
       this.#prefixText = f.datePrefix;
       this.#prefixBytes = Buffer.from(f.datePrefix, 'latin1');
     }
-    this.#room(this.#prefixBytes.length);
-    this.#prefixBytes.copy(this.#buf, this.#pos);
-    this.#pos += this.#prefixBytes.length;
+    const prefix = this.#prefixBytes;
+    this.#room(prefix.length);
+    // By hand: Buffer#copy checks its arguments on every call, for 11 bytes.
+    for (let i = 0, p = this.#pos; i < prefix.length; i++, p++) this.#buf[p] = prefix[i]!;
+    this.#pos += prefix.length;
     this.#room(24);
-    this.#integer(f.hour, 2);
-    this.#buf[this.#pos++] = 58;
-    this.#integer(f.minute, 2);
-    this.#buf[this.#pos++] = 58;
-    this.#integer(f.second, 2);
-    if (this.#fractionDigits > 0) {
-      this.#buf[this.#pos++] = 46;
-      this.#integer(f.fraction, this.#fractionDigits);
+    // hh:mm:ss, each field below 100 (a leap second is 60).
+    const buf = this.#buf;
+    let p = this.#pos;
+    writeTwo(buf, p, f.hour);
+    buf[p + 2] = 58;
+    writeTwo(buf, p + 3, f.minute);
+    buf[p + 5] = 58;
+    writeTwo(buf, p + 6, f.second);
+    p += 8;
+    const digits = this.#fractionDigits;
+    if (digits > 0) {
+      buf[p++] = 46;
+      writeDigitsBefore(buf, p + digits, f.fraction, digits);
+      p += digits;
     }
-    if (zone) this.#buf[this.#pos++] = 90;
+    if (zone) buf[p++] = 90;
+    this.#pos = p;
     return this;
   }
 }

@@ -50,9 +50,8 @@ export function* columnCsvChunks(epochsTT: Float64Array, values: Float64Array, c
   const decimals = columns.map((c) => c.decimals);
   const out = new AsciiWriter(epochDigits, opts.chunkChars ?? 65_536);
   out.text(['epoch_utc', ...columns.map((c) => c.header)].join(',') + CRLF);
-  for (let i = 0, o = 0; i < n; i++) {
-    out.utc(epochsTT[i]!);
-    for (let c = 0; c < width; c++, o++) out.char(44).fixed(values[o]!, decimals[c]!);
+  for (let i = 0; i < n; i++) {
+    out.utc(epochsTT[i]!).fixedRun(values, width * i, width, decimals, 44, true);
     out.char(13).char(10);
     if (out.full) yield out.take();
   }

@@ -30,6 +30,7 @@ export function* trackJsonChunks(head: Record<string, unknown>, epochsTT: Float6
   const opening = JSON.stringify(head);
   const headBytes = Buffer.from(`${opening.slice(0, -1)}${opening.length > 2 ? ',' : ''}"samples":[`, 'utf8');
   const prefixes = fields.map((f) => Buffer.from(`,"${f.key}":${f.count > 1 ? '[' : ''}`, 'latin1'));
+  const decimals = fields.map((f) => Array.from({ length: f.count }, () => f.decimals));
   const firstOpen = Buffer.from('{"epoch":"', 'latin1');
   const nextOpen = Buffer.from(',{"epoch":"', 'latin1');
   yield headBytes;
@@ -38,8 +39,7 @@ export function* trackJsonChunks(head: Record<string, unknown>, epochsTT: Float6
     out.bytes(i === 0 ? firstOpen : nextOpen).utc(epochsTT[i]!).char(34);
     for (let k = 0; k < fields.length; k++) {
       const f = fields[k]!;
-      out.bytes(prefixes[k]!).fixed(values[o + f.from]!, f.decimals);
-      for (let c = 1; c < f.count; c++) out.char(44).fixed(values[o + f.from + c]!, f.decimals);
+      out.bytes(prefixes[k]!).fixedRun(values, o + f.from, f.count, decimals[k]!, 44, false);
       if (f.count > 1) out.char(93);
     }
     out.char(125);

@@ -49,4 +49,35 @@ describe('AsciiWriter', () => {
     expect(text).toBe('123456.789000,'.repeat(10));
     expect(w.size).toBe(0);
   });
+
+  it('writes digits across every quotient boundary of its division by 100 and 10^4 as toFixed does', () => {
+    // The writer divides by multiplying with 0.01 and 1e-4 (the comment above writeDigitsBefore in ascii-writer.ts): check
+    // the integers on both sides of multiples of 100 and 10^4, up to 2^31 - 1, as whole parts and
+    // as 9-decimal fractions.
+    const edges: number[] = [];
+    for (const base of [100, 10_000, 1_000_000, 100_000_000]) {
+      for (let k = 1; k * base < 2 ** 31; k = k * 3 + 1) for (const m of [k * base - 1, k * base, k * base + 1]) edges.push(m);
+    }
+    edges.push(2 ** 31 - 1, 2 ** 31 - 100, 999_999_999, 1_000_000_000);
+    for (const m of edges) {
+      expect(written((w) => w.fixed(m + 0.25, 2)), `${m}`).toBe(reference(m + 0.25, 2));
+      if (m < 1e9) {
+        const x = 3 + m / 1e9; // fraction digits m, 9 decimals
+        expect(written((w) => w.fixed(x, 9)), `${m}`).toBe(reference(x, 9));
+      }
+    }
+  });
+
+  it('writes numbers that use all 53 bits exactly as toFixed (fc.double alone favours round values)', () => {
+    const uniform = fc.tuple(fc.integer({ min: -(2 ** 52), max: 2 ** 52 }), fc.integer({ min: -12, max: 9 })).map(([n, e]) => (n / 2 ** 52) * 10 ** e);
+    fc.assert(fc.property(uniform, fc.integer({ min: 0, max: 12 }), (x, d) => written((w) => w.fixed(x, d)) === reference(x, d)), { numRuns: 20_000 });
+  });
+
+  it('fixedRun writes what fixed() and the separators write one by one', () => {
+    const values = new Float64Array([6878.137, -0.0000004, 1234.5678905, 7.612345678, -0.5, 1e13 + 0.1]);
+    const decimals = [6, 6, 6, 9, 9, 3];
+    const byOne = written((w) => { for (let c = 0; c < 6; c++) w.char(44).fixed(values[c]!, decimals[c]!); });
+    expect(written((w) => w.fixedRun(values, 0, 6, decimals, 44, true))).toBe(byOne);
+    expect(written((w) => w.fixedRun(values, 2, 3, decimals.slice(2), 44, false))).toBe(byOne.split(',').slice(3, 6).join(','));
+  });
 });
