@@ -4,6 +4,7 @@ import { cpus, totalmem } from 'node:os';
 import type { BenchResult } from './types.js';
 import { benchCachedOrbit } from './cached-orbit.js';
 import { benchEclipses } from './eclipses.js';
+import { benchEphemeris } from './ephemeris.js';
 import { benchFrames } from './frames.js';
 import { benchJobs } from './jobs.js';
 import { benchJobsMemory } from './jobs-memory.js';
@@ -22,6 +23,7 @@ const suites: Array<[string, () => Promise<BenchResult[]>]> = [
   ['sgp4', benchSgp4],
   ['eclipses', benchEclipses],
   ['frames', benchFrames],
+  ['ephemeris', benchEphemeris],
   ['jobs', benchJobs],
   ['jobs-memory', benchJobsMemory],
 ];

@@ -13,6 +13,7 @@ import auth from './plugins/auth.js';
 import limits from './plugins/limits.js';
 import openapi from './plugins/openapi.js';
 import answers from './plugins/answers.js';
+import eop from './plugins/eop.js';
 import memo from './plugins/memo.js';
 import metrics from './plugins/metrics.js';
 import pool from './plugins/pool.js';
@@ -98,6 +99,7 @@ export async function buildApp(options: BuildOptions = {}): Promise<FastifyInsta
     cache: options.cache ?? answerCache(config),
     maxStoredBytes: Math.floor(config.CACHE_MAX_BYTES / 4),
   });
+  await app.register(eop);
   await app.register(memo, { maxBytes: config.REQUEST_MEMO_MAX_BYTES });
   await app.register(pool);
   await app.register(metrics);

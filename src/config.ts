@@ -62,6 +62,8 @@ export const Config = z.object({
   MAX_HEAP_USED_BYTES: z.coerce.number().int().min(0).optional().describe('Heap used, bytes, past which /v1 requests answer 503 overloaded; unset: 90 % of the V8 heap limit; 0: not checked'),
   MAX_RSS_BYTES: int(0, 0, 1024 ** 4).describe('Resident memory, bytes, past which /v1 requests answer 503 overloaded; 0: not checked (set it below the container limit)'),
   ASKERS_KEY_PREFIX: z.string().min(1).max(100).default('apsides:askers:').describe('Prefix of the Redis sets recording which keys asked each scenario (REDIS_URL set)'),
+  EOP_FILE: z.string().min(1).optional().describe('Path of an IERS finals2000A file (finals2000A.all, .data or .daily): polar motion, UT1-UTC and the celestial pole offsets dX, dY are interpolated from it (linearly between the daily rows) for every Earth-fixed computation; a request\'s ut1MinusUtc still wins for UT1. Reloaded on SIGHUP and when its modification time changes (EOP_CHECK_INTERVAL_S); a bad file at start stops the start, a bad file on reload keeps the table in force. Unset: UT1 = UTC unless a request gives ut1MinusUtc, no polar motion, no dX, dY'),
+  EOP_CHECK_INTERVAL_S: int(300, 0, 86_400).describe('Seconds between checks of EOP_FILE\'s modification time and size (a change reloads it); 0: only SIGHUP reloads'),
   JOB_KEY_PREFIX: z.string().min(1).max(100).default('apsides:jobs:').describe('Prefix of every Redis key of the job queue (REDIS_URL set)'),
 });
 export type Config = z.infer<typeof Config>;

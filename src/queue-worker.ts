@@ -23,6 +23,7 @@ if (!config.REDIS_URL) {
 
 const app = await buildApp({ config, logger: { level: config.LOG_LEVEL } });
 await app.ready();
+process.on('SIGHUP', () => { void app.eop.reload(); });
 /** On stop, callbacks still being delivered get this long; retries after it are dropped (logged as given up). */
 const CALLBACK_GRACE_MS = 5000;
 

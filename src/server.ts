@@ -29,6 +29,8 @@ for (const signal of ['SIGINT', 'SIGTERM'] as const) {
     });
   });
 }
+// SIGHUP: read EOP_FILE again (a bad file keeps the table in force; both are logged).
+process.on('SIGHUP', () => { void app.eop.reload(); });
 try {
   await app.listen({ port: config.PORT, host: config.HOST });
 } catch (error) {

@@ -10,6 +10,8 @@ import type { EclipsesJob, EclipsesJobResult } from '../workers/jobs.js';
 import { epochTT } from './epoch.js';
 import { searchWindow } from './search-window.js';
 import { searchDiagnostics } from './diagnostics.js';
+import { forSpan } from './earth-orientation.js';
+import type { EarthOrientationDiagnostics } from '../schemas/diagnostics.js';
 import type { InitialState } from './orbit.js';
 
 export const SHADOW_MODEL_TEXT =
@@ -20,7 +22,7 @@ export const SHADOW_MODEL_TEXT =
 /** The worker job of a validated eclipse request (the window checked by searchWindow). */
 export function eclipseSearchJob(req: Omit<EclipsesRequest, 'format'>, body: CentralBody, start: InitialState, frame: FrameOptions): EclipsesJob {
   const { spec, startTT, stopTT } = searchWindow(req, body, start);
-  return { kind: 'eclipses', spec, startTT, stopTT, options: { moon: req.moon, ...frame, gm: body.gm } };
+  return { kind: 'eclipses', spec, startTT, stopTT, options: { moon: req.moon, ...forSpan(frame, startTT, stopTT), gm: body.gm } };
 }
 
 const toEclipse = (e: SolverEclipse): Eclipse => ({
@@ -36,7 +38,7 @@ const toEclipse = (e: SolverEclipse): Eclipse => ({
 });
 
 /** The /v1/eclipses answer for a finished search. */
-export function toEclipsesAnswer(req: Omit<EclipsesRequest, 'format'>, hash: string, found: EclipsesJobResult, start: InitialState): EclipsesAnswer {
+export function toEclipsesAnswer(req: Omit<EclipsesRequest, 'format'>, hash: string, found: EclipsesJobResult, start: InitialState, earthOrientation?: EarthOrientationDiagnostics): EclipsesAnswer {
   return {
     scenarioHash: hash,
     model: req.model,
@@ -49,6 +51,6 @@ export function toEclipsesAnswer(req: Omit<EclipsesRequest, 'format'>, hash: str
     sunSynchronous: found.sunSynchronous,
     ascendingNodeLocalTime: found.sunSynchronous ? found.nodeLocalTimeH : null,
     ...(found.stopped ? { propagationStopped: { epoch: formatUtcIso(found.stopped.epochTT), code: found.stopped.code, reason: found.stopped.message } } : {}),
-    ...searchDiagnostics(found, start),
+    ...searchDiagnostics(found, start, earthOrientation),
   };
 }

@@ -64,6 +64,11 @@ export function ephemerisOrbit(req: OrbitInputFields & { model?: string }, body:
   };
 }
 
+/** The spans (TT) of the segments whose nodes were Earth-fixed or TEME (they used the Earth orientation). */
+export function earthFixedNodeSpans(e: EphemerisOrbit): Array<[number, number]> {
+  return e.ephemeris.segments.flatMap((s, i) => (/^(ITRF|TEME)/.test(e.info[i]!.refFrame) ? [[s.epochsTT[0]!, s.epochsTT[s.epochsTT.length - 1]!] as [number, number]] : []));
+}
+
 /** The initial state of an ephemeris orbit: its first node (GCRF). */
 export const ephemerisInitialState = (e: EphemerisOrbit): { r: Vec3; v: Vec3; epochTT: number } => firstNode(e.ephemeris);
 

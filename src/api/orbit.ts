@@ -29,7 +29,7 @@ export function orbitSolverInput(req: OrbitInputFields, body: CentralBody, frame
   if (req.state) {
     const s = req.state;
     const t = epochTT(s.epoch);
-    if (s.frame === 'itrf' && body !== BODIES.earth) throw new ProblemError('unsupported-frame', 'an itrf state (Earth-fixed) needs the built-in centralBody "earth"');
+    if ((s.frame === 'itrf' || s.frame === 'teme') && body !== BODIES.earth) throw new ProblemError('unsupported-frame', `an ${s.frame} state (${s.frame === 'itrf' ? 'Earth-fixed' : 'an Earth frame'}) needs the built-in centralBody "earth"`);
     const g = stateToGcrf(s.frame, t, s.position, s.velocity, frame);
     return { epochTT: t, input: { r: g.r, v: g.v } };
   }

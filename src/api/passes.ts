@@ -14,6 +14,8 @@ import { BENNETT_PRESSURE_HPA, BENNETT_TEMPERATURE_C, type RefractionSpec } from
 import { epochTT } from './epoch.js';
 import { searchWindow } from './search-window.js';
 import { searchDiagnostics } from './diagnostics.js';
+import { forSpan } from './earth-orientation.js';
+import type { EarthOrientationDiagnostics } from '../schemas/diagnostics.js';
 import type { InitialState } from './orbit.js';
 
 /** A request's station for the pass search (degrees -> radians). */
@@ -90,7 +92,8 @@ export function passSearchJob(req: Omit<PassesRequest, 'format'>, body: CentralB
     stations: req.stations.map(stationForSearch),
     lighting: { twilightLimit: req.twilightLimit * DEG },
     ...(req.sunAvoidance ? { sunAvoidance: { angle: req.sunAvoidance.angle * DEG } } : {}),
-    options: { ...frame, gm: body.gm, ...refractionOption(req), ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
+    // The EOP table cut to the window's rows (plain data to the worker thread).
+    options: { ...forSpan(frame, startTT, stopTT), gm: body.gm, ...refractionOption(req), ...(pointingStepS !== undefined ? { pointingStepS } : {}) },
   };
 }
 
@@ -103,7 +106,7 @@ function refractionOption(req: Omit<PassesRequest, 'format'>): { refraction?: Re
 }
 
 /** The /v1/passes answer for a finished search. */
-export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string, found: PassesJobResult, start: InitialState): PassesAnswer {
+export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string, found: PassesJobResult, start: InitialState, earthOrientation?: EarthOrientationDiagnostics): PassesAnswer {
   return {
     scenarioHash: hash,
     model: req.model,
@@ -116,6 +119,6 @@ export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string,
     passes: found.passes.map((p, i) => toPassAnswer(p, found.light[i]!, req.pointing?.carrierFrequency,
       found.sunAvoidance && req.sunAvoidance ? { result: found.sunAvoidance[i]!, limit: req.sunAvoidance.angle * DEG } : undefined)),
     ...(found.stopped ? { propagationStopped: { epoch: formatUtcIso(found.stopped.epochTT), code: found.stopped.code, reason: found.stopped.message } } : {}),
-    ...searchDiagnostics(found, start),
+    ...searchDiagnostics(found, start, earthOrientation),
   };
 }

@@ -12,7 +12,7 @@ import type { TrackNeeds, TrackFormat, TrackProductInput } from '../formats/trac
 import type { TrackJob, TrackJobResult } from '../workers/jobs.js';
 
 /** The answer's diagnostics from a track's conservation report (and, for the ephemeris model, its interpolation). */
-export function trackDiagnostics(c: Conservation, interpolation?: TrackDiagnostics['interpolation']): TrackDiagnostics {
+export function trackDiagnostics(c: Conservation, interpolation?: TrackDiagnostics['interpolation'], earthOrientation?: TrackDiagnostics['earthOrientation']): TrackDiagnostics {
   return {
     conservedQuantity: c.quantity,
     meaning: c.meaning,
@@ -20,6 +20,7 @@ export function trackDiagnostics(c: Conservation, interpolation?: TrackDiagnosti
     energyDriftVsPotential: c.drift ? c.drift.energyVsPotential : null,
     angularMomentumRelativeDrift: c.drift ? c.drift.angularMomentumVector : null,
     ...(interpolation ? { interpolation } : {}),
+    ...(earthOrientation ? { earthOrientation } : {}),
   };
 }
 
@@ -34,6 +35,7 @@ export function trackJob(req: TrackRequest, body: CentralBody, start: InitialSta
     },
     teme: needs.teme,
     earthFixed: needs.earthFixed ? frame : null,
+    ...(needs.teme ? { temeFrame: frame } : {}),
     geodetic: needs.geodetic,
   };
 }
@@ -48,7 +50,7 @@ function geodeticDegrees(g: Float64Array): Float64Array {
 }
 
 /** The product's inputs for a solved track job. */
-export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: string, body: CentralBody, start: InitialState, result: TrackJobResult): TrackProductInput {
+export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: string, body: CentralBody, start: InitialState, result: TrackJobResult, earthOrientation?: TrackDiagnostics['earthOrientation']): TrackProductInput {
   const initialEpochTT = start.epochTT;
   const inertial: Track = result.track;
   const interpolation = inertial.interpolation && start.ephemeris ? interpolationDiagnostics(inertial.interpolation, start.ephemeris.info) : undefined;
@@ -67,7 +69,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
       object: req.object,
       sampleCount: inertial.epochsTT.length,
       // Conservation is checked on the inertial states, whatever the output frame.
-      diagnostics: trackDiagnostics(inertial.conservation, interpolation),
+      diagnostics: trackDiagnostics(inertial.conservation, interpolation, earthOrientation),
     },
     object: req.object,
     oem: {
@@ -77,7 +79,11 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
         `model ${req.model}, GM ${body.gm} km**3/s**2; scenario ${hash}`,
         ...(interpolation ? [`interpolated from the given ephemeris (${interpolation.segments.map((s) => `${s.method} degree ${s.degree}`).join(', ')}); largest position error estimate ${interpolation.maxPositionErrorEstimate.toExponential(2)} km`] : []),
         ...(req.frame === 'teme' ? ['TEME: true equator, mean equinox, rotated from PEF by GMST 1982 (Vallado et al. 2006); the frame of SGP4'] : []),
-        ...(req.frame === 'itrf' ? [`Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected; UT1-UTC ${req.ut1MinusUtc ?? 0} s`] : []),
+        ...(req.frame === 'itrf' && !earthOrientation ? [`Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected; UT1-UTC ${req.ut1MinusUtc ?? 0} s`] : []),
+        ...(req.frame === 'itrf' && earthOrientation
+          ? [`Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion, dX, dY${req.ut1MinusUtc === undefined ? ' and UT1-UTC' : ''} from the IERS finals2000A table ${earthOrientation.firstDate} to ${earthOrientation.lastPredictedDate} (SHA-256 ${earthOrientation.tableDigest.slice(0, 16)}...)${req.ut1MinusUtc === undefined ? '' : `; UT1-UTC ${req.ut1MinusUtc} s`}`,
+            ...(earthOrientation.warning ? [`WARNING ${earthOrientation.warning}`] : [])]
+          : []),
         'CREATION_DATE is the epoch of the initial state, so that one scenario always gives the same bytes',
       ],
     },

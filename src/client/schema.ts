@@ -727,6 +727,33 @@ export interface components {
             /** @description Sidereal rotation rate, deg/s */
             rotationRate?: number;
         };
+        /** @description With EOP_FILE set, on answers whose computation used the Earth orientation: the table used */
+        EarthOrientationDiagnostics: {
+            /** @description First day of the table (UTC date) */
+            firstDate: string;
+            /** @description Last day whose polar motion and UT1-UTC are observed (IERS flag I); later rows are predictions */
+            lastObservedDate: string | null;
+            /** @description Last day of the table */
+            lastPredictedDate: string;
+            /** @description Some epoch of the answer lies outside the table: there polar motion, dX, dY (and UT1-UTC unless given) are 0 */
+            outsideTable: boolean;
+            /** @description Some epoch of the answer used predicted rows */
+            predicted: boolean;
+            /**
+             * @description The IERS finals2000A table of the service (EOP_FILE)
+             * @constant
+             */
+            source: "EOP_FILE";
+            /** @description SHA-256 of the table's rows: part of the scenario hash, so an answer of another table is never served */
+            tableDigest: string;
+            /**
+             * @description Where UT1-UTC came from: the request's ut1MinusUtc, or the table
+             * @enum {string}
+             */
+            ut1MinusUtc: "request" | "table";
+            /** @description With outsideTable: which epochs, and what was taken there */
+            warning?: string;
+        };
         Eclipse: {
             /** @description Largest fraction of the solar disc hidden, 0 to 1 (1 when the umbra is reached); a uniformly bright disc */
             depth: number;
@@ -822,7 +849,7 @@ export interface components {
             omm?: components["schemas"]["OrbitMeanElementsMessage"];
             state?: components["schemas"]["InitialState"];
             tle?: components["schemas"]["TwoLineElementSet"];
-            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); enters only the local time of the ascending node */
+            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table; 0 outside the table, with a warning in diagnostics.earthOrientation). Polar motion and dX, dY come from the table whenever it covers the epoch; enters only the local time of the ascending node */
             ut1MinusUtc?: number;
             /** @description Search window (epochs in timeSystem, UTC by default), stop after start, at most 31 days */
             window: {
@@ -965,11 +992,11 @@ export interface components {
              */
             epoch: string;
             /**
-             * @description Frame of the state: gcrf or icrf (inertial, the service's frame: ICRF axes, origin the centre of the body); eme2000 (J2000 mean equator and equinox: the IAU 2006 frame bias is applied, 23 mas); itrf (Earth-fixed, velocity relative to the rotating Earth as GNSS receivers give it; converted at the state's epoch with IAU 2006/2000B precession-nutation, UT1-UTC and, with EOP_FILE, polar motion; centralBody earth only)
+             * @description Frame of the state: gcrf or icrf (inertial, the service's frame: ICRF axes, origin the centre of the body); eme2000 (J2000 mean equator and equinox: the IAU 2006 frame bias is applied, 23 mas); itrf (Earth-fixed, velocity relative to the rotating Earth as GNSS receivers give it; converted at the state's epoch with IAU 2006/2000B precession-nutation, UT1-UTC and, with EOP_FILE, polar motion; centralBody earth only); teme (true equator, mean equinox: the frame of SGP4 output; to PEF by GMST 1982, then as itrf; centralBody earth only)
              * @default gcrf
              * @enum {string}
              */
-            frame?: "gcrf" | "icrf" | "eme2000" | "itrf";
+            frame?: "gcrf" | "icrf" | "eme2000" | "itrf" | "teme";
             /** @description Position [x, y, z] in km, each component within +-1000000000000 */
             position: [
                 number,
@@ -1136,6 +1163,8 @@ export interface components {
                 /** @description Sidereal rotation rate, deg/s */
                 rotationRate: number | null;
             };
+            /** @description With EOP_FILE set and an Earth-fixed input (itrf state, itrf or teme ephemeris nodes): the Earth orientation used */
+            diagnostics?: components["schemas"]["SearchDiagnostics"];
             /** @description dimensionless, points to periapsis */
             eccentricityVector: [
                 number,
@@ -1243,7 +1272,7 @@ export interface components {
             omm?: components["schemas"]["OrbitMeanElementsMessage"];
             state?: components["schemas"]["InitialState"];
             tle?: components["schemas"]["TwoLineElementSet"];
-            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); used only to bring an itrf state (or itrf ephemeris nodes) to gcrf */
+            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table; 0 outside the table, with a warning in diagnostics.earthOrientation). Polar motion and dX, dY come from the table whenever it covers the epoch; used only to bring an itrf state (or itrf ephemeris nodes) to gcrf */
             ut1MinusUtc?: number;
         };
         Pass: {
@@ -1458,7 +1487,7 @@ export interface components {
              * @default -6
              */
             twilightLimit?: number;
-            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); without either, 0 costs up to ~0.4 km of along-track error on the ground */
+            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table; 0 outside the table, with a warning in diagnostics.earthOrientation). Polar motion and dX, dY come from the table whenever it covers the epoch; without either, 0 costs up to ~0.4 km of along-track error on the ground */
             ut1MinusUtc?: number;
             /** @description Search window (epochs in timeSystem, UTC by default), stop after start, at most 31 days */
             window: {
@@ -1572,8 +1601,9 @@ export interface components {
             /** @description What the method reported, with the epoch */
             reason: string;
         };
-        /** @description What the answer rests on, when it is worth saying (absent otherwise) */
+        /** @description What the answer rests on, when it is worth saying: the ephemeris interpolation, the EOP table (absent otherwise) */
         SearchDiagnostics: {
+            earthOrientation?: components["schemas"]["EarthOrientationDiagnostics"];
             /** @description Model ephemeris only: how each segment was interpolated and the largest position error estimate over the epochs the search evaluated */
             interpolation?: components["schemas"]["InterpolationDiagnostics"];
         };
@@ -1670,6 +1700,7 @@ export interface components {
              * @enum {string}
              */
             conservedQuantity: "two-body" | "j2" | "none";
+            earthOrientation?: components["schemas"]["EarthOrientationDiagnostics"];
             /** @description max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0; null when none */
             energyDriftVsPotential: number | null;
             /** @description max |E_k - E_0| / |E_0| of the conserved energy of conservedQuantity across the samples; null when none */
@@ -1695,7 +1726,7 @@ export interface components {
              */
             format?: "json" | "csv" | "oem" | "geojson" | "svg";
             /**
-             * @description Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected: ~10 m at LEO); geodetic (WGS-84 latitude and longitude in deg, height in km); teme (true equator, mean equinox: the frame of SGP4; from PEF by GMST 1982, Vallado et al. 2006; for the sgp4 model the method's own states, for the others rotated from gcrf through PEF). itrf, geodetic and teme need centralBody earth
+             * @description Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion and the pole offsets dX, dY from the EOP_FILE table when the service has one, else neglected: ~10 m at LEO); geodetic (WGS-84 latitude and longitude in deg, height in km); teme (true equator, mean equinox: the frame of SGP4; from PEF by GMST 1982, Vallado et al. 2006; for the sgp4 model the method's own states, for the others rotated from gcrf through PEF). itrf, geodetic and teme need centralBody earth
              * @default gcrf
              * @enum {string}
              */
@@ -1733,7 +1764,7 @@ export interface components {
             passThroughBody?: boolean;
             state?: components["schemas"]["InitialState"];
             tle?: components["schemas"]["TwoLineElementSet"];
-            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning); without either, 0 costs up to ~0.4 km along-track in Earth-fixed frames */
+            /** @description UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table; 0 outside the table, with a warning in diagnostics.earthOrientation). Polar motion and dX, dY come from the table whenever it covers the epoch; without either, 0 costs up to ~0.4 km along-track in Earth-fixed frames */
             ut1MinusUtc?: number;
         };
         TrackSample: components["schemas"]["StateSample"] | components["schemas"]["GeodeticSample"];
@@ -2117,6 +2148,22 @@ export interface operations {
                         checks: {
                             [key: string]: string;
                         };
+                        /** @description With EOP_FILE set: the IERS table in force */
+                        earthOrientation?: {
+                            days: number;
+                            /** @description SHA-256 of the rows: part of every scenario hash about the Earth */
+                            digest: string;
+                            file: string;
+                            /** @description First day of the table (UTC date) */
+                            firstDate: string;
+                            /** @description Last day whose polar motion and UT1-UTC are observed (IERS flag I) */
+                            lastObservedDate: string | null;
+                            /** @description Last day of the table (predictions) */
+                            lastPredictedDate: string;
+                            /** @description Why the last reload failed (the table above stays in force), or null */
+                            lastReloadError: string | null;
+                            loadedAt: string;
+                        };
                         /** @description The dependencies that are not ready (empty when status is ok) */
                         missing: string[];
                         solverVersion: string;
@@ -2135,6 +2182,22 @@ export interface operations {
                         /** @description Each dependency and "ok", or why it is not ready */
                         checks: {
                             [key: string]: string;
+                        };
+                        /** @description With EOP_FILE set: the IERS table in force */
+                        earthOrientation?: {
+                            days: number;
+                            /** @description SHA-256 of the rows: part of every scenario hash about the Earth */
+                            digest: string;
+                            file: string;
+                            /** @description First day of the table (UTC date) */
+                            firstDate: string;
+                            /** @description Last day whose polar motion and UT1-UTC are observed (IERS flag I) */
+                            lastObservedDate: string | null;
+                            /** @description Last day of the table (predictions) */
+                            lastPredictedDate: string;
+                            /** @description Why the last reload failed (the table above stays in force), or null */
+                            lastReloadError: string | null;
+                            loadedAt: string;
                         };
                         /** @description The dependencies that are not ready (empty when status is ok) */
                         missing: string[];

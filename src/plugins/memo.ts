@@ -44,7 +44,11 @@ export interface MemoOptions {
 
 export default fp(async function memo(app: FastifyInstance, opts: MemoOptions) {
   if (opts.maxBytes <= 0) return;
-  const memo = new RequestMemo({ maxEntries: MEMO_MAX_ENTRIES, maxBytes: opts.maxBytes, solverVersion: () => SOLVER_VERSION });
+  const memo = new RequestMemo({ maxEntries: MEMO_MAX_ENTRIES, maxBytes: opts.maxBytes, solverVersion: () => {
+    // A new EOP table makes the remembered hashes of the old one stale (they carry its digest).
+    const digest = app.eop.current()?.digest;
+    return digest ? `${SOLVER_VERSION}+eop:${digest}` : SOLVER_VERSION;
+  } });
   app.decorate('requestMemo', memo);
   app.decorateRequest('memoKey', null);
 

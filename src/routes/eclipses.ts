@@ -11,7 +11,7 @@ import { resolveBody } from '../api/body.js';
 import { eclipseSearchJob, toEclipsesAnswer } from '../api/eclipses.js';
 import { initialState } from '../api/orbit.js';
 import { utcScenario } from '../api/epoch.js';
-import { frameOptions } from '../api/earth-orientation.js';
+import { earthOrientationDiagnostics, frameOptions, inputSpan, withTableDigest } from '../api/earth-orientation.js';
 import { problemResponses } from '../schemas/common.js';
 import { ECLIPSE_FORMATS, EclipsesAnswer, EclipsesRequest } from '../schemas/eclipses.js';
 
@@ -42,16 +42,21 @@ const eclipses: FastifyPluginAsyncZod = async (app) => {
     const format = chooseFormat(request, asked, ECLIPSE_FORMATS);
     if (req.centralBody !== 'earth') throw new ProblemError('unsupported-frame', 'eclipses need the built-in centralBody "earth"');
     // JSON answers keep the scenario (and hash) of a request without the format field.
-    const scenario = format === 'json' ? req : { ...req, format };
+    // With an EOP table in force its digest is part of the scenario (a new table, a new answer).
+    const eop = app.eop.current();
+    const scenario = withTableDigest(format === 'json' ? req : { ...req, format }, req.centralBody, eop);
     return app.answers.respond(request, reply, 'eclipses', scenario, async (hash) => {
       const body = resolveBody(req.centralBody);
-      const frame = frameOptions(req.ut1MinusUtc);
+      const frame = frameOptions(req.ut1MinusUtc, eop);
       const start = initialState(body, req, frame);
       if (!start.ok) throw solverProblem(start);
       // Long windows run on a worker thread; the propagator is rebuilt there from this state.
-      const found = await app.pool.solve(eclipseSearchJob(req, body, start.value, frame));
+      const job = eclipseSearchJob(req, body, start.value, frame);
+      const found = await app.pool.solve(job);
       if (!found.ok) throw solverProblem(found);
-      const answer = toEclipsesAnswer(req, hash, found.value, start.value);
+      // The Earth orientation enters the node's local time at the window start.
+      const used = inputSpan(req, start.value).add(job.startTT);
+      const answer = toEclipsesAnswer(req, hash, found.value, start.value, earthOrientationDiagnostics(eop, used, req.ut1MinusUtc));
       if (format === 'json') return jsonAnswer(answer);
       if (format === 'svg') return { contentType: SVG_MEDIA_TYPE, body: Buffer.from(eclipsesSvg(answer)) };
       return { contentType: CSV_MEDIA_TYPE, body: Buffer.from(eclipsesCsv(answer.eclipses, answer.moonEclipses)) };

@@ -11,6 +11,16 @@ const Readiness = z.object({
   solverVersion: z.string(),
   checks: z.record(z.string(), z.string()).describe('Each dependency and "ok", or why it is not ready'),
   missing: z.array(z.string()).describe('The dependencies that are not ready (empty when status is ok)'),
+  earthOrientation: z.object({
+    file: z.string(),
+    firstDate: z.string().describe('First day of the table (UTC date)'),
+    lastObservedDate: z.string().nullable().describe('Last day whose polar motion and UT1-UTC are observed (IERS flag I)'),
+    lastPredictedDate: z.string().describe('Last day of the table (predictions)'),
+    days: z.number().int(),
+    digest: z.string().describe('SHA-256 of the rows: part of every scenario hash about the Earth'),
+    loadedAt: z.string(),
+    lastReloadError: z.string().nullable().describe('Why the last reload failed (the table above stays in force), or null'),
+  }).optional().describe('With EOP_FILE set: the IERS table in force'),
 });
 
 /** Seconds one readiness check may take before it counts as not ready. */
@@ -41,7 +51,8 @@ const health: FastifyPluginAsyncZod = async (app) => {
     }));
     const missing = Object.keys(checks).filter((name) => checks[name] !== 'ok').sort();
     const status = closing ? 'closing' as const : missing.length > 0 ? 'not-ready' as const : 'ok' as const;
-    return reply.code(status === 'ok' ? 200 : 503).header('cache-control', 'no-store').send({ status, solverVersion: SOLVER_VERSION, checks, missing });
+    const eop = app.eop.status();
+    return reply.code(status === 'ok' ? 200 : 503).header('cache-control', 'no-store').send({ status, solverVersion: SOLVER_VERSION, checks, missing, ...(eop ? { earthOrientation: eop } : {}) });
   });
 };
 export default health;

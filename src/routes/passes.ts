@@ -9,7 +9,7 @@ import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
 import { initialState } from '../api/orbit.js';
 import { utcScenario } from '../api/epoch.js';
-import { frameOptions } from '../api/earth-orientation.js';
+import { earthOrientationDiagnostics, frameOptions, inputSpan, withTableDigest } from '../api/earth-orientation.js';
 import { passSearchJob, toPassesAnswer } from '../api/passes.js';
 import { problemResponses } from '../schemas/common.js';
 import { PassesAnswer, PassesRequest } from '../schemas/passes.js';
@@ -44,17 +44,21 @@ const passes: FastifyPluginAsyncZod = async (app) => {
     const format = chooseFormat(request, asked, PLOT_FORMATS);
     if (req.centralBody !== 'earth') throw new ProblemError('unsupported-frame', 'ground-station passes need the built-in centralBody "earth"');
     // JSON answers keep the scenario (and hash) they had before the format field existed.
-    const scenario = format === 'json' ? req : { ...req, format };
+    // With an EOP table in force its digest is part of the scenario (a new table, a new answer).
+    const eop = app.eop.current();
+    const scenario = withTableDigest(format === 'json' ? req : { ...req, format }, req.centralBody, eop);
     return app.answers.respond(request, reply, 'passes', scenario, async (hash) => {
       const body = resolveBody(req.centralBody);
-      const frame = frameOptions(req.ut1MinusUtc);
+      const frame = frameOptions(req.ut1MinusUtc, eop);
       const start = initialState(body, req, frame);
       if (!start.ok) throw solverProblem(start);
       // The search runs on a worker thread unless the window and station list are small; the
       // propagator is rebuilt there from this state.
-      const found = await app.pool.solve(passSearchJob(req, body, start.value, frame, format === 'svg'));
+      const job = passSearchJob(req, body, start.value, frame, format === 'svg');
+      const found = await app.pool.solve(job);
       if (!found.ok) throw solverProblem(found);
-      const answer = toPassesAnswer(req, hash, found.value, start.value);
+      const used = inputSpan(req, start.value).add(job.startTT).add(job.stopTT);
+      const answer = toPassesAnswer(req, hash, found.value, start.value, earthOrientationDiagnostics(eop, used, req.ut1MinusUtc));
       assertFinite(answer); // the plots are drawn from the answer: the same check for both formats
       return format === 'json' ? jsonAnswer(answer) : { contentType: SVG_MEDIA_TYPE, body: Buffer.from(passesSvg(answer.window, req.stations, answer.passes)) };
     });

@@ -8,7 +8,7 @@ import { resolveBody } from '../api/body.js';
 import { gridEpochs } from '../api/grid.js';
 import { initialState } from '../api/orbit.js';
 import { utcScenario } from '../api/epoch.js';
-import { frameOptions } from '../api/earth-orientation.js';
+import { earthOrientationDiagnostics, forSpan, frameOptions, inputSpan, Span, withTableDigest } from '../api/earth-orientation.js';
 import { trackJob, trackProductInput } from '../api/track.js';
 import { problemResponses } from '../schemas/common.js';
 import { TrackAnswer, TrackRequest } from '../schemas/track.js';
@@ -41,17 +41,23 @@ const track: FastifyPluginAsyncZod = async (app) => {
     const req = utcScenario(request.body);
     const format = chooseFormat(request, req.format, TRACK_FORMATS);
     const needs = trackNeeds(format, req.frame, req.centralBody === 'earth');
-    return app.answers.respondStream(request, reply, 'track', { ...req, format }, async (hash) => {
+    // With an EOP table in force its digest is part of the scenario (a new table, a new answer).
+    const eop = app.eop.current();
+    return app.answers.respondStream(request, reply, 'track', withTableDigest({ ...req, format }, req.centralBody, eop), async (hash) => {
       const body = resolveBody(req.centralBody);
-      const frame = frameOptions(req.ut1MinusUtc);
+      const frame = frameOptions(req.ut1MinusUtc, eop);
       const start = initialState(body, req, frame);
       if (!start.ok) throw solverProblem(start);
       const epochs = epochsForFormat(format, gridEpochs(req.grid, app.config.MAX_TRACK_SAMPLES));
+      // The epochs that used the Earth orientation (read before the grid's buffer moves to the worker).
+      const samples = new Span().addAll(epochs);
+      const used = inputSpan(req, start.value);
+      if (needs.earthFixed || needs.teme) used.addAll(epochs);
       // Propagation and frame conversion run on a worker thread for long grids (the grid's buffer
-      // moves there and comes back); formatting stays here, in chunks.
-      const result = await app.pool.solve(trackJob(req, body, start.value, epochs, needs, frame));
+      // moves there and comes back, the EOP table cut to its rows); formatting stays here, in chunks.
+      const result = await app.pool.solve(trackJob(req, body, start.value, epochs, needs, samples.empty ? frame : forSpan(frame, samples.lo, samples.hi)));
       if (!result.ok) throw solverProblem(result);
-      const input = trackProductInput(req, format, hash, body, start.value, result.value);
+      const input = trackProductInput(req, format, hash, body, start.value, result.value, earthOrientationDiagnostics(eop, used, req.ut1MinusUtc));
       return () => trackProduct(input);
     });
   });

@@ -73,7 +73,7 @@ export function refineEpochs(keys: readonly string[]) {
 
 /** UT1 - UTC of a request: given, it wins over everything; absent, the EOP_FILE table (when configured and covering the epoch), else 0. */
 export const UT1_MINUS_UTC = z.number().min(-0.9).max(0.9).optional();
-export const UT1_MINUS_UTC_TEXT = 'UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table or outside it, with a warning)';
+export const UT1_MINUS_UTC_TEXT = 'UT1 - UTC, s (IERS Bulletin A); when given it wins over the EOP_FILE table, when absent the table gives it (0 without a table; 0 outside the table, with a warning in diagnostics.earthOrientation). Polar motion and dX, dY come from the table whenever it covers the epoch';
 
 /** True for a string the Epoch schema accepts (a cheap test for long lists). */
 export const isEpoch = (value: unknown): boolean => typeof value === 'string' && parseUtcIso(value).ok;

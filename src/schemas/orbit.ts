@@ -5,6 +5,7 @@ import { STATE_FRAMES } from '../solver/earth/state-frames.js';
 import { codedIssue, DEMO_EPOCH, Epoch, EpochOut, EpochText, MAX_POSITION_KM, PositionKm, refineEpochs, ScenarioHash, TimeSystemField, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT, Vec3, VelocityKmS } from './common.js';
 import { OmmInput, TleInput } from './catalog.js';
 import { EphemerisInput } from './ephemeris.js';
+import { SearchDiagnostics } from './diagnostics.js';
 
 export const StateInput = z
   .object({
@@ -13,7 +14,8 @@ export const StateInput = z
     frame: z.enum(STATE_FRAMES).default('gcrf').describe(
       'Frame of the state: gcrf or icrf (inertial, the service\'s frame: ICRF axes, origin the centre of the body); ' +
       'eme2000 (J2000 mean equator and equinox: the IAU 2006 frame bias is applied, 23 mas); ' +
-      'itrf (Earth-fixed, velocity relative to the rotating Earth as GNSS receivers give it; converted at the state\'s epoch with IAU 2006/2000B precession-nutation, UT1-UTC and, with EOP_FILE, polar motion; centralBody earth only)'),
+      'itrf (Earth-fixed, velocity relative to the rotating Earth as GNSS receivers give it; converted at the state\'s epoch with IAU 2006/2000B precession-nutation, UT1-UTC and, with EOP_FILE, polar motion; centralBody earth only); ' +
+      'teme (true equator, mean equinox: the frame of SGP4 output; to PEF by GMST 1982, then as itrf; centralBody earth only)'),
     position: PositionKm,
     velocity: VelocityKmS,
   })
@@ -186,6 +188,7 @@ export const OrbitAnswer = z.object({
   meanElements: MeanElementsAnswer.optional().describe('tle or omm only: the catalogue mean elements as given (units converted). The rest of the answer is osculating, from the SGP4 state at the element epoch rotated to gcrf'),
   elementSetAge: z.object({ at: EpochOut, days: z.number().describe('days from the element epoch to `at` (negative before it)') }).optional()
     .describe('tle or omm with ageAt: the age of the element set at that epoch'),
+  diagnostics: SearchDiagnostics.optional().describe('With EOP_FILE set and an Earth-fixed input (itrf state, itrf or teme ephemeris nodes): the Earth orientation used'),
 })
   .meta({ id: 'OrbitAnswer' });
 export type OrbitAnswer = z.infer<typeof OrbitAnswer>;

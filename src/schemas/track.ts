@@ -6,6 +6,7 @@ import { DEMO_EPOCH, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
 import { Force, modelFields, withDefaultModel } from './forces.js';
 import { TimeGrid } from './grid.js';
 import { InterpolationDiagnostics } from './ephemeris.js';
+import { EarthOrientationDiagnostics } from './diagnostics.js';
 import { DEMO_ELEMENTS, orbitFields, requireOneOrbitInput } from './orbit.js';
 
 
@@ -23,7 +24,7 @@ export const TrackRequest = z
     grid: TimeGrid,
     ...modelFields,
     frame: z.enum(TRACK_FRAMES).default('gcrf').describe(
-      'Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion neglected: ~10 m at LEO); ' +
+      'Output frame: gcrf (inertial, J2000 equator and equinox); itrf (Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion and the pole offsets dX, dY from the EOP_FILE table when the service has one, else neglected: ~10 m at LEO); ' +
       'geodetic (WGS-84 latitude and longitude in deg, height in km); ' +
       'teme (true equator, mean equinox: the frame of SGP4; from PEF by GMST 1982, Vallado et al. 2006; for the sgp4 model the method\'s own states, for the others rotated from gcrf through PEF). itrf, geodetic and teme need centralBody earth'),
     ut1MinusUtc: UT1_MINUS_UTC.describe(`${UT1_MINUS_UTC_TEXT}; without either, 0 costs up to ~0.4 km along-track in Earth-fixed frames`),
@@ -75,6 +76,7 @@ export const TrackDiagnostics = z.object({
   energyDriftVsPotential: z.number().nullable().describe('max |E_k - E_0| / (mu / r_0): meaningful near parabolic where E_0 ~ 0; null when none'),
   angularMomentumRelativeDrift: z.number().nullable().describe('max |h_k - h_0| / |h_0|: the vector for two-body, the axial component h.k (over |h_0|) for j2; null when none'),
   interpolation: InterpolationDiagnostics.optional().describe('Model ephemeris only: how each segment was interpolated and the largest position error estimate over the samples'),
+  earthOrientation: EarthOrientationDiagnostics.optional(),
 })
   .meta({ id: 'TrackDiagnostics' });
 

@@ -139,6 +139,8 @@ export interface TrackJob {
   readonly geodetic: boolean;
   /** Also TEME states (the sgp4 model's own; the other models' rotated from GCRF). */
   readonly teme?: boolean;
+  /** The Earth orientation of the TEME rotation (UT1, the EOP table); default earthFixed's, else none. */
+  readonly temeFrame?: FrameOptions;
 }
 
 export interface TrackJobResult {
@@ -244,7 +246,7 @@ function runTrack(job: TrackJob): Outcome<TrackJobResult> {
   if (!run.ok) return run;
   const earthFixed = job.earthFixed ? gcrfToItrfBatch(run.value.epochsTT, run.value.states, job.earthFixed) : null;
   const geodetic = job.geodetic && earthFixed ? geodeticBatch(earthFixed) : null;
-  const teme = job.teme ? run.value.teme ?? gcrfToTemeBatch(run.value.epochsTT, run.value.states, job.earthFixed ?? {}) : null;
+  const teme = job.teme ? run.value.teme ?? gcrfToTemeBatch(run.value.epochsTT, run.value.states, job.temeFrame ?? job.earthFixed ?? {}) : null;
   return success({ track: run.value, earthFixed, geodetic, teme });
 }
 

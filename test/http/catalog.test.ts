@@ -71,6 +71,20 @@ describe('/v1/track with a two-line set', () => {
     expect(res.json().type).toBe('/problems/sgp4-failed');
     expect(res.json().detail).toMatch(/^SGP4 stopped at 2005-11-29T01:\d\d:00\.000Z \(.* min from the element epoch\): satellite has decayed/);
   });
+
+  it('the printed TEME state of case 00005 at its epoch, given as a teme state, is the gcrf state of the set at that epoch (to 1 mm, 1 mm/s: the file prints 8 decimals)', async () => {
+    const epoch = '2000-06-27T18:50:19.733568Z';
+    const r0 = rows5.find((r) => r[0] === 0)!;
+    const fromTle = (await postJson(app, '/v1/track', { tle: CASE5, grid: { times: [epoch] } })).json().samples[0];
+    const res = await postJson(app, '/v1/track', { centralBody: 'earth', state: { epoch, frame: 'teme', position: r0.slice(1, 4), velocity: r0.slice(4, 7) }, grid: { times: [epoch] } });
+    expect(res.statusCode, res.body).toBe(200);
+    const s = res.json().samples[0];
+    expect(Math.hypot(...[0, 1, 2].map((c) => s.position[c] - fromTle.position[c]))).toBeLessThan(1e-6);
+    expect(Math.hypot(...[0, 1, 2].map((c) => s.velocity[c] - fromTle.velocity[c]))).toBeLessThan(1e-6);
+    // ... and asked back in teme it is the state given.
+    const back = (await postJson(app, '/v1/track', { centralBody: 'earth', state: { epoch, frame: 'teme', position: r0.slice(1, 4), velocity: r0.slice(4, 7) }, grid: { times: [epoch] }, frame: 'teme' })).json().samples[0];
+    expect(Math.hypot(...[0, 1, 2].map((c) => back.position[c] - r0[1 + c]!))).toBeLessThan(1e-6);
+  });
 });
 
 describe('malformed two-line sets: a clear 422 naming line, columns and expectation, never a 500', () => {

@@ -4,6 +4,7 @@
 //               (IERS Conventions 2010 sec. 5.4.4; 23 mas, 0.75 m at 7000 km)
 //   itrf        Earth-fixed, velocity relative to the rotating Earth (as GNSS receivers give it),
 //               converted at the state's own epoch by frames.ts
+//   teme        true equator, mean equinox (the frame of SGP4 output), through PEF by teme.ts
 // Accelerations (ephemeris nodes): inertial frames rotate them like positions; from ITRF
 // a_GCRF = M (a - w^2 r_perp) + 2 dM/dt v, with M the ITRF -> GCRF rotation, w the Earth rotation
 // rate and r_perp the position's part normal to the rotation axis (the centripetal and Coriolis
@@ -12,9 +13,9 @@
 
 import type { Vec3 } from '../core/vec3.js';
 import { EARTH_ROTATION_RATE_RAD_S, FRAME_BIAS, gcrfToItrf, itrfToGcrf, itrfToGcrfTabled, orientationTable, type FrameOptions, type Mat3, type StateVectors } from './frames.js';
-import { temeOrientationTable, temeToGcrfTabled } from './teme.js';
+import { gcrfToTeme, temeOrientationTable, temeToGcrf, temeToGcrfTabled } from './teme.js';
 
-export const STATE_FRAMES = ['gcrf', 'icrf', 'eme2000', 'itrf'] as const;
+export const STATE_FRAMES = ['gcrf', 'icrf', 'eme2000', 'itrf', 'teme'] as const;
 export type StateFrame = (typeof STATE_FRAMES)[number];
 
 const apply = (m: Mat3, x: Vec3): Vec3 => [
@@ -38,6 +39,8 @@ export function stateToGcrf(frame: StateFrame, tt: number, r: Vec3, v: Vec3, opt
       return { r: applyT(FRAME_BIAS, r), v: applyT(FRAME_BIAS, v) };
     case 'itrf':
       return itrfToGcrf(tt, r, v, opts);
+    case 'teme':
+      return temeToGcrf(tt, r, v, opts);
   }
 }
 
@@ -51,19 +54,22 @@ export function stateFromGcrf(frame: StateFrame, tt: number, r: Vec3, v: Vec3, o
       return { r: apply(FRAME_BIAS, r), v: apply(FRAME_BIAS, v) };
     case 'itrf':
       return gcrfToItrf(tt, r, v, opts);
+    case 'teme':
+      return gcrfToTeme(tt, r, v, opts);
   }
 }
 
 /** An acceleration (km/s^2) at a state in `frame` -> GCRF. */
 export function accelerationToGcrf(frame: StateFrame, tt: number, r: Vec3, v: Vec3, a: Vec3, opts: FrameOptions = {}): Vec3 {
+  // Inertial and quasi-inertial frames (TEME turns with precession-nutation only) rotate it like a position.
   if (frame !== 'itrf') return stateToGcrf(frame, tt, a, [0, 0, 0], opts).r;
   const w2 = EARTH_ROTATION_RATE_RAD_S * EARTH_ROTATION_RATE_RAD_S;
   // itrfToGcrf maps (x, y) to (M x, M y + dM/dt x): with x = 2 v, y = a - w^2 r_perp its second part is the answer.
   return itrfToGcrf(tt, [2 * v[0], 2 * v[1], 2 * v[2]], [a[0] - w2 * r[0], a[1] - w2 * r[1], a[2]], opts).v;
 }
 
-/** Frames of ephemeris nodes: the state frames and TEME (an operator's OEM may be in any of them). */
-export type NodeFrame = StateFrame | 'teme';
+/** Frames of ephemeris nodes: the state frames (an operator's OEM may be in any of them). */
+export type NodeFrame = StateFrame;
 
 /**
  * Many states (6 per epoch) and optional accelerations (3 per epoch) in `frame` -> GCRF, each at its
