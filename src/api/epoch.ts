@@ -1,21 +1,23 @@
 // Epochs at the edge: the API's calendar text (UTC by default, or TAI, TT, GPS where a request
 // names its timeSystem) <-> the solver's TT seconds since J2000.
 //
-// canonicalEpoch is the one spelling of an instant: UTC text ending in Z, with the fraction's
+// canonicalEpoch is the one spelling of an instant: UTC text ending in Z, rounded to the
+// microsecond (the service's time resolution: answers print epochs to it), with the fraction's
 // trailing zeros dropped (time-systems.ts epochAsUtc). Routes rewrite every input epoch to it
 // (utcScenario) before the scenario is hashed, so the same instant in any time system and any
 // spelling gives one scenario, one hash and one answer.
 import { epochAsUtc, parseEpochIn, type TimeSystem } from '../solver/time/time-systems.js';
-import { parseUtcIso } from '../solver/time/time.js';
+import { EPOCH_FRACTION_DIGITS, parseUtcIso } from '../solver/time/time.js';
+import { roundToMicrosecond } from '../solver/core/math.js';
 import type { SolverFailureCode } from '../solver/core/result.js';
 
 /** Text already in the canonical spelling (a validated UTC epoch: no test of the date needed). */
-const CANONICAL = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(?:\.\d*[1-9])?Z$/;
+const CANONICAL = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(?:\.\d{0,5}[1-9])?Z$/;
 
 /** The canonical UTC spelling of a validated epoch given in `system`. */
 export function canonicalEpoch(text: string, system: TimeSystem = 'UTC'): string {
   if (system === 'UTC' && CANONICAL.test(text)) return text;
-  const utc = epochAsUtc(text, system);
+  const utc = epochAsUtc(text, system, EPOCH_FRACTION_DIGITS);
   if (!utc.ok) throw new Error(`epoch "${text}" (${system}) passed the schema but does not convert: ${utc.message}`); // programmer error
   return utc.value;
 }
@@ -39,11 +41,11 @@ export interface EpochProblem {
 
 const epochCode = (code: SolverFailureCode): EpochProblem['code'] => (code === 'epoch-out-of-range' ? 'epoch-out-of-range' : 'invalid-epoch');
 
-/** TT seconds since J2000 of an epoch the schema has already validated. */
+/** TT seconds since J2000 of an epoch the schema has already validated, on the microsecond (roundToMicrosecond). */
 export function epochTT(text: string, system: TimeSystem = 'UTC'): number {
   const parsed = system === 'UTC' ? parseUtcIso(text) : parseEpochIn(text, system);
   if (!parsed.ok) throw new Error(`epoch "${text}" passed the schema but does not parse`); // programmer error
-  return parsed.value;
+  return roundToMicrosecond(parsed.value);
 }
 
 interface WithEpochs {

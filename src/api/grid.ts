@@ -1,6 +1,7 @@
 // Time grids: the API's grid (ISO epochs, step in s) -> the solver's TT epochs.
 import { ProblemError } from '../errors.js';
 import { regularGrid, regularGridCount } from '../solver/core/grid.js';
+import { roundToMicrosecond } from '../solver/core/math.js';
 import type { TimeGrid } from '../schemas/grid.js';
 import { epochTT } from './epoch.js';
 
@@ -20,5 +21,8 @@ export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
     const asked = Number.isFinite(count) ? `the grid has ${count} samples` : `a step of ${grid.step} s gives more samples than a double counts`;
     throw new ProblemError('too-many-samples', `${asked}; the maximum is ${max} (use a longer step or a shorter span)`, { errors: [{ path: 'body.grid.step', message: `gives more than ${max} samples` }] });
   }
-  return regularGrid(start, stop, grid.step!);
+  // Sampled on the microsecond, the resolution the epochs are printed with (start + k step rarely falls on one).
+  const epochs = regularGrid(start, stop, grid.step!);
+  for (let i = 0; i < epochs.length; i++) epochs[i] = roundToMicrosecond(epochs[i]!);
+  return epochs;
 }

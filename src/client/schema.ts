@@ -453,7 +453,7 @@ export interface components {
             elementSetNumber: number | null;
             /**
              * @description Element epoch, UTC
-             * @example 2026-12-01T00:00:00.000Z
+             * @example 2026-12-01T00:00:00.000000Z
              */
             epoch: string;
             /** @enum {string} */
@@ -763,14 +763,14 @@ export interface components {
             endsAfterWindow: boolean;
             /**
              * @description Penumbra entry: the first point of the solar disc is hidden (or the window start)
-             * @example 2026-12-01T00:00:00.000Z
+             * @example 2026-12-01T00:00:00.000000Z
              */
             start: string;
             /** @description Already in shadow at the window start: start is the window start */
             startsBeforeWindow: boolean;
             /**
              * @description Penumbra exit: the whole solar disc is seen again (or the window stop)
-             * @example 2026-12-01T00:00:00.000Z
+             * @example 2026-12-01T00:00:00.000000Z
              */
             stop: string;
             /** @description s, umbraStart to umbraStop (null when partial only) */
@@ -810,13 +810,13 @@ export interface components {
             sunSynchronous: boolean;
             window: {
                 /**
-                 * @description ISO 8601 UTC timestamp with milliseconds
-                 * @example 2026-12-01T00:00:00.000Z
+                 * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                 * @example 2026-12-01T00:00:00.000000Z
                  */
                 start: string;
                 /**
-                 * @description ISO 8601 UTC timestamp with milliseconds
-                 * @example 2026-12-01T00:00:00.000Z
+                 * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                 * @example 2026-12-01T00:00:00.000000Z
                  */
                 stop: string;
             };
@@ -1175,16 +1175,16 @@ export interface components {
             /** @description tle or omm with ageAt: the age of the element set at that epoch */
             elementSetAge?: {
                 /**
-                 * @description ISO 8601 UTC timestamp with milliseconds
-                 * @example 2026-12-01T00:00:00.000Z
+                 * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                 * @example 2026-12-01T00:00:00.000000Z
                  */
                 at: string;
                 /** @description days from the element epoch to `at` (negative before it) */
                 days: number;
             };
             /**
-             * @description ISO 8601 UTC timestamp with milliseconds
-             * @example 2026-12-01T00:00:00.000Z
+             * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+             * @example 2026-12-01T00:00:00.000000Z
              */
             epoch: string;
             /** @description deg, angle of the velocity above the local horizontal */
@@ -1278,7 +1278,7 @@ export interface components {
         Pass: {
             /**
              * @description Acquisition of signal: elevation rises through the limit (or the window start)
-             * @example 2026-12-01T00:00:00.000Z
+             * @example 2026-12-01T00:00:00.000000Z
              */
             aos: string;
             /** @description deg */
@@ -1323,7 +1323,7 @@ export interface components {
             };
             /**
              * @description Loss of signal: elevation falls through the limit (or the window stop)
-             * @example 2026-12-01T00:00:00.000Z
+             * @example 2026-12-01T00:00:00.000000Z
              */
             los: string;
             /** @description deg: geometric, or apparent when refraction was asked */
@@ -1338,8 +1338,8 @@ export interface components {
                 /** @description deg: geometric, or apparent when refraction was asked */
                 elevation: number;
                 /**
-                 * @description ISO 8601 UTC timestamp with milliseconds
-                 * @example 2026-12-01T00:00:00.000Z
+                 * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                 * @example 2026-12-01T00:00:00.000000Z
                  */
                 epoch: string;
                 /** @description km */
@@ -1369,13 +1369,13 @@ export interface components {
                     /** @description s */
                     duration: number;
                     /**
-                     * @description ISO 8601 UTC timestamp with milliseconds
-                     * @example 2026-12-01T00:00:00.000Z
+                     * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                     * @example 2026-12-01T00:00:00.000000Z
                      */
                     start: string;
                     /**
-                     * @description ISO 8601 UTC timestamp with milliseconds
-                     * @example 2026-12-01T00:00:00.000Z
+                     * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                     * @example 2026-12-01T00:00:00.000000Z
                      */
                     stop: string;
                 }[];
@@ -1383,7 +1383,7 @@ export interface components {
                 minAngle: number;
                 /**
                  * @description When it is least
-                 * @example 2026-12-01T00:00:00.000Z
+                 * @example 2026-12-01T00:00:00.000000Z
                  */
                 minAngleAt: string;
                 /** @description The angle falls below the limit somewhere in the pass */
@@ -1391,7 +1391,7 @@ export interface components {
             };
             /**
              * @description Time of maximum elevation
-             * @example 2026-12-01T00:00:00.000Z
+             * @example 2026-12-01T00:00:00.000000Z
              */
             tca: string;
         };
@@ -1416,13 +1416,13 @@ export interface components {
             scenarioHash: string;
             window: {
                 /**
-                 * @description ISO 8601 UTC timestamp with milliseconds
-                 * @example 2026-12-01T00:00:00.000Z
+                 * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                 * @example 2026-12-01T00:00:00.000000Z
                  */
                 start: string;
                 /**
-                 * @description ISO 8601 UTC timestamp with milliseconds
-                 * @example 2026-12-01T00:00:00.000Z
+                 * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                 * @example 2026-12-01T00:00:00.000000Z
                  */
                 stop: string;
             };
@@ -1595,7 +1595,7 @@ export interface components {
             code: string;
             /**
              * @description The first epoch (to 1 ms) where the propagation failed
-             * @example 2026-12-01T00:00:00.000Z
+             * @example 2026-12-01T00:00:00.000000Z
              */
             epoch: string;
             /** @description What the method reported, with the epoch */
@@ -1872,8 +1872,8 @@ export interface components {
                 };
             };
             /**
-             * @description ISO 8601 UTC timestamp with milliseconds
-             * @example 2026-12-01T00:00:00.000Z
+             * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+             * @example 2026-12-01T00:00:00.000000Z
              */
             epoch: string;
             /** @constant */
@@ -1921,8 +1921,8 @@ export interface components {
                         name: string | null;
                         samples: {
                             /**
-                             * @description ISO 8601 UTC timestamp with milliseconds
-                             * @example 2026-12-01T00:00:00.000Z
+                             * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                             * @example 2026-12-01T00:00:00.000000Z
                              */
                             epoch: string;
                             /** @description km from the barycentre, 6 decimals */
@@ -1944,8 +1944,8 @@ export interface components {
                         name: string | null;
                         samples: {
                             /**
-                             * @description ISO 8601 UTC timestamp with milliseconds
-                             * @example 2026-12-01T00:00:00.000Z
+                             * @description ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it
+                             * @example 2026-12-01T00:00:00.000000Z
                              */
                             epoch: string;
                             /** @description km from the barycentre, 6 decimals */

@@ -1,7 +1,7 @@
 // Writes ASCII text straight into fixed-size byte chunks: numbers and epochs are turned into
 // digits once, in place, with no intermediate string per sample. The formatters of big answers
 // (CSV, OEM, JSON tracks) write through it and yield each full chunk.
-import { newUtcFields, utcSplitter, type UtcFields } from '../solver/time/time.js';
+import { newUtcFields, utcSplitter, type UtcFields, EPOCH_FRACTION_DIGITS } from '../solver/time/time.js';
 import { fixed, scaledForFixed, SCALES } from './track-table.js';
 
 const ZERO = 48;
@@ -102,7 +102,7 @@ export class AsciiWriter {
   #prefixText = '';
   #prefixBytes = Buffer.alloc(0);
 
-  constructor(epochFractionDigits = 3, chunkBytes = 65_536) {
+  constructor(epochFractionDigits = EPOCH_FRACTION_DIGITS, chunkBytes = 65_536) {
     this.#chunkBytes = chunkBytes;
     this.#buf = Buffer.allocUnsafe(chunkBytes);
     this.#fractionDigits = epochFractionDigits;

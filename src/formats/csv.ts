@@ -1,8 +1,9 @@
 // Track as CSV per RFC 4180: a header row naming each column with its unit, one record per
 // sample, CRLF after every record (the last included), no quoting needed (no field holds a comma,
 // quote or line break). Epochs are ISO 8601 UTC; numbers are fixed-point: by default 6 decimals
-// for km (1 mm) and 9 for km/s (1 micrometre/s), epochs to the millisecond.
+// for km (1 mm) and 9 for km/s (1 micrometre/s), epochs to the microsecond.
 
+import { EPOCH_FRACTION_DIGITS } from '../solver/time/time.js';
 import { AsciiWriter } from './ascii-writer.js';
 import { checkDigits, sampleCount, type TrackTable } from './track-table.js';
 
@@ -11,7 +12,7 @@ export const CSV_HEADER = 'epoch_utc,x_km,y_km,z_km,vx_km_s,vy_km_s,vz_km_s';
 export const CSV_MEDIA_TYPE = 'text/csv; charset=utf-8; header=present';
 
 export interface CsvOptions {
-  /** Fractional-second digits of the epochs, 0-9 (default 3). */
+  /** Fractional-second digits of the epochs, 0-9 (default 6, the microsecond). */
   readonly epochDigits?: number;
   /** Decimals of positions in km (default 6). */
   readonly positionDecimals?: number;
@@ -45,7 +46,7 @@ export function* columnCsvChunks(epochsTT: Float64Array, values: Float64Array, c
   const width = columns.length;
   const n = epochsTT.length;
   if (values.length !== width * n) throw new RangeError(`table holds ${values.length} numbers for ${n} epochs of ${width} columns`);
-  const epochDigits = opts.epochDigits ?? 3;
+  const epochDigits = opts.epochDigits ?? EPOCH_FRACTION_DIGITS;
   checkDigits('epochDigits', epochDigits, 9);
   const decimals = columns.map((c) => c.decimals);
   const out = new AsciiWriter(epochDigits, opts.chunkChars ?? 65_536);

@@ -3,7 +3,7 @@
 // and one ephemeris data line per sample, "epoch x y z x_dot y_dot z_dot" in km and km/s.
 //
 // Conventions chosen here:
-// - TIME_SYSTEM = UTC; epochs as YYYY-MM-DDThh:mm:ss.fff without a zone letter (the time system is
+// - TIME_SYSTEM = UTC; epochs as YYYY-MM-DDThh:mm:ss.ffffff (the microsecond) without a zone letter (the time system is
 //   stated in the metadata); START_TIME and STOP_TIME are the first and last data epochs as printed.
 // - CREATION_DATE comes from the caller (meta.creationEpochTT), never the clock, so equal inputs
 //   give equal bytes.
@@ -11,7 +11,7 @@
 //   throws a RangeError naming the first offending sample (the caller sorts before formatting).
 // - Lines end with LF; fixed-point numbers, by default 6 decimals for km and 9 for km/s.
 
-import { utcFormatter } from '../solver/time/time.js';
+import { EPOCH_FRACTION_DIGITS, utcFormatter } from '../solver/time/time.js';
 import { AsciiWriter } from './ascii-writer.js';
 import { checkDigits, firstNonIncreasing, sampleCount, type TrackTable } from './track-table.js';
 
@@ -34,7 +34,7 @@ export interface OemMeta {
   readonly comments?: readonly string[];
   /** Optional INTERPOLATION and INTERPOLATION_DEGREE hints for readers. */
   readonly interpolation?: { readonly method: string; readonly degree: number };
-  /** Fractional-second digits of all epochs, 0-9 (default 3). */
+  /** Fractional-second digits of all epochs, 0-9 (default 6, the microsecond). */
   readonly epochDigits?: number;
   /** Decimals of km (default 6) and of km/s (default 9). */
   readonly positionDecimals?: number;
@@ -72,7 +72,7 @@ export function* oemChunks(table: TrackTable, meta: OemMeta): Generator<Buffer> 
   if (n === 0) throw new RangeError('an OEM needs at least one ephemeris data line');
   const bad = firstNonIncreasing(table.epochsTT);
   if (bad >= 0) throw new RangeError(`OEM data lines must be in increasing time order: epoch ${bad} is not after epoch ${bad - 1}`);
-  const digits = meta.epochDigits ?? 3;
+  const digits = meta.epochDigits ?? EPOCH_FRACTION_DIGITS;
   const pd = meta.positionDecimals ?? 6;
   const vd = meta.velocityDecimals ?? 9;
   const chunkChars = meta.chunkChars ?? 65_536;

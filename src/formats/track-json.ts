@@ -25,7 +25,7 @@ export function* trackJsonChunks(head: Record<string, unknown>, epochsTT: Float6
   const width = fields.reduce((w, f) => Math.max(w, f.from + f.count), 0);
   const n = epochsTT.length;
   if (values.length !== width * n) throw new RangeError(`table holds ${values.length} numbers for ${n} epochs of ${width} columns`);
-  const out = new AsciiWriter(3, chunkBytes);
+  const out = new AsciiWriter(undefined, chunkBytes);
   // The head may hold non-ASCII text (object names): UTF-8 bytes, outside the ASCII writer.
   const opening = JSON.stringify(head);
   const headBytes = Buffer.from(`${opening.slice(0, -1)}${opening.length > 2 ? ',' : ''}"samples":[`, 'utf8');

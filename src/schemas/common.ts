@@ -78,8 +78,8 @@ export const UT1_MINUS_UTC_TEXT = 'UT1 - UTC, s (IERS Bulletin A); when given it
 /** True for a string the Epoch schema accepts (a cheap test for long lists). */
 export const isEpoch = (value: unknown): boolean => typeof value === 'string' && parseUtcIso(value).ok;
 
-/** Epoch as the answers give it: ISO 8601 UTC with milliseconds. */
-export const EpochOut = z.string().describe('ISO 8601 UTC timestamp with milliseconds').meta({ example: '2026-12-01T00:00:00.000Z' });
+/** Epoch as the answers give it: ISO 8601 UTC to the microsecond. */
+export const EpochOut = z.string().describe('ISO 8601 UTC timestamp to the microsecond (6 fractional digits); every state, look angle and event of an answer is computed at the epoch printed beside it').meta({ example: '2026-12-01T00:00:00.000000Z' });
 
 export const ScenarioHash = z.string().regex(/^[0-9a-f]{64}$/).describe('SHA-256 (hex) of the normalised scenario and the solver version; also the ETag');
 

@@ -10,8 +10,8 @@ const reference = (x: number, d: number): string => {
   return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
 };
 
-const written = (write: (w: AsciiWriter) => void, digits = 3): string => {
-  const w = new AsciiWriter(digits, 128);
+const written = (write: (w: AsciiWriter) => void, digits?: number): string => {
+  const w = digits === undefined ? new AsciiWriter(undefined, 128) : new AsciiWriter(digits, 128);
   write(w);
   return w.take().toString('latin1');
 };

@@ -38,7 +38,7 @@ describe('csvChunks(table, opts)', () => {
     expect(rows).toHaveLength(300);
     rows.forEach((row, i) => {
       const [epoch, ...numbers] = row.split(',');
-      expect(epoch).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/);
+      expect(epoch).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{6}Z$/);
       const tt = parseUtcIso(epoch!);
       expect(tt.ok).toBe(true);
       if (tt.ok) expectClose(tt.value, table.epochsTT[i]!, 0.0005 + 1e-9, `epoch ${i}`);

@@ -26,7 +26,7 @@ describe('ground track GeoJSON (RFC 7946)', () => {
     expect(doc.features).toHaveLength(1);
     const f = doc.features[0]!;
     expect(f.type).toBe('Feature');
-    expect(f.properties).toEqual({ name: 'Kestrel-7 (demo)', start: '2026-12-01T00:00:00.000Z', stop: '2026-12-01T00:02:00.000Z', samples: 3 });
+    expect(f.properties).toEqual({ name: 'Kestrel-7 (demo)', start: '2026-12-01T00:00:00.000000Z', stop: '2026-12-01T00:02:00.000000Z', samples: 3 });
     expect(f.geometry).toEqual({ type: 'LineString', coordinates: [[10, 20], [12, 25], [14, 30]] });
   });
 

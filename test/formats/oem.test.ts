@@ -39,7 +39,7 @@ describe('oemChunks(table, meta)', () => {
   it('writes the header and metadata keywords of CCSDS 502.0-B-3 sec. 5.2 in order (from memory)', () => {
     const parsed = parseOemKvn(oemText(demoTrack()));
     expect(parsed.headerOrder).toEqual(['CCSDS_OEM_VERS', 'CREATION_DATE', 'ORIGINATOR']);
-    expect(parsed.header).toEqual({ CCSDS_OEM_VERS: '3.0', CREATION_DATE: '2026-11-30T12:00:00.000', ORIGINATOR: 'APSIDES DEMO' });
+    expect(parsed.header).toEqual({ CCSDS_OEM_VERS: '3.0', CREATION_DATE: '2026-11-30T12:00:00.000000', ORIGINATOR: 'APSIDES DEMO' });
     expect(parsed.comments).toEqual(['invented demo data']);
     expect(parsed.segments).toHaveLength(1);
     const seg = parsed.segments[0]!;
@@ -50,8 +50,8 @@ describe('oemChunks(table, meta)', () => {
       CENTER_NAME: 'EARTH',
       REF_FRAME: 'GCRF',
       TIME_SYSTEM: 'UTC',
-      START_TIME: '2026-12-01T00:00:00.000',
-      STOP_TIME: '2026-12-01T03:00:00.000',
+      START_TIME: '2026-12-01T00:00:00.000000',
+      STOP_TIME: '2026-12-01T03:00:00.000000',
     });
   });
 
@@ -61,7 +61,7 @@ describe('oemChunks(table, meta)', () => {
     expect(seg.epochs).toHaveLength(table.epochsTT.length);
     expect(seg.states).toHaveLength(table.states.length);
     seg.epochs.forEach((epoch, i) => {
-      expect(epoch).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}$/);
+      expect(epoch).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{6}$/);
       expectClose(tt(`${epoch}Z`), table.epochsTT[i]!, 0.0005 + 1e-9, `epoch ${i}`);
     });
     seg.states.forEach((value, k) => {

@@ -69,7 +69,7 @@ describe('/v1/track with a two-line set', () => {
     const res = await postJson(app, '/v1/track', { tle: { line1, line2 }, grid: { start: '2005-11-29T00:30:00Z', stop: '2005-11-29T01:30:00Z', step: 60 } });
     expect(res.statusCode, res.body).toBe(422);
     expect(res.json().type).toBe('/problems/sgp4-failed');
-    expect(res.json().detail).toMatch(/^SGP4 stopped at 2005-11-29T01:\d\d:00\.000Z \(.* min from the element epoch\): satellite has decayed/);
+    expect(res.json().detail).toMatch(/^SGP4 stopped at 2005-11-29T01:\d\d:00\.000000Z \(.* min from the element epoch\): satellite has decayed/);
   });
 
   it('the printed TEME state of case 00005 at its epoch, given as a teme state, is the gcrf state of the set at that epoch (to 1 mm, 1 mm/s: the file prints 8 decimals)', async () => {
@@ -118,7 +118,7 @@ describe('malformed two-line sets: a clear 422 naming line, columns and expectat
     expect(res.statusCode, res.body).toBe(200);
     const m = res.json().meanElements;
     expect(m.bstar).toBe(-0.11606e-4);
-    expect(m.epoch).toBe('2056-04-09T12:00:00.000Z');
+    expect(m.epoch).toBe('2056-04-09T12:00:00.000000Z');
     expect(m.catalogNumber).toBe(100_001); // A = 10 (Alpha-5)
   });
 
@@ -210,17 +210,17 @@ describe('/v1/orbit with a catalogue orbit', () => {
     const a = res.json();
     const m = a.meanElements;
     // As written in the invented set (test/helpers/tle.ts): 15.2 rev/day = 15.2 x 360 / 86400 deg/s.
-    expect(m).toMatchObject({ format: 'tle', theory: 'SGP4', name: 'PLOVER-7', catalogNumber: 99901, epoch: '2026-12-01T00:00:00.000Z', revolutionsPerDay: 15.2, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, meanAnomaly: 10, bstar: 0.12345e-4, regime: 'near-earth' });
+    expect(m).toMatchObject({ format: 'tle', theory: 'SGP4', name: 'PLOVER-7', catalogNumber: 99901, epoch: '2026-12-01T00:00:00.000000Z', revolutionsPerDay: 15.2, eccentricity: 0.0012, inclination: 97.6, raan: 40, argPeriapsis: 90, meanAnomaly: 10, bstar: 0.12345e-4, regime: 'near-earth' });
     expect(m.meanMotion).toBeCloseTo((15.2 * 360) / 86_400, 15);
     // Kozai mean motion 15.2 rev/day -> a = (mu / n^2)^(1/3) with mu = 398600.8 (WGS-72) is ~6936 km;
     // Brouwer's un-Kozai'd value differs by the J2 term, a few km (Vallado et al. 2006, initl).
     expect(Math.abs(m.semiMajorAxis - (398_600.8 / ((15.2 * 2 * Math.PI) / 86_400) ** 2) ** (1 / 3))).toBeLessThan(15);
-    expect(a.elementSetAge).toEqual({ at: '2026-12-03T12:00:00.000Z', days: 2.5 });
+    expect(a.elementSetAge).toEqual({ at: '2026-12-03T12:00:00.000000Z', days: 2.5 });
     const track = (await postJson(app, '/v1/track', { tle: PLOVER_TLE, grid: { times: ['2026-12-01T00:00:00Z'] } })).json();
     for (let c = 0; c < 3; c++) expect(a.state.position[c]).toBeCloseTo(track.samples[0].position[c], 5);
     // Osculating, not mean: the osculating eccentricity differs from the mean one.
     expect(a.elements.eccentricity).not.toBe(0.0012);
-    expect(a.epoch).toBe('2026-12-01T00:00:00.000Z');
+    expect(a.epoch).toBe('2026-12-01T00:00:00.000000Z');
   });
 
   it('ageAt without a catalogue orbit is a 400', async () => {

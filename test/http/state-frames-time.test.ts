@@ -21,7 +21,7 @@ describe('state.frame', () => {
     });
     expect(res.statusCode, res.body).toBe(200);
     const s = res.json().samples[0];
-    expect(s.epoch).toBe('2026-12-01T06:30:00.000Z');
+    expect(s.epoch).toBe('2026-12-01T06:30:00.000000Z');
     expectClose(s.latitude, 34.352496, 1e-6, 'latitude deg');
     expectClose(s.longitude, 46.446417, 1e-6, 'longitude deg');
     expectClose(s.height, 5085.22, 0.005, 'height km');
@@ -84,7 +84,7 @@ describe('timeSystem', () => {
   // GPS = TAI - 19 s (IS-GPS-200, from memory).
   const spellings = [
     { timeSystem: undefined, epoch: '2026-12-01T06:30:00Z', later: '2026-12-01T07:30:00Z' },
-    { timeSystem: 'UTC', epoch: '2026-12-01T06:30:00.000Z', later: '2026-12-01T07:30:00.000000Z' },
+    { timeSystem: 'UTC', epoch: '2026-12-01T06:30:00.000000Z', later: '2026-12-01T07:30:00.000000Z' },
     { timeSystem: 'TAI', epoch: '2026-12-01T06:30:37', later: '2026-12-01T07:30:37' },
     { timeSystem: 'TT', epoch: '2026-12-01T06:31:09.184', later: '2026-12-01T07:31:09.184' },
     { timeSystem: 'GPS', epoch: '2026-12-01T06:30:18', later: '2026-12-01T07:30:18' },
@@ -104,8 +104,8 @@ describe('timeSystem', () => {
     const hashes = new Set(answers.map((a) => a.json().scenarioHash));
     expect(hashes.size).toBe(1);
     expect(new Set(answers.map((a) => a.body)).size).toBe(1);
-    expect(answers[0]!.json().samples[0].epoch).toBe('2026-12-01T06:30:00.000Z');
-    expect(answers[0]!.json().samples.at(-1).epoch).toBe('2026-12-01T07:30:00.000Z');
+    expect(answers[0]!.json().samples[0].epoch).toBe('2026-12-01T06:30:00.000000Z');
+    expect(answers[0]!.json().samples.at(-1).epoch).toBe('2026-12-01T07:30:00.000000Z');
   });
 
   it('... and for elements on /v1/orbit, a times grid, and a pass-search window', async () => {
@@ -113,7 +113,7 @@ describe('timeSystem', () => {
     const orbits = await Promise.all(spellings.map((s) => postJson(app, '/v1/orbit', { centralBody: 'earth', elements: { ...el, epoch: s.epoch, ...ts(s.timeSystem) } })));
     expect(new Set(orbits.map((a) => a.json().scenarioHash)).size).toBe(1);
     expect(new Set(orbits.map((a) => a.body)).size).toBe(1);
-    expect(orbits[0]!.json().epoch).toBe('2026-12-01T06:30:00.000Z');
+    expect(orbits[0]!.json().epoch).toBe('2026-12-01T06:30:00.000000Z');
 
     const tracks = await Promise.all(spellings.map((s) => postJson(app, '/v1/track', {
       centralBody: 'earth', elements: { ...el, epoch: EPOCH }, grid: { times: [s.later, s.epoch], ...ts(s.timeSystem) },
@@ -129,7 +129,7 @@ describe('timeSystem', () => {
     for (const a of passes) expect(a.statusCode, a.body).toBe(200);
     expect(new Set(passes.map((a) => a.json().scenarioHash)).size).toBe(1);
     expect(new Set(passes.map((a) => a.body)).size).toBe(1);
-    expect(passes[0]!.json().window).toEqual({ start: '2026-12-01T06:30:00.000Z', stop: '2026-12-01T07:30:00.000Z' });
+    expect(passes[0]!.json().window).toEqual({ start: '2026-12-01T06:30:00.000000Z', stop: '2026-12-01T07:30:00.000000Z' });
   });
 
   it('a different instant gives a different hash (TAI text read as UTC would be 37 s later)', async () => {
@@ -137,7 +137,7 @@ describe('timeSystem', () => {
     const a = (await postJson(app, '/v1/orbit', body('2026-12-01T06:30:37', 'TAI'))).json();
     const b = (await postJson(app, '/v1/orbit', body('2026-12-01T06:30:37Z'))).json();
     expect(a.scenarioHash).not.toBe(b.scenarioHash);
-    expect(a.epoch).toBe('2026-12-01T06:30:00.000Z');
+    expect(a.epoch).toBe('2026-12-01T06:30:00.000000Z');
   });
 
   it('refuses epochs that do not fit their system, naming the field: a zone letter on a TAI epoch, UTC without one, second 60 outside a UTC leap second, an unknown system', async () => {

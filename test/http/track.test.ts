@@ -25,7 +25,7 @@ describe('POST /v1/track', () => {
     const answer = res.json();
     expect(answer.sampleCount).toBe(2);
     const last = answer.samples[1];
-    expect(last.epoch).toBe('2026-12-01T00:40:00.000Z');
+    expect(last.epoch).toBe('2026-12-01T00:40:00.000000Z');
     const wantR = [-4219.7527, 4363.0292, -3958.7666];
     const wantV = [3.689866, -1.916735, -6.112511];
     for (let c = 0; c < 3; c++) {
@@ -49,7 +49,7 @@ describe('POST /v1/track', () => {
   it('a grid ends exactly at stop and may run backwards', async () => {
     const res = await postJson(app, '/v1/track', { ...demo, grid: { start: '2026-12-01T00:10:00Z', stop: EPOCH, step: 240 } });
     const epochs = res.json().samples.map((s: { epoch: string }) => s.epoch);
-    expect(epochs).toEqual(['2026-12-01T00:10:00.000Z', '2026-12-01T00:06:00.000Z', '2026-12-01T00:02:00.000Z', '2026-12-01T00:00:00.000Z']);
+    expect(epochs).toEqual(['2026-12-01T00:10:00.000000Z', '2026-12-01T00:06:00.000000Z', '2026-12-01T00:02:00.000000Z', '2026-12-01T00:00:00.000000Z']);
   });
 
   it('CSV is RFC 4180 with a header row naming units and CRLF line ends; Accept chooses it', async () => {
@@ -72,7 +72,7 @@ describe('POST /v1/track', () => {
     const seg = oem.segments[0]!;
     expect(seg.meta).toMatchObject({ OBJECT_NAME: 'PLOVER-7', OBJECT_ID: '2026-900A', CENTER_NAME: 'EARTH', REF_FRAME: 'GCRF', TIME_SYSTEM: 'UTC' });
     // The OEM is in increasing time order; the JSON keeps the order asked for.
-    expect(seg.epochs).toEqual(['2026-12-01T00:00:00.000', '2026-12-01T00:01:30.500', '2026-12-01T00:03:00.000']);
+    expect(seg.epochs).toEqual(['2026-12-01T00:00:00.000000', '2026-12-01T00:01:30.500000', '2026-12-01T00:03:00.000000']);
     const byEpoch = new Map(json.samples.map((s: { epoch: string; position: number[]; velocity: number[] }) => [s.epoch.slice(0, -1), [...s.position, ...s.velocity]]));
     seg.epochs.forEach((epoch, i) => expect(seg.states.slice(6 * i, 6 * i + 6)).toEqual(byEpoch.get(epoch)));
   });

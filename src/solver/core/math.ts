@@ -5,6 +5,14 @@ export const DEG = Math.PI / 180;
 export const RAD = 180 / Math.PI;
 export const SECONDS_PER_DAY = 86_400;
 
+/**
+ * TT seconds since J2000 rounded to the nearest microsecond (the nearest double to it). TT - UTC is
+ * a whole number of microseconds (whole leap seconds + 32.184 s) and J2000.0 is 12:00:00 TT, so
+ * this is also the nearest microsecond of UTC: the instant printed to the microsecond. Idempotent:
+ * the integer count of microseconds (below 2^53 over 1972-2199) is exact and the division rounds once.
+ */
+export const roundToMicrosecond = (tt: number): number => Math.round(tt * 1e6) / 1e6;
+
 /** acos with its argument clamped to [-1, 1] against rounding just outside the domain. */
 export function acosClamped(x: number): number {
   return Math.acos(x > 1 ? 1 : x < -1 ? -1 : x);

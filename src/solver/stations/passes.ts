@@ -38,7 +38,7 @@ import { goldenSectionMax } from '../numerics/golden-section.js';
 import { positiveIntervals, type PositiveInterval } from '../numerics/positive-intervals.js';
 import { PropagationStopped, gcrfStateAt, unwrapState, type StateAt, type StateBatch } from '../propagation/state-source.js';
 import { scanStep } from '../propagation/scan-step.js';
-import { DEG, SECONDS_PER_DAY } from '../core/math.js';
+import { DEG, roundToMicrosecond, SECONDS_PER_DAY } from '../core/math.js';
 import { failure, success, type Outcome } from '../core/result.js';
 import { refractionOf, type Refraction, type RefractionSpec } from './refraction.js';
 import {
@@ -452,13 +452,17 @@ function lookAtRecent(ctx: Context, st: Prepared, tt: number): LookAngles {
 }
 
 function describe(ctx: Context, st: Prepared, track: Track, iv: Interval, pointingStepS: number | undefined): Pass {
-  const aos = lookAt(ctx, st, iv.start);
-  const los = lookAt(ctx, st, iv.stop);
+  // Events and pointing samples sit on the microsecond, the resolution of the printed epochs: every
+  // look angle is at the epoch printed beside it (a window edge is on the microsecond already).
+  const aosT = roundToMicrosecond(iv.start);
+  const losT = roundToMicrosecond(iv.stop);
+  const aos = lookAt(ctx, st, aosT);
+  const los = lookAt(ctx, st, losT);
   const [a, b] = peakBracket(ctx, st, track, iv.start, iv.stop);
   ctx.recentCount = 0;
-  let tca = b - a > PEAK_TOLERANCE_S ? goldenSectionMax((t) => elevationKept(ctx, st, t), a, b, PEAK_TOLERANCE_S).t : a;
+  let tca = roundToMicrosecond(b - a > PEAK_TOLERANCE_S ? goldenSectionMax((t) => elevationKept(ctx, st, t), a, b, PEAK_TOLERANCE_S).t : a);
   let top = lookAtRecent(ctx, st, tca);
-  for (const [t, l] of [[iv.start, aos], [iv.stop, los]] as const) {
+  for (const [t, l] of [[aosT, aos], [losT, los]] as const) {
     if (l.elevation > top.elevation) {
       tca = t;
       top = l;
@@ -466,10 +470,10 @@ function describe(ctx: Context, st: Prepared, track: Track, iv: Interval, pointi
   }
   const pass: Pass = {
     station: st.id,
-    aos: iv.start,
-    los: iv.stop,
+    aos: aosT,
+    los: losT,
     tca,
-    durationS: iv.stop - iv.start,
+    durationS: losT - aosT,
     maxElevation: top.elevation,
     azimuthAos: aos.azimuth,
     azimuthTca: top.azimuth,
@@ -481,10 +485,10 @@ function describe(ctx: Context, st: Prepared, track: Track, iv: Interval, pointi
   if (pointingStepS === undefined) return pass;
   const pointing: PointingSample[] = [];
   for (let i = 0; ; i++) {
-    const t = Math.min(iv.start + i * pointingStepS, iv.stop);
-    const l = t === iv.start ? aos : t === iv.stop ? los : lookAt(ctx, st, t);
+    const t = Math.min(roundToMicrosecond(aosT + i * pointingStepS), losT);
+    const l = t === aosT ? aos : t === losT ? los : lookAt(ctx, st, t);
     pointing.push({ tt: t, azimuth: l.azimuth, elevation: l.elevation, range: l.range, rangeRate: l.rangeRate, dopplerFactor: dopplerFactor(l.rangeRate) });
-    if (t >= iv.stop) break;
+    if (t >= losT) break;
   }
   return { ...pass, pointing };
 }

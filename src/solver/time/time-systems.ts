@@ -96,14 +96,21 @@ export function parseEpochIn(text: string, system: TimeSystem): Outcome<number> 
 const two = (n: number): string => String(n).padStart(2, '0');
 
 /**
- * The instant of calendar text in a system as UTC text, exactly: YYYY-MM-DDThh:mm:ss[.f]Z with the
- * fraction's trailing zeros dropped (second 60 inside a leap second). The canonical spelling of
- * an input epoch.
+ * The instant of calendar text in a system as UTC text: YYYY-MM-DDThh:mm:ss[.f]Z with the fraction
+ * rounded to `fractionDigits` (9: exact to the nanosecond) and its trailing zeros dropped (second
+ * 60 inside a leap second). The canonical spelling of an input epoch (src/api/epoch.ts rounds it to
+ * the microsecond).
  */
-export function epochAsUtc(text: string, system: TimeSystem): Outcome<string> {
+export function epochAsUtc(text: string, system: TimeSystem, fractionDigits = 9): Outcome<string> {
   const c = parseCalendar(text, system);
   if (!c.ok) return c;
-  const { s: tai, ns } = taiOf(c.value, system);
+  const exact = taiOf(c.value, system);
+  // Rounded half up to 10^-fractionDigits s in integer nanoseconds (exact), carrying into the second;
+  // TAI and UTC differ by whole seconds, so this is the rounding of the UTC text.
+  const unit = 10 ** (9 - fractionDigits);
+  let tai = exact.s;
+  let ns = Math.round(exact.ns / unit) * unit;
+  if (ns >= NANOS) { tai += 1; ns -= NANOS; }
   // The UTC day whose seconds [0, length) hold this TAI second (the offset changes only at day ends).
   let day = Math.floor((tai - taiMinusUtc(Math.floor(tai / SECONDS_PER_DAY))) / SECONDS_PER_DAY);
   let sod = tai - taiMinusUtc(day) - day * SECONDS_PER_DAY;

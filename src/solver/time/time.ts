@@ -30,6 +30,12 @@ export const LEAP_SECONDS: ReadonlyArray<readonly [year: number, month: number, 
   [2009, 1, 34], [2012, 7, 35], [2015, 7, 36], [2017, 1, 37],
 ];
 export const LEAP_SECONDS_LAST_ENTRY = '2017-01-01';
+/**
+ * Fractional-second digits of every printed epoch: the microsecond. A double of TT seconds since
+ * J2000 resolves about 0.1 microsecond over 1972-2199, and the service samples on the microsecond
+ * (core/math.ts roundToMicrosecond), so the epoch printed beside a state is the epoch it is at.
+ */
+export const EPOCH_FRACTION_DIGITS = 6;
 export const FIRST_SUPPORTED_YEAR = 1972;
 export const LAST_SUPPORTED_YEAR = 2199;
 
@@ -136,7 +142,7 @@ export interface UtcFields {
  * It keeps the UTC day of the previous call, so a track's sorted epochs cost a few integer
  * operations each. Writes into `out` (no allocation per call).
  */
-export function utcSplitter(fractionDigits = 3): (tt: number, out: UtcFields) => void {
+export function utcSplitter(fractionDigits = EPOCH_FRACTION_DIGITS): (tt: number, out: UtcFields) => void {
   if (!(Number.isInteger(fractionDigits) && fractionDigits >= 0 && fractionDigits <= 9)) {
     throw new RangeError(`fractionDigits must be an integer 0-9, got ${fractionDigits}`);
   }
@@ -185,7 +191,7 @@ export function utcSplitter(fractionDigits = 3): (tt: number, out: UtcFields) =>
 export const newUtcFields = (): UtcFields => ({ datePrefix: '', hour: 0, minute: 0, second: 0, fraction: 0 });
 
 /** A formatter of TT seconds since J2000 as ISO 8601 UTC with a fixed number of fractional digits (0-9). */
-export function utcFormatter(fractionDigits = 3): (tt: number) => string {
+export function utcFormatter(fractionDigits = EPOCH_FRACTION_DIGITS): (tt: number) => string {
   const split = utcSplitter(fractionDigits);
   const f = newUtcFields();
   return (tt: number): string => {
@@ -196,7 +202,7 @@ export function utcFormatter(fractionDigits = 3): (tt: number) => string {
 }
 
 /** Format TT seconds since J2000 as ISO 8601 UTC with a fixed number of fractional digits (0-9), rounding half up. */
-export function formatUtcIso(tt: number, fractionDigits = 3): string {
+export function formatUtcIso(tt: number, fractionDigits = EPOCH_FRACTION_DIGITS): string {
   return utcFormatter(fractionDigits)(tt);
 }
 

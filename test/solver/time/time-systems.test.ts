@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { epochAsUtc, parseCalendar, parseEpochIn, type TimeSystem } from '../../../src/solver/time/time-systems.js';
 import { parseUtcIso } from '../../../src/solver/time/time.js';
+import { roundToMicrosecond } from '../../../src/solver/core/math.js';
+import fc from 'fast-check';
 
 const ok = <T>(r: { ok: true; value: T } | { ok: false; message: string }): T => {
   if (!r.ok) throw new Error(r.message);
@@ -53,5 +55,25 @@ describe('time systems', () => {
     expect(parseCalendar('2016-12-30T23:59:60', 'UTC').ok).toBe(false);
     expect(parseCalendar('2026-02-29T00:00:00', 'UTC').ok).toBe(false);
     expect(parseCalendar('1969-12-31T00:00:00', 'TT')).toMatchObject({ ok: false, code: 'epoch-out-of-range' });
+  });
+});
+
+describe('rounding to the microsecond (the service\'s time resolution)', () => {
+  it('epochAsUtc rounds half up in integer nanoseconds and carries across the day and a leap second', () => {
+    expect(epochAsUtc('2026-12-01T00:00:00.1234565Z', 'UTC', 6)).toEqual({ ok: true, value: '2026-12-01T00:00:00.123457Z' });
+    expect(epochAsUtc('2026-12-01T00:00:00.1234564Z', 'UTC', 6)).toEqual({ ok: true, value: '2026-12-01T00:00:00.123456Z' });
+    expect(epochAsUtc('2026-12-01T23:59:59.9999996Z', 'UTC', 6)).toEqual({ ok: true, value: '2026-12-02T00:00:00Z' });
+    // 2016-12-31 ended with a leap second (IERS Bulletin C 52): 23:59:59.9999996 rounds into it, 23:59:60.9999996 out of it.
+    expect(epochAsUtc('2016-12-31T23:59:59.9999996Z', 'UTC', 6)).toEqual({ ok: true, value: '2016-12-31T23:59:60Z' });
+    expect(epochAsUtc('2016-12-31T23:59:60.9999996Z', 'UTC', 6)).toEqual({ ok: true, value: '2017-01-01T00:00:00Z' });
+    expect(epochAsUtc('2026-12-01T00:00:00.1234565Z', 'UTC')).toEqual({ ok: true, value: '2026-12-01T00:00:00.1234565Z' });
+  });
+
+  it('roundToMicrosecond is idempotent and moves an epoch by at most half a microsecond', () => {
+    fc.assert(fc.property(fc.double({ min: -8.8e8, max: 6.3e9, noNaN: true }), (tt) => {
+      const r = roundToMicrosecond(tt);
+      expect(roundToMicrosecond(r)).toBe(r);
+      expect(Math.abs(r - tt)).toBeLessThanOrEqual(5.001e-7);
+    }), { numRuns: 2000, seed: 11 });
   });
 });
