@@ -73,7 +73,7 @@ describe('/v1/track from an ephemeris', () => {
     const d = a.diagnostics;
     expect(d.conservedQuantity).toBe('none');
     expect(d.interpolation.segments).toEqual([{
-      start: '2026-12-01T00:00:00.000Z', stop: '2026-12-02T00:00:00.000Z', refFrame: 'GCRF', timeSystem: 'UTC', nodes: 1441,
+      start: '2026-12-01T00:00:00.000000Z', stop: '2026-12-02T00:00:00.000000Z', refFrame: 'GCRF', timeSystem: 'UTC', nodes: 1441,
       method: 'lagrange', degreeAsked: 7, degreeFromFile: false, degree: 7, nodesPerSample: 8, usesAccelerations: false,
     }]);
     // The estimate (the farthest node's term) is of the error, not below it.
@@ -113,10 +113,10 @@ describe('/v1/track from an ephemeris', () => {
       const res = await postJson(app, '/v1/track', { centralBody: 'earth', ephemeris: { oem: text }, grid });
       expect(res.statusCode, res.body).toBe(422);
       expect(res.json().type).toBe('/problems/outside-coverage');
-      expect(res.json().detail).toMatch(/2026-12-01T00:00:00\.000Z to 2026-12-0[12]T/);
+      expect(res.json().detail).toMatch(/2026-12-01T00:00:00\.000000Z to 2026-12-0[12]T/);
     }
     const res = await postJson(app, '/v1/track', { centralBody: 'earth', ephemeris: { oem: gap }, grid: { times: [at(5000)] } });
-    expect(res.json().detail).toContain('2026-12-01T00:00:00.000Z to 2026-12-01T01:00:00.000Z, 2026-12-01T02:00:00.000Z to 2026-12-01T03:00:00.000Z');
+    expect(res.json().detail).toContain('2026-12-01T00:00:00.000000Z to 2026-12-01T01:00:00.000000Z, 2026-12-01T02:00:00.000000Z to 2026-12-01T03:00:00.000000Z');
     // Both sides of the gap answer.
     expect((await postJson(app, '/v1/track', { centralBody: 'earth', ephemeris: { oem: gap }, grid: { times: [at(3600), at(7200), at(9000)] } })).statusCode).toBe(200);
   });
@@ -213,7 +213,7 @@ describe('passes, eclipses, orbit, batch from an ephemeris', () => {
     for (const w of [{ start: EPOCH, stop: at(4000) }, { start: at(-60), stop: at(600) }, { start: at(1000), stop: at(9000) }]) {
       const res = await postJson(app, '/v1/passes', { centralBody: 'earth', ephemeris: { oem: short }, stations, window: w });
       expect(res.statusCode, res.body).toBe(422);
-      expect(res.json().detail).toMatch(/coverage 2026-12-01T00:00:00\.000Z to 2026-12-01T01:00:00\.000Z, 2026-12-01T02:00:00\.000Z to|outside the ephemeris coverage \(2026-12-01T00:00:00\.000Z/);
+      expect(res.json().detail).toMatch(/coverage 2026-12-01T00:00:00\.000000Z to 2026-12-01T01:00:00\.000000Z, 2026-12-01T02:00:00\.000000Z to|outside the ephemeris coverage \(2026-12-01T00:00:00\.000000Z/);
     }
   });
 
