@@ -53,7 +53,7 @@ const SERVICE_ERRORS = {
 
 /** Expected solver failures: physically impossible or numerically unsolvable scenarios answer 422. */
 const SOLVER_ERRORS: Record<SolverFailureCode, ErrorEntry> = {
-  'invalid-epoch': { status: 400, title: 'Epoch is not a date', meaning: 'An epoch is not calendar text of a real date and time in its time system (ISO 8601 ending in Z for UTC, the default; zone-less text for TAI, TT and GPS; a second 60 only inside a UTC leap second); `errors` names each such field.' },
+  'invalid-epoch': { status: 400, title: 'Epoch is not a date', meaning: 'An epoch is not calendar text of a real date and time in its time system (ISO 8601 ending in Z or an offset +hh:mm for UTC, the default; zone-less text for TAI, TT and GPS; a second 60 only inside a UTC leap second); `errors` names each such field.' },
   'epoch-out-of-range': { status: 422, title: 'Epoch out of the supported range', meaning: 'Epochs must lie in 1972-2199 UTC (UTC before 1972 had no leap-second form), an epoch given in TAI, TT or GPS included once written in UTC; `errors` names each such field.' },
   'zero-position': { status: 422, title: 'Position is zero', meaning: 'The position vector (or the separation of two bodies) has zero length: no orbit is defined.' },
   'rectilinear-motion': { status: 422, title: 'Rectilinear motion', meaning: 'The angular momentum is zero (velocity parallel to position): there is no orbital plane.' },

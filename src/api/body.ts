@@ -1,7 +1,10 @@
-// Central bodies between the API (degrees, deg/day) and the solver (radians, rad/s).
+// Central bodies between the API (degrees, deg/day for every angular rate) and the solver (radians, rad/s).
 import { BODIES, BODY_NAMES, type CentralBody } from '../solver/bodies/bodies.js';
 import { DEG, RAD, SECONDS_PER_DAY } from '../solver/core/math.js';
 import type { BodiesAnswer, BodySummary, CentralBodyInput } from '../schemas/body.js';
+
+/** A rate converted from rad/s, printed to 15 significant digits (the published digits, without the conversion's last-bit noise). */
+const converted = (x: number): number => Number(x.toPrecision(15));
 
 /** The solver's body for a request's centralBody (degrees -> radians at the edge). */
 export function resolveBody(input: CentralBodyInput): CentralBody {
@@ -11,20 +14,20 @@ export function resolveBody(input: CentralBodyInput): CentralBody {
     gm: input.gm,
     ...(input.radius !== undefined ? { radius: input.radius } : {}),
     ...(input.j2 !== undefined ? { j2: input.j2 } : {}),
-    ...(input.rotationRate !== undefined ? { rotationRateRadS: input.rotationRate * DEG } : {}),
+    ...(input.rotationRateDegPerDay !== undefined ? { rotationRateRadS: (input.rotationRateDegPerDay * DEG) / SECONDS_PER_DAY } : {}),
     ...(input.flattening !== undefined ? { flattening: input.flattening } : {}),
     sources: { gm: 'given in the request' },
   };
 }
 
-/** A solver body as the answers describe it (rad/s -> deg/s). */
+/** A solver body as the answers describe it (rad/s -> deg/day). */
 export function describeBody(body: CentralBody): BodySummary {
   return {
     name: body.name,
     gm: body.gm,
     radius: body.radius ?? null,
     j2: body.j2 ?? null,
-    rotationRate: body.rotationRateRadS !== undefined ? body.rotationRateRadS * RAD : null,
+    rotationRateDegPerDay: body.rotationRateRadS !== undefined ? converted(body.rotationRateRadS * RAD * SECONDS_PER_DAY) : null,
     flattening: body.flattening ?? null,
   };
 }
@@ -36,7 +39,7 @@ export function bodiesAnswer(): BodiesAnswer {
       const body = BODIES[name];
       return {
         ...describeBody(body),
-        heliocentricMeanMotion: body.heliocentricMeanMotionRadS !== undefined ? body.heliocentricMeanMotionRadS * RAD * SECONDS_PER_DAY : null,
+        heliocentricMeanMotionDegPerDay: body.heliocentricMeanMotionRadS !== undefined ? converted(body.heliocentricMeanMotionRadS * RAD * SECONDS_PER_DAY) : null,
         sources: { ...body.sources },
       };
     }),

@@ -77,9 +77,13 @@ interface EpochBearing {
   readonly window?: Part;
 }
 
-/** The parts of a request rewritten in canonical UTC: state, elements, grid and window (each with its own timeSystem). */
+/** The parts of a request rewritten in canonical UTC: state, elements, grid and window (each with its own timeSystem), and the UTC epochs ageAt and creationDate. */
 export function utcScenario<T extends EpochBearing>(req: T): T {
   const out: Record<string, unknown> = { ...(req as object) };
+  for (const key of ['ageAt', 'creationDate'] as const) {
+    const v = (req as Record<string, unknown>)[key];
+    if (typeof v === 'string') out[key] = canonicalEpoch(v);
+  }
   for (const key of ['state', 'elements', 'grid', 'window'] as const) {
     const part = req[key];
     if (part !== undefined) out[key] = utcEpochs(part);

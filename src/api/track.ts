@@ -4,6 +4,7 @@ import type { CentralBody } from '../solver/bodies/bodies.js';
 import type { Conservation } from '../solver/propagation/track.js';
 import { RAD } from '../solver/core/math.js';
 import type { FrameOptions } from '../solver/earth/frames.js';
+import { epochTT } from './epoch.js';
 import type { Track } from '../solver/propagation/track.js';
 import type { InitialState } from './orbit.js';
 import { interpolationDiagnostics } from './ephemeris.js';
@@ -73,7 +74,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
     },
     object: req.object,
     oem: {
-      creationEpochTT: initialEpochTT,
+      creationEpochTT: req.creationDate !== undefined ? epochTT(req.creationDate) : initialEpochTT,
       centerName: body.name.toUpperCase(),
       comments: [
         `model ${req.model}, GM ${body.gm} km**3/s**2; scenario ${hash}`,
@@ -84,7 +85,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
           ? [`Earth-fixed: IAU 2006 precession, IAU 2000B nutation, Earth rotation angle; polar motion, dX, dY${req.ut1MinusUtc === undefined ? ' and UT1-UTC' : ''} from the IERS finals2000A table ${earthOrientation.firstDate} to ${earthOrientation.lastPredictedDate} (SHA-256 ${earthOrientation.tableDigest.slice(0, 16)}...)${req.ut1MinusUtc === undefined ? '' : `; UT1-UTC ${req.ut1MinusUtc} s`}`,
             ...(earthOrientation.warning ? [`WARNING ${earthOrientation.warning}`] : [])]
           : []),
-        'CREATION_DATE is the epoch of the initial state, so that one scenario always gives the same bytes',
+        ...(req.creationDate !== undefined ? [] : ['CREATION_DATE is the epoch of the initial state (no creationDate in the request), so that one scenario always gives the same bytes']),
       ],
     },
   };

@@ -19,6 +19,12 @@ import { toOrbitAnswer } from './orbit.js';
 const gmOf = (b: TwoBodyMember): number => b.gm ?? gmFromMass(b.mass!);
 const massOf = (b: TwoBodyMember): number => b.mass ?? massFromGm(b.gm!);
 const label = (b: TwoBodyMember, fallback: string): string => b.name ?? fallback;
+/**
+ * A sum of two inputs as printed: 15 significant digits, what a double carries of two addends
+ * (IEEE 754 binary64: 15.95 decimal digits), so 5.2e11 + 3.1e9 prints 523100000000, not the
+ * 523100000000.00006 that dividing the summed GMs by G leaves.
+ */
+const derivedSum = (x: number): number => (Number.isFinite(x) ? Number(x.toPrecision(15)) : x);
 
 /** The solver's bodies for a validated request (mass -> GM = G m). */
 export function twoBodySolverInput(req: TwoBodyRequest): [BodyState, BodyState] {
@@ -82,7 +88,7 @@ export function toTwoBodyAnswer(
       relativeUncertainty: GRAVITATIONAL_CONSTANT_RELATIVE_UNCERTAINTY,
       source: GRAVITATIONAL_CONSTANT_SOURCE,
     },
-    totalMass: massFromGm(red.totalGm),
+    totalMass: derivedSum(massOf(b1) + massOf(b2)),
     totalGm: red.totalGm,
     reducedMass: massFromGm(red.reducedGm),
     barycenter: { position: [...red.barycentre.r], velocity: [...red.barycentre.v] },

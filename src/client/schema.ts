@@ -425,15 +425,15 @@ export interface components {
                 /** @description GM, km^3/s^2 */
                 gm: number;
                 /** @description Mean motion about the Sun, deg/day (sun-synchronous test) */
-                heliocentricMeanMotion: number | null;
+                heliocentricMeanMotionDegPerDay: number | null;
                 /** @description J2, dimensionless */
                 j2: number | null;
                 name: string;
                 /** @description Mean equatorial radius, km */
                 radius: number | null;
-                /** @description Sidereal rotation rate, deg/s */
-                rotationRate: number | null;
-                /** @description Published source of each value, by field name */
+                /** @description Sidereal rotation rate, deg/day */
+                rotationRateDegPerDay: number | null;
+                /** @description Published source of each value, by field name (the publication, and its table or constant where it has one; "from memory" marks a value not checked against it) */
                 sources: {
                     [key: string]: string;
                 };
@@ -490,7 +490,7 @@ export interface components {
             theory: "SGP4";
         };
         /**
-         * @description The central body: a built-in name (default "earth") or an object with gm and optionally radius, j2, rotationRate, flattening
+         * @description The central body: a built-in name (default "earth") or an object with gm and optionally radius, j2, rotationRateDegPerDay, flattening
          * @default earth
          */
         CentralBody: ("sun" | "mercury" | "venus" | "earth" | "moon" | "mars" | "jupiter" | "saturn" | "uranus" | "neptune") | components["schemas"]["CustomBody"];
@@ -724,8 +724,8 @@ export interface components {
             name: string;
             /** @description Mean equatorial radius, km (needed for altitudes, impact checks and J2) */
             radius?: number;
-            /** @description Sidereal rotation rate, deg/s */
-            rotationRate?: number;
+            /** @description Sidereal rotation rate, deg/day (the rate of the prime-meridian angle W, as the IAU WGCCRE tables give it) */
+            rotationRateDegPerDay?: number;
         };
         /** @description With EOP_FILE set, on answers whose computation used the Earth orientation: the table used */
         EarthOrientationDiagnostics: {
@@ -854,12 +854,12 @@ export interface components {
             /** @description Search window (epochs in timeSystem, UTC by default), stop after start, at most 31 days */
             window: {
                 /**
-                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
+                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z or a zone offset +hh:mm / -hh:mm), rounded to the microsecond, years 1972-2199
                  * @example 2026-12-01T00:00:00Z
                  */
                 start: string;
                 /**
-                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
+                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z or a zone offset +hh:mm / -hh:mm), rounded to the microsecond, years 1972-2199
                  * @example 2026-12-01T00:00:00Z
                  */
                 stop: string;
@@ -962,7 +962,7 @@ export interface components {
             /** @description Eccentricity e >= 0 (0 circular, < 1 elliptic, 1 parabolic, > 1 hyperbolic) */
             eccentricity: number;
             /**
-             * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
+             * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z or a zone offset +hh:mm / -hh:mm), rounded to the microsecond, years 1972-2199
              * @example 2026-12-01T00:00:00Z
              */
             epoch: string;
@@ -987,7 +987,7 @@ export interface components {
         /** @description A Cartesian state at an epoch */
         InitialState: {
             /**
-             * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
+             * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z or a zone offset +hh:mm / -hh:mm), rounded to the microsecond, years 1972-2199
              * @example 2026-12-01T00:00:00Z
              */
             epoch: string;
@@ -1160,8 +1160,8 @@ export interface components {
                 name: string;
                 /** @description Mean equatorial radius, km */
                 radius: number | null;
-                /** @description Sidereal rotation rate, deg/s */
-                rotationRate: number | null;
+                /** @description Sidereal rotation rate, deg/day */
+                rotationRateDegPerDay: number | null;
             };
             /** @description With EOP_FILE set and an Earth-fixed input (itrf state, itrf or teme ephemeris nodes): the Earth orientation used */
             diagnostics?: components["schemas"]["SearchDiagnostics"];
@@ -1492,12 +1492,12 @@ export interface components {
             /** @description Search window (epochs in timeSystem, UTC by default), stop after start, at most 31 days */
             window: {
                 /**
-                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
+                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z or a zone offset +hh:mm / -hh:mm), rounded to the microsecond, years 1972-2199
                  * @example 2026-12-01T00:00:00Z
                  */
                 start: string;
                 /**
-                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199
+                 * @description Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z or a zone offset +hh:mm / -hh:mm), rounded to the microsecond, years 1972-2199
                  * @example 2026-12-01T00:00:00Z
                  */
                 stop: string;
@@ -1713,6 +1713,11 @@ export interface components {
         /** @description An orbit and a time grid */
         TrackRequest: {
             centralBody?: components["schemas"]["CentralBody"];
+            /**
+             * @description CCSDS OEM only: the CREATION_DATE written in the message header (UTC; part of the scenario, so it changes the hash). Absent: the epoch of the initial state is written, so that one scenario always gives the same bytes; other formats ignore it
+             * @example 2026-12-01T00:00:00Z
+             */
+            creationDate?: string;
             elements?: components["schemas"]["InitialElements"];
             ephemeris?: components["schemas"]["EphemerisOrbit"];
             /**
@@ -1911,7 +1916,7 @@ export interface components {
             scenarioHash: string;
             /** @description mu = G (m1 + m2), km^3/s^2: the gravitational parameter of the relative orbit */
             totalGm: number;
-            /** @description M = m1 + m2, kg (GM / G) */
+            /** @description M = m1 + m2, kg (each mass as given, or GM / G), printed to 15 significant digits */
             totalMass: number;
             /** @description null unless the request asked for a track */
             tracks: {

@@ -35,7 +35,7 @@ export const Epoch = z
     const problem = epochProblem(text, 'UTC');
     if (problem) ctx.addIssue(codedIssue(problem.code, problem.message));
   })
-  .describe('Epoch: ISO 8601 UTC timestamp ending in Z, fractional seconds allowed, years 1972-2199; leap seconds from the built-in table')
+  .describe('Epoch: ISO 8601 UTC timestamp ending in Z (or a zone offset +hh:mm / -hh:mm), fractional seconds allowed (rounded to the microsecond), years 1972-2199; leap seconds from the built-in table')
   .meta({ example: DEMO_EPOCH });
 
 /** The time system of the epochs of one request part; each part (state, elements, grid, window) names its own. */
@@ -46,7 +46,7 @@ export const TimeSystemField = z.enum(TIME_SYSTEMS).optional().describe(
 /** An epoch whose time system is named beside it: checked by refineEpochs on the enclosing object. */
 // Alone the text is checked as a date (as UTC when it carries a zone, else as zone-less calendar
 // text); refineEpochs then checks it in the part's own time system.
-const hasZone = (text: string): boolean => /(?:Z|[+-]00:00)$/.test(text);
+const hasZone = (text: string): boolean => /(?:Z|[+-]\d{2}:\d{2})$/.test(text);
 const epochTextProblem = (text: string) => epochProblem(text, hasZone(text) ? 'UTC' : 'TAI');
 /** True for a string EpochText accepts (a cheap test for long lists). */
 export const isEpochText = (value: unknown): boolean => typeof value === 'string' && value.length <= 64 && epochTextProblem(value) === undefined;
@@ -55,7 +55,7 @@ export const EpochText = z.string().max(64)
     const problem = epochTextProblem(text);
     if (problem) ctx.addIssue(codedIssue(problem.code, problem.message));
   })
-  .describe('Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z), years 1972-2199').meta({ example: DEMO_EPOCH });
+  .describe('Epoch as calendar text in the time system of this part (timeSystem; UTC by default: ISO 8601 ending in Z or a zone offset +hh:mm / -hh:mm), rounded to the microsecond, years 1972-2199').meta({ example: DEMO_EPOCH });
 
 /** Check the named epoch fields of an object in its timeSystem; issues carry the field's path. */
 export function refineEpochs(keys: readonly string[]) {

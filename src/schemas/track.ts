@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { TRACK_FORMATS, TRACK_FRAMES, type TrackFormat } from '../formats/track-output.js';
 import { TRACK_MODELS } from '../solver/propagation/track.js';
-import { DEMO_EPOCH, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
+import { DEMO_EPOCH, Epoch, UT1_MINUS_UTC, UT1_MINUS_UTC_TEXT } from './common.js';
 import { Force, modelFields, withDefaultModel } from './forces.js';
 import { TimeGrid } from './grid.js';
 import { InterpolationDiagnostics } from './ephemeris.js';
@@ -32,6 +32,7 @@ export const TrackRequest = z
       .describe('json | csv (RFC 4180, header row with units) | oem (CCSDS 502.0-B-3 KVN; gcrf, itrf or teme) | geojson (RFC 7946 ground track on WGS-84, split at the antimeridian; earth only, whatever the frame) | svg (the ground track on a world map; earth only, whatever the frame). ' +
         'Without it the Accept header chooses (application/json, text/csv, text/plain for OEM, application/geo+json, image/svg+xml); default json'),
     object: ObjectLabel.describe('Labels for the exported track'),
+    creationDate: Epoch.optional().describe('CCSDS OEM only: the CREATION_DATE written in the message header (UTC; part of the scenario, so it changes the hash). Absent: the epoch of the initial state is written, so that one scenario always gives the same bytes; other formats ignore it'),
     passThroughBody: z.boolean().default(false).describe('Propagate as a point mass even below the body radius; by default a track that meets the body is refused (422 impact)'),
   })
   .strict()

@@ -141,7 +141,7 @@ export const TwoBodyAnswer = z.object({
   epoch: EpochOut,
   frame: z.literal('gcrf'),
   gravitationalConstant: GravitationalConstant,
-  totalMass: z.number().describe('M = m1 + m2, kg (GM / G)'),
+  totalMass: z.number().describe('M = m1 + m2, kg (each mass as given, or GM / G), printed to 15 significant digits'),
   totalGm: z.number().describe('mu = G (m1 + m2), km^3/s^2: the gravitational parameter of the relative orbit'),
   reducedMass: z.number().describe('m1 m2 / (m1 + m2), kg'),
   barycenter: StateAbout.describe(

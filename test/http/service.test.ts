@@ -67,13 +67,26 @@ describe('service endpoints', () => {
     const names = bodies.map((b) => b.name);
     for (const n of ['sun', 'mercury', 'venus', 'earth', 'moon', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune']) expect(names).toContain(n);
     for (const b of bodies) {
-      for (const field of ['gm', 'radius', 'j2', 'rotationRate', 'flattening']) {
+      for (const field of ['gm', 'radius', 'j2', 'rotationRateDegPerDay', 'flattening', 'heliocentricMeanMotionDegPerDay']) {
         if (b[field] !== null) expect(b.sources[field], `${b.name}.${field} source`).toBeTruthy();
       }
+      // Every source names a field of the answer, and the GMs name their DE440 constant (or WGS 84's table).
+      for (const key of Object.keys(b.sources)) expect(Object.keys(b), `${b.name} source ${key}`).toContain(key);
+      expect(b.sources.gm, `${b.name}.gm source`).toMatch(/ephemeris constant GM[S1-9M]|Table 3\.1/);
+      // The value itself is checked (the remark on planetary systems after the colon is not).
+      expect(b.sources.gm!.split(': GM of the planetary system')[0]).not.toMatch(/from memory/);
     }
     const earth = bodies.find((b) => b.name === 'earth')!;
-    // WGS-84 / EGM-96 GM and WGS-84 equatorial radius (NIMA TR8350.2, 3rd ed., Table 3.1; from memory).
-    expect(earth.gm).toBeCloseTo(398600.4418, 4);
-    expect(earth.radius).toBeCloseTo(6378.137, 3);
+    // WGS 84 defining parameters (NIMA TR8350.2, 3rd ed., Table 3.1): GM = 3986004.418e8 m^3/s^2,
+    // a = 6378137.0 m, omega = 7292115.0e-11 rad/s, here in deg/day.
+    expect(earth.gm).toBe(398600.4418);
+    expect(earth.radius).toBe(6378.137);
+    expect(earth.rotationRateDegPerDay).toBeCloseTo(((7292115.0e-11 * 180) / Math.PI) * 86_400, 9);
+    // WGCCRE 2015 (Archinal et al. 2018) prime-meridian rates W, deg/day: printed as published.
+    const rate = (name: string) => bodies.find((x) => x.name === name)!.rotationRateDegPerDay;
+    expect([rate('mars'), rate('uranus'), rate('neptune'), rate('moon')]).toEqual([350.89198226, -501.1600928, 541.1397757, 13.17635815]);
+    // DE440 GMs (Park et al. 2021; the DE440 constants GMS and GM5), km^3/s^2.
+    expect(bodies.find((x) => x.name === 'sun')!.gm).toBe(132_712_440_041.279419);
+    expect(bodies.find((x) => x.name === 'jupiter')!.gm).toBe(126_712_764.1);
   });
 });

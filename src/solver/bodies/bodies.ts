@@ -1,6 +1,10 @@
-// Built-in central bodies, each value with the published source it comes from. Values marked
-// "from memory" were recalled, not copied from the document at hand: check them against the
-// source before relying on the last digits.
+// Built-in central bodies, each value with the published source it comes from, naming the table
+// or constant where the publication has one. Values marked "from memory" were recalled and not
+// checked against the publication or a copy of it: check them before relying on the last digits.
+// Checked (2026-12-02) against published copies of the constants: the DE440 GMs (the GM* constants
+// of the DE440 ephemeris), the WGS 84 defining parameters, the EGM96 C20, the IAU 2015 nominal
+// solar radius, the WGCCRE 2015 prime-meridian rates W and the radii of Mercury, Mars, Jupiter
+// and Saturn.
 
 import { DEG, SECONDS_PER_DAY, TWO_PI } from '../core/math.js';
 
@@ -12,7 +16,7 @@ export interface CentralBody {
   readonly rotationRateRadS?: number; // rad/s, sidereal; negative for retrograde spin
   readonly flattening?: number;
   readonly heliocentricMeanMotionRadS?: number; // rad/s, the body's mean motion about the Sun
-  readonly sources: Readonly<Record<string, string>>; // field name -> source text
+  readonly sources: Readonly<Record<string, string>>; // answer field name (GET /v1/bodies) -> source text
 }
 
 export const BODY_NAMES = ['sun', 'mercury', 'venus', 'earth', 'moon', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune'] as const;
@@ -26,8 +30,11 @@ const perDays = (days: number): number => TWO_PI / (days * SECONDS_PER_DAY);
 const flat = (equatorial: number, polar: number): number => 1 - polar / equatorial;
 
 const DE440 = 'JPL DE440 (Park et al. 2021, AJ 161:105)';
-const DE440_SYSTEM = `${DE440}: GM of the planetary system (planet + satellites); the planet alone is lighter by up to ~2.5e-4 relative (Jupiter, Saturn), from memory`;
+const de440 = (constant: string): string => `${DE440}, ephemeris constant ${constant}`;
+const de440System = (constant: string): string => `${de440(constant)}: GM of the planetary system (planet + satellites); the planet alone is lighter by up to ~2.5e-4 relative (Jupiter, Saturn), from memory`;
 const WGCCRE = 'IAU WGCCRE 2015 report (Archinal et al. 2018, Celest. Mech. Dyn. Astr. 130:22)';
+/** The prime-meridian rate of W = W0 + rate d of the WGCCRE tables (Table 1: Sun and planets, Table 2: the Moon; table numbers from memory). */
+const wRate = (table: 1 | 2, text: string): string => `${WGCCRE}, Table ${table}, W rate ${text} deg/day`;
 const FACT_SHEET = 'NASA GSFC planetary fact sheet';
 const J2_RADIUS = 'reference radius taken as the equatorial radius above';
 const SIDEREAL_PERIOD = `360 deg / sidereal orbital period`;
@@ -41,10 +48,10 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     rotationRateRadS: spin(14.184_4),
     flattening: 0,
     sources: {
-      gm: `${DE440}, from memory`,
+      gm: de440('GMS'),
       radius: 'IAU 2015 Resolution B3, nominal solar radius R_N = 695 700 km',
       j2: 'helioseismic estimate ~2.2e-7 (e.g. Mecheri et al. 2004, Solar Physics 222), from memory',
-      rotationRate: `${WGCCRE}, W rate 14.1844 deg/day (Carrington), from memory`,
+      rotationRateDegPerDay: wRate(1, '14.1844000 (Carrington)'),
       flattening: 'IAU 2015 Resolution B3 treats the nominal Sun as a sphere',
     },
   },
@@ -57,12 +64,12 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     flattening: flat(2_440.53, 2_438.26),
     heliocentricMeanMotionRadS: perDays(87.969),
     sources: {
-      gm: `${DE440}, from memory`,
-      radius: `${WGCCRE}, equatorial radius 2440.53 km, from memory`,
+      gm: de440('GM1'),
+      radius: `${WGCCRE}, radii of Mercury 2440.53 / 2438.26 km (as in NAIF pck00011)`,
       j2: `${FACT_SHEET} (J2 = 50.3e-6), from memory; ${J2_RADIUS}`,
-      rotationRate: `${WGCCRE}, W rate 6.1385108 deg/day, from memory`,
-      flattening: `${WGCCRE}, radii 2440.53 / 2438.26 km, from memory`,
-      heliocentricMeanMotion: `${SIDEREAL_PERIOD} 87.969 d (${FACT_SHEET}), from memory`,
+      rotationRateDegPerDay: wRate(1, '6.1385108'),
+      flattening: `${WGCCRE}, radii 2440.53 / 2438.26 km (as in NAIF pck00011)`,
+      heliocentricMeanMotionDegPerDay: `${SIDEREAL_PERIOD} 87.969 d (${FACT_SHEET}), from memory`,
     },
   },
   venus: {
@@ -74,12 +81,12 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     flattening: 0,
     heliocentricMeanMotionRadS: perDays(224.701),
     sources: {
-      gm: `${DE440}, from memory`,
+      gm: de440('GM2'),
       radius: `${WGCCRE}, radius 6051.8 km (sphere), from memory`,
       j2: `${FACT_SHEET} (J2 = 4.458e-6), from memory; ${J2_RADIUS}`,
-      rotationRate: `${WGCCRE}, W rate -1.4813688 deg/day (retrograde), from memory`,
+      rotationRateDegPerDay: wRate(1, '-1.4813688 (retrograde)'),
       flattening: `${WGCCRE}: Venus is modelled as a sphere`,
-      heliocentricMeanMotion: `${SIDEREAL_PERIOD} 224.701 d (${FACT_SHEET}), from memory`,
+      heliocentricMeanMotionDegPerDay: `${SIDEREAL_PERIOD} 224.701 d (${FACT_SHEET}), from memory`,
     },
   },
   earth: {
@@ -93,12 +100,12 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     flattening: 1 / 298.257_223_563,
     heliocentricMeanMotionRadS: perDays(365.242_2),
     sources: {
-      gm: 'WGS-84 / EGM-96, GM = 398600.4418 km^3/s^2 (NIMA TR8350.2, 3rd ed., defining parameters, table 3.1 from memory)',
-      radius: 'WGS-84 semi-major axis a = 6378.137 km (NIMA TR8350.2, 3rd ed., defining parameters)',
-      j2: 'EGM-96 (Lemoine et al. 1998, NASA/TP-1998-206861) normalised C20 = -0.484165371736e-3, J2 = -sqrt(5) C20 = 1.08262668e-3, from memory',
-      rotationRate: 'WGS-84 omega = 7.292115e-5 rad/s (NIMA TR8350.2, 3rd ed., defining parameters)',
-      flattening: 'WGS-84 1/f = 298.257223563 (NIMA TR8350.2, 3rd ed., defining parameters)',
-      heliocentricMeanMotion: '360 deg / 365.2422 d (tropical year: the mean Sun against the moving equinox), common practice',
+      gm: 'WGS 84 GM = 3986004.418e8 m^3/s^2 (NIMA TR8350.2, 3rd ed., Table 3.1, defining parameters; the GM of EGM96 too)',
+      radius: 'WGS 84 semi-major axis a = 6378137.0 m (NIMA TR8350.2, 3rd ed., Table 3.1, defining parameters)',
+      j2: 'EGM96 (Lemoine et al. 1998, NASA/TP-1998-206861), coefficient file: normalised C20 = -0.484165371736e-3; J2 = -sqrt(5) C20 = 1.08262668e-3 (the unnormalising factor: Vallado 4th ed. sec. 8.6.1, from memory)',
+      rotationRateDegPerDay: 'WGS 84 omega = 7292115.0e-11 rad/s (NIMA TR8350.2, 3rd ed., Table 3.1, defining parameters), in deg/day',
+      flattening: 'WGS 84 1/f = 298.257223563 (NIMA TR8350.2, 3rd ed., Table 3.1, defining parameters)',
+      heliocentricMeanMotionDegPerDay: '360 deg / 365.2422 d (tropical year: the mean Sun against the moving equinox), common practice',
     },
   },
   moon: {
@@ -111,10 +118,10 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     rotationRateRadS: spin(13.176_358_15),
     flattening: flat(1_738.1, 1_736.0),
     sources: {
-      gm: `${DE440}, from memory`,
+      gm: de440('GMM'),
       radius: `${FACT_SHEET}, equatorial radius 1738.1 km (the IAU mean sphere is 1737.4 km), from memory`,
       j2: `${FACT_SHEET} (J2 = 202.7e-6), from memory; ${J2_RADIUS}`,
-      rotationRate: `${WGCCRE}, W rate 13.17635815 deg/day, from memory`,
+      rotationRateDegPerDay: wRate(2, '13.17635815 (periodic terms left out)'),
       flattening: `${FACT_SHEET}, radii 1738.1 / 1736.0 km, from memory`,
     },
   },
@@ -127,12 +134,12 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     flattening: flat(3_396.19, 3_376.2),
     heliocentricMeanMotionRadS: perDays(686.98),
     sources: {
-      gm: DE440_SYSTEM,
-      radius: `${WGCCRE}, equatorial radius 3396.19 km, from memory`,
+      gm: de440System('GM4'),
+      radius: `${WGCCRE}, equatorial radius 3396.19 km`,
       j2: `${FACT_SHEET} (J2 = 1960.45e-6), from memory; ${J2_RADIUS}`,
-      rotationRate: `${WGCCRE}, W rate 350.89198226 deg/day, from memory`,
+      rotationRateDegPerDay: wRate(1, '350.89198226'),
       flattening: `${WGCCRE}, equatorial 3396.19 km, mean polar 3376.20 km, from memory`,
-      heliocentricMeanMotion: `${SIDEREAL_PERIOD} 686.980 d (${FACT_SHEET}), from memory`,
+      heliocentricMeanMotionDegPerDay: `${SIDEREAL_PERIOD} 686.980 d (${FACT_SHEET}), from memory`,
     },
   },
   jupiter: {
@@ -144,12 +151,12 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     flattening: flat(71_492, 66_854),
     heliocentricMeanMotionRadS: perDays(4_332.589),
     sources: {
-      gm: DE440_SYSTEM,
+      gm: de440System('GM5'),
       radius: `${WGCCRE}, 1-bar equatorial radius 71492 km`,
       j2: `${FACT_SHEET} (J2 = 14736e-6), from memory; ${J2_RADIUS}`,
-      rotationRate: `${WGCCRE}, System III W rate 870.536 deg/day, from memory`,
+      rotationRateDegPerDay: wRate(1, '870.5360000 (System III)'),
       flattening: `${WGCCRE}, radii 71492 / 66854 km`,
-      heliocentricMeanMotion: `${SIDEREAL_PERIOD} 4332.589 d (${FACT_SHEET}), from memory`,
+      heliocentricMeanMotionDegPerDay: `${SIDEREAL_PERIOD} 4332.589 d (${FACT_SHEET}), from memory`,
     },
   },
   saturn: {
@@ -161,12 +168,12 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     flattening: flat(60_268, 54_364),
     heliocentricMeanMotionRadS: perDays(10_759.22),
     sources: {
-      gm: DE440_SYSTEM,
-      radius: `${WGCCRE}, 1-bar equatorial radius 60268 km, from memory`,
+      gm: de440System('GM6'),
+      radius: `${WGCCRE}, 1-bar equatorial radius 60268 km`,
       j2: `${FACT_SHEET} (J2 = 16298e-6), from memory; ${J2_RADIUS}`,
-      rotationRate: `${WGCCRE}, System III W rate 810.7939024 deg/day, from memory`,
+      rotationRateDegPerDay: wRate(1, '810.7939024 (System III)'),
       flattening: `${WGCCRE}, radii 60268 / 54364 km, from memory`,
-      heliocentricMeanMotion: `${SIDEREAL_PERIOD} 10759.22 d (${FACT_SHEET}), from memory`,
+      heliocentricMeanMotionDegPerDay: `${SIDEREAL_PERIOD} 10759.22 d (${FACT_SHEET}), from memory`,
     },
   },
   uranus: {
@@ -179,10 +186,10 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     rotationRateRadS: spin(-501.160_092_8),
     flattening: flat(25_559, 24_973),
     sources: {
-      gm: DE440_SYSTEM,
+      gm: de440System('GM7'),
       radius: `${WGCCRE}, 1-bar equatorial radius 25559 km, from memory`,
       j2: `${FACT_SHEET} (J2 = 3343.43e-6), from memory; ${J2_RADIUS}`,
-      rotationRate: `${WGCCRE}, W rate -501.1600928 deg/day (retrograde), from memory`,
+      rotationRateDegPerDay: wRate(1, '-501.1600928 (retrograde)'),
       flattening: `${WGCCRE}, radii 25559 / 24973 km, from memory`,
     },
   },
@@ -191,16 +198,16 @@ export const BODIES: Readonly<Record<BodyName, CentralBody>> = {
     gm: 6_836_527.100_58,
     radius: 24_764,
     j2: 3_411e-6,
-    rotationRateRadS: spin(536.312_849_2),
+    rotationRateRadS: spin(541.139_775_7),
     flattening: flat(24_764, 24_341),
     heliocentricMeanMotionRadS: perDays(60_189),
     sources: {
-      gm: DE440_SYSTEM,
+      gm: de440System('GM8'),
       radius: `${WGCCRE}, 1-bar equatorial radius 24764 km, from memory`,
       j2: `${FACT_SHEET} (J2 = 3411e-6), from memory; ${J2_RADIUS}`,
-      rotationRate: `${WGCCRE}, W rate 536.3128492 deg/day (mean, periodic term left out), from memory`,
+      rotationRateDegPerDay: wRate(1, '541.1397757 (periodic term left out)'),
       flattening: `${WGCCRE}, radii 24764 / 24341 km, from memory`,
-      heliocentricMeanMotion: `${SIDEREAL_PERIOD} 60189 d (${FACT_SHEET}), from memory`,
+      heliocentricMeanMotionDegPerDay: `${SIDEREAL_PERIOD} 60189 d (${FACT_SHEET}), from memory`,
     },
   },
 };

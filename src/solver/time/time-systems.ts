@@ -10,7 +10,7 @@
 
 import { failure, success, type Outcome } from '../core/result.js';
 import {
-  civilDate, dayNumber, endsWithLeapSecond, FIRST_SUPPORTED_YEAR, LAST_SUPPORTED_YEAR, taiMinusUtc, TT_MINUS_TAI_S, ttFromUtc,
+  civilDate, dayNumber, endsWithLeapSecond, FIRST_SUPPORTED_YEAR, LAST_SUPPORTED_YEAR, taiMinusUtc, toUtcMinute, TT_MINUS_TAI_S, ttFromUtc, zoneOffsetMinutes,
 } from './time.js';
 
 export const TIME_SYSTEMS = ['UTC', 'TAI', 'TT', 'GPS'] as const;
@@ -31,13 +31,13 @@ export interface CalendarEpoch {
   readonly zulu: boolean;
 }
 
-const CALENDAR = /^(\d{4})-(?:(\d{2})-(\d{2})|(\d{3}))T(\d{2}):(\d{2}):(\d{2})(?:\.(\d+))?(Z|[+-]00:00)?$/;
+const CALENDAR = /^(\d{4})-(?:(\d{2})-(\d{2})|(\d{3}))T(\d{2}):(\d{2}):(\d{2})(?:\.(\d+))?(Z|[+-]\d{2}:\d{2})?$/;
 
 /** Read calendar text; `system` decides whether second 60 (UTC leap second) may occur. */
 export function parseCalendar(text: string, system: TimeSystem): Outcome<CalendarEpoch> {
   const m = CALENDAR.exec(text);
   if (!m) return failure('invalid-epoch', `"${text}" is not a calendar epoch like 2026-12-01T00:00:00 (or 2026-335T00:00:00)`);
-  const year = Number(m[1]);
+  let year = Number(m[1]);
   let day: number;
   if (m[4] !== undefined) {
     const doy = Number(m[4]);
@@ -52,17 +52,23 @@ export function parseCalendar(text: string, system: TimeSystem): Outcome<Calenda
   }
   const [hour, minute, sec] = [Number(m[5]), Number(m[6]), Number(m[7])];
   if (hour > 23 || minute > 59) return failure('invalid-epoch', `"${text}": time of day out of range`);
-  if (sec > 60 || (sec === 60 && !(system === 'UTC' && hour === 23 && minute === 59 && endsWithLeapSecond(day)))) {
+  if (m[9] !== undefined && system !== 'UTC') return failure('invalid-epoch', `"${text}": a zone (Z or an offset) means UTC; write ${system} epochs without it`);
+  // A UTC clock with an offset: the UTC day and minute (the seconds are the same).
+  const offset = m[9] === undefined ? 0 : zoneOffsetMinutes(m[9]);
+  if (offset === null) return failure('invalid-epoch', `"${text}": zone offset ${m[9]} is not +hh:mm with hh <= 23 and mm <= 59`);
+  const utc = toUtcMinute(day, hour * 60 + minute, offset);
+  day = utc.day;
+  if (sec > 60 || (sec === 60 && !(system === 'UTC' && utc.minuteOfDay === 1439 && endsWithLeapSecond(day)))) {
     return failure('invalid-epoch', `"${text}": second ${m[7]} exists only inside a UTC leap second`);
   }
-  if (m[9] !== undefined && system !== 'UTC') return failure('invalid-epoch', `"${text}": the zone letter Z means UTC; write ${system} epochs without it`);
+  if (offset !== 0) year = civilDate(day).year;
   if (year < FIRST_SUPPORTED_YEAR || year > LAST_SUPPORTED_YEAR) {
     return failure('epoch-out-of-range', `"${text}": epochs must lie in ${FIRST_SUPPORTED_YEAR}-${LAST_SUPPORTED_YEAR} (UTC before 1972 had no leap-second form)`);
   }
   const digits = m[8] ?? '';
   // Up to 9 digits are exact nanoseconds; beyond that the rest is rounded to the nanosecond.
   let nanos = digits.length <= 9 ? Number(digits.padEnd(9, '0')) : Math.round(Number(`0.${digits}`) * NANOS);
-  let second = hour * 3600 + minute * 60 + sec;
+  let second = utc.minuteOfDay * 60 + sec;
   if (nanos === NANOS) { nanos = 0; second += 1; }
   return success({ day, second, nanos, zulu: m[9] !== undefined });
 }

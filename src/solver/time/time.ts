@@ -103,9 +103,30 @@ export function utcFromTt(tt: number): { utcDay: number; secondOfDay: number } {
 /** TT of 2200-01-01T00:00:00Z: epochs at or after it are outside the supported range. */
 export const END_OF_SUPPORTED_RANGE_TT = ttFromUtc(dayNumber(LAST_SUPPORTED_YEAR + 1, 1, 1), 0);
 
-const ISO_UTC = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2}):(\d{2}(?:\.\d{1,9})?)(Z|[+-]00:00)$/;
+const ISO_UTC = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2}):(\d{2}(?:\.\d{1,9})?)(Z|([+-])(\d{2}):(\d{2}))$/;
 
-/** Parse an ISO 8601 UTC timestamp (`2026-12-01T00:00:00Z`, fractional seconds allowed) to TT seconds since J2000. */
+/**
+ * Minutes to subtract from a local clock reading with the zone suffix `Z` or `+hh:mm` / `-hh:mm`
+ * (ISO 8601 / RFC 3339 sec. 5.6) to get UTC; null for an offset that is not a clock offset.
+ */
+export function zoneOffsetMinutes(zone: string): number | null {
+  if (zone === 'Z') return 0;
+  const m = /^([+-])(\d{2}):(\d{2})$/.exec(zone);
+  if (!m || Number(m[2]) > 23 || Number(m[3]) > 59) return null;
+  return (m[1] === '-' ? -1 : 1) * (Number(m[2]) * 60 + Number(m[3]));
+}
+
+/**
+ * A local calendar day and minute of day with a zone offset -> the UTC day and minute of day
+ * (the seconds, up to 60 in a leap second, are the same in both).
+ */
+export function toUtcMinute(day: number, minuteOfDay: number, offsetMinutes: number): { day: number; minuteOfDay: number } {
+  const m = minuteOfDay - offsetMinutes;
+  const shift = Math.floor(m / 1440);
+  return { day: day + shift, minuteOfDay: m - shift * 1440 };
+}
+
+/** Parse an ISO 8601 UTC timestamp (`2026-12-01T00:00:00Z`, or with an offset `2026-12-01T01:00:00+01:00`; fractional seconds allowed) to TT seconds since J2000. */
 export function parseUtcIso(text: string): Outcome<number> {
   const m = ISO_UTC.exec(text);
   if (!m) return failure('invalid-epoch', `"${text}" is not an ISO 8601 UTC timestamp like 2026-12-01T00:00:00Z`);
@@ -115,13 +136,17 @@ export function parseUtcIso(text: string): Outcome<number> {
   const days = dayNumber(year, month, day);
   if (civilDate(days).day !== day || day < 1) return failure('invalid-epoch', `"${text}": day ${day} does not exist in ${year}-${m[2]}`);
   if (hour > 23 || minute > 59) return failure('invalid-epoch', `"${text}": time of day out of range`);
-  if (second >= 61 || (second >= 60 && !(hour === 23 && minute === 59 && endsWithLeapSecond(days)))) {
+  const offset = zoneOffsetMinutes(m[7]!);
+  if (offset === null) return failure('invalid-epoch', `"${text}": zone offset ${m[7]} is not +hh:mm with hh <= 23 and mm <= 59`);
+  const utc = toUtcMinute(days, hour * 60 + minute, offset);
+  if (second >= 61 || (second >= 60 && !(utc.minuteOfDay === 1439 && endsWithLeapSecond(utc.day)))) {
     return failure('invalid-epoch', `"${text}": second ${m[6]} exists only inside a leap second`);
   }
-  if (year < FIRST_SUPPORTED_YEAR || year > LAST_SUPPORTED_YEAR) {
-    return failure('epoch-out-of-range', `"${text}": epochs must lie in ${FIRST_SUPPORTED_YEAR}-${LAST_SUPPORTED_YEAR} (UTC before 1972 had no leap-second form)`);
+  const utcYear = civilDate(utc.day).year;
+  if (utcYear < FIRST_SUPPORTED_YEAR || utcYear > LAST_SUPPORTED_YEAR) {
+    return failure('epoch-out-of-range', `"${text}": epochs must lie in ${FIRST_SUPPORTED_YEAR}-${LAST_SUPPORTED_YEAR} UTC (UTC before 1972 had no leap-second form)`);
   }
-  return success(ttFromUtc(days, hour * 3600 + minute * 60 + second));
+  return success(ttFromUtc(utc.day, utc.minuteOfDay * 60 + second));
 }
 
 const pad = (n: number, width = 2): string => String(n).padStart(width, '0');
