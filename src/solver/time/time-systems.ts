@@ -52,7 +52,7 @@ export function parseCalendar(text: string, system: TimeSystem): Outcome<Calenda
   }
   const [hour, minute, sec] = [Number(m[5]), Number(m[6]), Number(m[7])];
   if (hour > 23 || minute > 59) return failure('invalid-epoch', `"${text}": time of day out of range`);
-  if (m[9] !== undefined && system !== 'UTC') return failure('invalid-epoch', `"${text}": a zone (Z or an offset) means UTC; write ${system} epochs without it`);
+  if (m[9] !== undefined && system !== 'UTC') return failure('invalid-epoch', `"${text}": the zone letter Z (or an offset) means UTC; write ${system} epochs without it`);
   // A UTC clock with an offset: the UTC day and minute (the seconds are the same).
   const offset = m[9] === undefined ? 0 : zoneOffsetMinutes(m[9]);
   if (offset === null) return failure('invalid-epoch', `"${text}": zone offset ${m[9]} is not +hh:mm with hh <= 23 and mm <= 59`);
