@@ -15,6 +15,7 @@ export const Config = z.object({
   MAX_TRACK_SAMPLES: int(100_000, 1, 10_000_000).describe('Largest number of samples in one track'),
   WORKER_THREADS: int(Math.max(1, availableParallelism() - 1), 1, 256).describe('Solver worker threads for heavy jobs (default: available parallelism minus one, at least 1)'),
   WORKER_MAX_HEAP_MB: int(1024, 16, 65_536).describe('Heap (V8 old generation), MiB, one solver worker thread may use; a task that needs more ends its thread: the request answers 503 worker-failed with Retry-After and a new thread takes its place'),
+  WORKER_NICE: int(10, 0, 19).describe('Linux: how much lower the scheduling priority (nice) of the solver worker threads is than that of the thread answering requests, 0-19, so that on a busy machine health checks and small answers get the CPU before long computations; 0: the same priority. Elsewhere, or where the system refuses, the threads keep the process priority'),
   WORKER_QUEUE_LIMIT: int(64, 0, 100_000).describe('Heavy jobs that may wait for a worker thread; beyond it requests answer 503 overloaded with Retry-After'),
   REDIS_URL: z.string().url().optional().describe('Shared Redis for the cache tier and job queue; unset = embedded only'),
   BATCH_MAX_ITEMS: int(1000, 1, 100_000).describe('Most items in one POST /v1/batch or POST /v1/jobs body; more answers 422 limit-exceeded'),

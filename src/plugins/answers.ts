@@ -5,6 +5,7 @@
 // queue). The computation belongs to the flight, not to the request that started it: a client that
 // goes away stops nothing, and every waiter gets the same answer, or the same failure.
 import { Readable } from 'node:stream';
+import { setImmediate as nextTurn } from 'node:timers/promises';
 import fp from 'fastify-plugin';
 import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import type { AnswerCache, CachedAnswer } from '../cache/types.js';
@@ -47,6 +48,27 @@ export type Formatter = () => StreamedAnswer;
 declare module 'fastify' {
   interface FastifyInstance {
     answers: AnswerService;
+  }
+}
+
+/** Milliseconds of formatting a streamed answer does before it lets the event loop turn. */
+export const SLICE_MS = 2;
+
+/**
+ * The chunks as bytes, read (and so formatted: the formatters are generators) in slices of about
+ * sliceMs: after each slice the reading waits one turn of the event loop (setImmediate), so that
+ * health checks and small requests are answered in between. Without it a socket that takes every
+ * chunk at once (loopback, a fast client: the writes complete synchronously) lets a
+ * 100,000-sample answer hold the loop for the whole of its formatting.
+ */
+export async function* inTurns(chunks: Iterable<string | Buffer>, sliceMs = SLICE_MS, now: () => number = () => performance.now()): AsyncGenerator<Buffer> {
+  let sliceStart = now();
+  for (const chunk of chunks) {
+    yield typeof chunk === 'string' ? Buffer.from(chunk) : chunk;
+    if (now() - sliceStart >= sliceMs) {
+      await nextTurn();
+      sliceStart = now();
+    }
   }
 }
 
@@ -98,13 +120,12 @@ export default fp(async function answers(app: FastifyInstance, opts: AnswersOpti
   const sendStored: AnswerService['sendStored'] = (_request, reply, hash, answer, cacheState) =>
     headers(reply, hash, cacheState, answer.contentType).send(answer.body);
 
-  /** Stream the chunks; keep a copy while it stays under maxStoredBytes and store it at the end. */
+  /** Stream the chunks (in turns of the event loop: inTurns); keep a copy while it stays under maxStoredBytes and store it at the end. */
   function streamAndStore(hash: string, answer: StreamedAnswer): Readable {
     async function* bytes(): AsyncGenerator<Buffer> {
       let kept: Buffer[] | undefined = [];
       let size = 0;
-      for (const chunk of answer.chunks) {
-        const buffer = typeof chunk === 'string' ? Buffer.from(chunk) : chunk;
+      for await (const buffer of inTurns(answer.chunks)) {
         size += buffer.length;
         if (kept && size <= maxStoredBytes) kept.push(buffer);
         else kept = undefined;

@@ -29,6 +29,7 @@ export default fp(async function pool(app: FastifyInstance) {
     threads: app.config.WORKER_THREADS,
     queueLimit: app.config.WORKER_QUEUE_LIMIT,
     maxHeapMb: app.config.WORKER_MAX_HEAP_MB,
+    nice: app.config.WORKER_NICE,
     onIdleWorkerError: (error) => app.log.error({ err: error }, 'solver worker thread died with no job in hand; a new one takes its place'),
     ...(deadlineS !== undefined ? { deadlineMs: deadlineS * 1000 } : {}),
   });

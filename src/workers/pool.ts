@@ -7,6 +7,7 @@
 import { createRequire } from 'node:module';
 import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
+import type { WorkerSettings } from './worker.js';
 import { fromWire, payloadTransfer, refusedBeforeWork, runJob, runsInline, type Job, type JobResult } from './jobs.js';
 
 /** The queue in front of the threads is full (or the pool is closing): try again later. */
@@ -52,6 +53,8 @@ export interface SolverPoolOptions {
   readonly deadlineMs?: number;
   /** Heap (V8 old generation), MiB, of each thread; a job that needs more ends its thread (WorkerDiedError). Unset: Node's default. */
   readonly maxHeapMb?: number;
+  /** Linux nice increment of each thread over the process (0-19; default 0: the process priority). */
+  readonly nice?: number;
   /** Told when a thread dies with no job in hand (piscina's 'error' event; unheard it would throw). */
   readonly onIdleWorkerError?: (error: unknown) => void;
 }
@@ -93,13 +96,14 @@ export class SolverPool {
   constructor(options: SolverPoolOptions) {
     if (!Number.isInteger(options.threads) || options.threads < 1) throw new RangeError('threads must be an integer >= 1');
     if (!Number.isInteger(options.queueLimit) || options.queueLimit < 0) throw new RangeError('queueLimit must be an integer >= 0');
+    if (options.nice !== undefined && !(Number.isInteger(options.nice) && options.nice >= 0 && options.nice <= 19)) throw new RangeError('nice must be an integer 0-19');
     this.#options = options;
   }
 
   /** Start the threads now rather than on the first heavy job. */
   start(): void {
     if (this.#closing || this.#piscina) return;
-    const { threads, queueLimit, closeTimeoutMs = 30_000, maxHeapMb, onIdleWorkerError } = this.#options;
+    const { threads, queueLimit, closeTimeoutMs = 30_000, maxHeapMb, nice = 0, onIdleWorkerError } = this.#options;
     this.#piscina = new Piscina({
       ...workerEntry(),
       minThreads: threads,
@@ -108,6 +112,7 @@ export class SolverPool {
       maxQueue: queueLimit,
       closeTimeout: closeTimeoutMs,
       recordTiming: false,
+      workerData: { nice } satisfies WorkerSettings,
       ...(maxHeapMb !== undefined ? { resourceLimits: { maxOldGenerationSizeMb: maxHeapMb } } : {}),
     });
     this.#piscina.on('error', (error: unknown) => onIdleWorkerError?.(error));

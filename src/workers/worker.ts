@@ -1,8 +1,48 @@
 // Worker-thread entry of the solver pool: runs one job (src/workers/jobs.ts) and sends the result
 // back in its wire form, the Float64Array buffers transferred rather than copied. Loads the solver
 // and the pool's transfer marker only: no HTTP stack, schemas or caches in the thread.
-import { move, transferableSymbol, valueSymbol } from 'piscina';
+// On start the thread lowers its own scheduling priority (Linux nice, per thread) by the pool's
+// `nice`, so that the thread answering requests gets the CPU first when both want it.
+import { readlinkSync } from 'node:fs';
+import { getPriority, setPriority } from 'node:os';
+import { move, transferableSymbol, valueSymbol, workerData } from 'piscina';
 import { runJob, toWire, type Job } from './jobs.js';
+
+/** What the pool tells each of its threads (piscina's workerData). */
+export interface WorkerSettings {
+  /** Nice increment of this thread over the process, 0-19. */
+  readonly nice: number;
+}
+
+/**
+ * This thread's kernel task id on Linux (/proc/thread-self names it: "<pid>/task/<tid>"), else
+ * undefined. On Linux every thread is a task with its own nice value: setpriority on the tid
+ * changes this thread only (man 2 setpriority, NOTES).
+ */
+function linuxThreadId(): number | undefined {
+  if (process.platform !== 'linux') return undefined;
+  try {
+    const tid = Number(readlinkSync('/proc/thread-self').split('/').pop());
+    return Number.isInteger(tid) && tid > 0 ? tid : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/** Lower this thread's priority by `nice` (capped at 19); where that cannot be done the thread keeps the process priority. */
+export function lowerThreadPriority(nice: number): number | undefined {
+  const tid = linuxThreadId();
+  if (tid === undefined || nice <= 0) return undefined;
+  try {
+    setPriority(tid, Math.min(19, getPriority(tid) + nice));
+    return getPriority(tid);
+  } catch {
+    return undefined;
+  }
+}
+
+const settings = workerData as WorkerSettings | undefined;
+if (settings) lowerThreadPriority(settings.nice);
 
 export default function solveJob(job: Job): unknown {
   const wire = toWire(job.kind, runJob(job));

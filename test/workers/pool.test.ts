@@ -1,3 +1,4 @@
+import { readdirSync, readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BODIES } from '../../src/solver/bodies/bodies.js';
 import { gcrfToItrfBatch } from '../../src/solver/earth/frames.js';
@@ -229,5 +230,41 @@ describe('SolverPool: inline jobs, failures and the bounded queue', () => {
     expect(after.analysis.ok).toBe(true);
     expect(timed.stats()).toMatchObject({ threads: 1, active: 0 });
     await timed.close();
+  });
+});
+
+/** Nice value of each thread (task) of this process, by task id: field 19 of /proc/self/task/<tid>/stat (proc(5)). */
+function threadNiceValues(): Map<number, number> {
+  const nice = new Map<number, number>();
+  for (const tid of readdirSync('/proc/self/task')) {
+    const stat = readFileSync(`/proc/self/task/${tid}/stat`, 'utf8');
+    // Fields after the command name (in parentheses, which may hold spaces): state is field 3, nice field 19.
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    nice.set(Number(tid), Number(fields[19 - 3]));
+  }
+  return nice;
+}
+
+describe.skipIf(process.platform !== 'linux')('solver threads run at a lower priority than the thread answering requests (Linux)', () => {
+  it('a pool with nice 7 starts its thread 7 below the process priority; this thread keeps its own', async () => {
+    const before = threadNiceValues();
+    const own = before.get(process.pid)!;
+    const expected = Math.min(19, own + 7);
+    const lowered = new SolverPool({ threads: 1, queueLimit: 1, nice: 7 });
+    try {
+      expect((await lowered.inWorker(trackJob(10))).ok).toBe(true);
+      const after = threadNiceValues();
+      const newThreads = [...after].filter(([tid]) => !before.has(tid));
+      // The worker thread and, from Node, a few helper threads may be new; the worker is among them at the lowered priority.
+      expect(newThreads.some(([, nice]) => nice === expected)).toBe(true);
+      expect(after.get(process.pid)).toBe(own);
+    } finally {
+      await lowered.close();
+    }
+  });
+
+  it('nice outside 0-19 is refused when the pool is made', () => {
+    expect(() => new SolverPool({ threads: 1, queueLimit: 1, nice: 20 })).toThrow(RangeError);
+    expect(() => new SolverPool({ threads: 1, queueLimit: 1, nice: -1 })).toThrow(RangeError);
   });
 });
