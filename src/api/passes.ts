@@ -105,9 +105,9 @@ function refractionOption(req: Omit<PassesRequest, 'format'>): { refraction?: Re
   return { refraction: { model: 'optical', pressureHpa: air.pressure, temperatureC: air.temperature } };
 }
 
-/** The /v1/passes answer for a finished search. */
-export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string, found: PassesJobResult, start: InitialState, earthOrientation?: EarthOrientationDiagnostics): PassesAnswer {
-  return {
+/** The /v1/passes answer for a finished search, in parts: its fields (passes empty, in its place) and pass i built on demand. */
+export function passesAnswerParts(req: Omit<PassesRequest, 'format'>, hash: string, found: PassesJobResult, start: InitialState, earthOrientation?: EarthOrientationDiagnostics): { head: PassesAnswer; count: number; pass: (i: number) => PassesAnswer['passes'][number] } {
+  const head: PassesAnswer = {
     scenarioHash: hash,
     model: req.model,
     window: { start: formatUtcIso(epochTT(req.window.start)), stop: formatUtcIso(epochTT(req.window.stop)) },
@@ -116,9 +116,18 @@ export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string,
     ...(req.refraction === 'optical'
       ? { refraction: { model: 'optical' as const, pressure: req.atmosphere?.pressure ?? BENNETT_PRESSURE_HPA, temperature: req.atmosphere?.temperature ?? BENNETT_TEMPERATURE_C } }
       : {}),
-    passes: found.passes.map((p, i) => toPassAnswer(p, found.light[i]!, req.pointing?.carrierFrequency,
-      found.sunAvoidance && req.sunAvoidance ? { result: found.sunAvoidance[i]!, limit: req.sunAvoidance.angle * DEG } : undefined)),
+    passes: [],
     ...(found.stopped ? { propagationStopped: { epoch: formatUtcIso(found.stopped.epochTT), code: found.stopped.code, reason: found.stopped.message } } : {}),
     ...searchDiagnostics(found, start, earthOrientation),
   };
+  const pass = (i: number): PassesAnswer['passes'][number] => toPassAnswer(found.passes[i]!, found.light[i]!, req.pointing?.carrierFrequency,
+    found.sunAvoidance && req.sunAvoidance ? { result: found.sunAvoidance[i]!, limit: req.sunAvoidance.angle * DEG } : undefined);
+  return { head, count: found.passes.length, pass };
+}
+
+/** The /v1/passes answer for a finished search, whole. */
+export function toPassesAnswer(req: Omit<PassesRequest, 'format'>, hash: string, found: PassesJobResult, start: InitialState, earthOrientation?: EarthOrientationDiagnostics): PassesAnswer {
+  const { head, count, pass } = passesAnswerParts(req, hash, found, start, earthOrientation);
+  // The spread keeps the key order: passes stays where the head has it.
+  return { ...head, passes: Array.from({ length: count }, (_, i) => pass(i)) };
 }

@@ -4,13 +4,13 @@ import { ProblemError, solverProblem } from '../errors.js';
 import { z } from 'zod';
 import { passesSvg, SVG_MEDIA_TYPE } from '../formats/svg/index.js';
 import { assertFinite } from '../api/finite.js';
-import { jsonAnswer } from '../plugins/answers.js';
+import { jsonAnswerInTurns } from '../plugins/answers.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
 import { initialState } from '../api/orbit.js';
 import { utcScenario } from '../api/epoch.js';
 import { earthOrientationDiagnostics, frameOptions, inputSpan, withTableDigest } from '../api/earth-orientation.js';
-import { passSearchJob, toPassesAnswer } from '../api/passes.js';
+import { passesAnswerParts, passSearchJob, toPassesAnswer } from '../api/passes.js';
 import { problemResponses } from '../schemas/common.js';
 import { PassesAnswer, PassesRequest } from '../schemas/passes.js';
 import { PLOT_FORMATS } from '../schemas/orbit.js';
@@ -58,9 +58,15 @@ const passes: FastifyPluginAsyncZod = async (app) => {
       const found = await app.pool.solve(job);
       if (!found.ok) throw solverProblem(found);
       const used = inputSpan(req, start.value).add(job.startTT).add(job.stopTT);
-      const answer = toPassesAnswer(req, hash, found.value, start.value, earthOrientationDiagnostics(eop, used, req.ut1MinusUtc));
-      assertFinite(answer); // the plots are drawn from the answer: the same check for both formats
-      return format === 'json' ? jsonAnswer(answer) : { contentType: SVG_MEDIA_TYPE, body: Buffer.from(passesSvg(answer.window, req.stations, answer.passes)) };
+      const eo = earthOrientationDiagnostics(eop, used, req.ut1MinusUtc);
+      if (format === 'json') {
+        // Built, checked and written in slices of the event loop: a month over a hundred stations is megabytes.
+        const { head, count, pass } = passesAnswerParts(req, hash, found.value, start.value, eo);
+        return jsonAnswerInTurns(head, 'passes', count, pass);
+      }
+      const answer = toPassesAnswer(req, hash, found.value, start.value, eo);
+      assertFinite(answer); // the plots are drawn from the answer: the same check as the JSON answer's
+      return { contentType: SVG_MEDIA_TYPE, body: Buffer.from(passesSvg(answer.window, req.stations, answer.passes)) };
     });
   });
 };
