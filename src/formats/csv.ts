@@ -43,15 +43,26 @@ export function* csvChunks(table: TrackTable, opts: CsvOptions = {}): Generator<
 
 /** Any table of numbers per epoch (values holds columns.length numbers per sample) as RFC 4180 CSV, in byte chunks. */
 export function* columnCsvChunks(epochsTT: Float64Array, values: Float64Array, columns: readonly CsvColumn[], opts: Pick<CsvOptions, 'epochDigits' | 'chunkChars'> = {}): Generator<Buffer> {
-  const width = columns.length;
+  yield csvHeader(columns);
+  yield* csvRecords(epochsTT, values, columns.map((c) => c.decimals), 0, epochsTT.length, opts);
+}
+
+/** The header row of a CSV table with these columns. */
+export const csvHeader = (columns: readonly CsvColumn[]): Buffer => Buffer.from(['epoch_utc', ...columns.map((c) => c.header)].join(',') + CRLF, 'latin1');
+
+/**
+ * The records of samples from..to-1 (values holds decimals.length numbers per sample): the same
+ * bytes whoever writes them, so a long table can be written in parts (src/formats/track-output.ts).
+ */
+export function* csvRecords(epochsTT: Float64Array, values: Float64Array, decimals: readonly number[], from: number, to: number, opts: Pick<CsvOptions, 'epochDigits' | 'chunkChars'> = {}): Generator<Buffer> {
+  const width = decimals.length;
   const n = epochsTT.length;
   if (values.length !== width * n) throw new RangeError(`table holds ${values.length} numbers for ${n} epochs of ${width} columns`);
+  if (!(0 <= from && from <= to && to <= n)) throw new RangeError(`records ${from}..${to} of ${n}`);
   const epochDigits = opts.epochDigits ?? EPOCH_FRACTION_DIGITS;
   checkDigits('epochDigits', epochDigits, 9);
-  const decimals = columns.map((c) => c.decimals);
   const out = new AsciiWriter(epochDigits, opts.chunkChars ?? 65_536);
-  out.text(['epoch_utc', ...columns.map((c) => c.header)].join(',') + CRLF);
-  for (let i = 0; i < n; i++) {
+  for (let i = from; i < to; i++) {
     out.utc(epochsTT[i]!).fixedRun(values, width * i, width, decimals, 44, true);
     out.char(13).char(10);
     if (out.full) yield out.take();

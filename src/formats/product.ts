@@ -2,5 +2,6 @@
 
 export interface Product {
   readonly contentType: string;
-  readonly chunks: Iterable<string | Buffer>;
+  /** In order; an async iterable when part of the answer is written elsewhere (a worker thread) meanwhile. */
+  readonly chunks: Iterable<string | Buffer> | AsyncIterable<string | Buffer>;
 }

@@ -2,14 +2,15 @@
 // order it needs, and the formatter with its columns. Routes call this and nothing else to format.
 import { assertFinite, assertFiniteTable } from '../api/finite.js';
 import { ProblemError } from '../errors.js';
-import { columnCsvChunks, csvChunks, CSV_MEDIA_TYPE } from './csv.js';
+import { CSV_HEADER, csvHeader, CSV_MEDIA_TYPE, type CsvColumn } from './csv.js';
 import { GEOJSON_MEDIA_TYPE, groundTrackGeoJson } from './geojson.js';
 import { groundTrackSvg, SVG_MEDIA_TYPE } from './svg/index.js';
 import { formatUtcIso } from '../solver/time/time.js';
 import { oemChunks, OEM_MEDIA_TYPE } from './oem.js';
 import type { Product } from './product.js';
-import { JSON_MEDIA_TYPE, STATE_COLUMNS, STATE_FIELDS, trackJsonChunks } from './track-json.js';
+import { JSON_MEDIA_TYPE, STATE_COLUMNS, STATE_FIELDS, TRACK_JSON_END, trackJsonHead } from './track-json.js';
 import { assertPrintable } from './track-table.js';
+import { trackRecords, type RecordsSpec } from './track-records.js';
 
 export const TRACK_FORMATS = [
   ['json', 'application/json'],
@@ -85,8 +86,43 @@ export interface TrackProductInput {
   readonly oem: { readonly creationEpochTT: number; readonly centerName: string; readonly comments: readonly string[] };
 }
 
-/** The track in its format; refuses (422) states that cannot be printed before anything is streamed. */
-export function trackProduct(t: TrackProductInput): Product {
+/**
+ * Writes records from..n-1 of a long track elsewhere (a worker thread) while this thread writes
+ * the first ones: resolves to their bytes, or rejects (they are then written here).
+ */
+export type TailWriter = (spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number) => Promise<Buffer>;
+
+/** Tracks of at least this many samples are written in two parts, the second by a TailWriter. */
+export const SPLIT_MIN_SAMPLES = 20_000;
+/** The share of the samples this thread writes (it also writes the answer to the socket). */
+const MAIN_SHARE = 0.45;
+
+/** Header, records and closing of a CSV or JSON track: the records from..n-1 by tail when given and the track is long. */
+function splitChunks(head: Buffer, spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, end: Buffer | null, tail: TailWriter | undefined): Iterable<Buffer> | AsyncIterable<Buffer> {
+  const n = epochsTT.length;
+  if (!tail || n < SPLIT_MIN_SAMPLES) {
+    return (function* () {
+      yield head;
+      yield* trackRecords(spec, epochsTT, values, 0, n);
+      if (end) yield end;
+    })();
+  }
+  const from = Math.floor(n * MAIN_SHARE);
+  // Started now, so the other thread writes while this one does; written here if it cannot.
+  const rest = tail(spec, epochsTT, values, from).catch(() => Buffer.concat([...trackRecords(spec, epochsTT, values, from, n)]));
+  return (async function* () {
+    yield head;
+    yield* trackRecords(spec, epochsTT, values, 0, from);
+    yield await rest;
+    if (end) yield end;
+  })();
+}
+
+const csvSpec = (columns: readonly CsvColumn[]): RecordsSpec => ({ format: 'csv', decimals: columns.map((c) => c.decimals) });
+const STATE_CSV: readonly CsvColumn[] = CSV_HEADER.split(',').slice(1).map((header, i) => ({ header, decimals: i < 3 ? 6 : 9 }));
+
+/** The track in its format; refuses (422) states that cannot be printed before anything is streamed. A long CSV or JSON track is written in two parts when tail is given (the same bytes). */
+export function trackProduct(t: TrackProductInput, tail?: TailWriter): Product {
   assertFinite(t.head);
   const geodetic = t.frame === 'geodetic' || isGroundTrack(t.format);
   // The numbers printed, checked before anything streams (a formatter that throws mid-answer can only cut it short).
@@ -106,11 +142,11 @@ export function trackProduct(t: TrackProductInput): Product {
       const n = t.epochsTT.length;
       return { contentType: SVG_MEDIA_TYPE, chunks: [groundTrackSvg(samples, { name: t.object.name, startLabel: label(t.epochsTT[0]!), endLabel: label(t.epochsTT[n - 1]!) })] };
     }
-    if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: columnCsvChunks(t.epochsTT, g, GEODETIC_CSV) };
-    return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(t.head, t.epochsTT, g, GEODETIC_FIELDS) };
+    if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: splitChunks(csvHeader(GEODETIC_CSV), csvSpec(GEODETIC_CSV), t.epochsTT, g, null, tail) };
+    return { contentType: JSON_MEDIA_TYPE, chunks: splitChunks(trackJsonHead(t.head), { format: 'json', fields: GEODETIC_FIELDS }, t.epochsTT, g, TRACK_JSON_END, tail) };
   }
   const table = { epochsTT: t.epochsTT, states: t.states };
-  if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: csvChunks(table) };
+  if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: splitChunks(csvHeader(STATE_CSV), csvSpec(STATE_CSV), t.epochsTT, t.states, null, tail) };
   if (t.format === 'oem') {
     return {
       contentType: OEM_MEDIA_TYPE,
@@ -125,5 +161,5 @@ export function trackProduct(t: TrackProductInput): Product {
       }),
     };
   }
-  return { contentType: JSON_MEDIA_TYPE, chunks: trackJsonChunks(t.head, t.epochsTT, t.states, STATE_FIELDS) };
+  return { contentType: JSON_MEDIA_TYPE, chunks: splitChunks(trackJsonHead(t.head), { format: 'json', fields: STATE_FIELDS }, t.epochsTT, t.states, TRACK_JSON_END, tail) };
 }

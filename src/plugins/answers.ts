@@ -61,9 +61,9 @@ export const SLICE_MS = 2;
  * chunk at once (loopback, a fast client: the writes complete synchronously) lets a
  * 100,000-sample answer hold the loop for the whole of its formatting.
  */
-export async function* inTurns(chunks: Iterable<string | Buffer>, sliceMs = SLICE_MS, now: () => number = () => performance.now()): AsyncGenerator<Buffer> {
+export async function* inTurns(chunks: Iterable<string | Buffer> | AsyncIterable<string | Buffer>, sliceMs = SLICE_MS, now: () => number = () => performance.now()): AsyncGenerator<Buffer> {
   const slices = new Slices(sliceMs, now);
-  for (const chunk of chunks) {
+  for await (const chunk of chunks) {
     yield typeof chunk === 'string' ? Buffer.from(chunk) : chunk;
     if (slices.due()) await slices.turn();
   }

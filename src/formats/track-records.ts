@@ -1,0 +1,16 @@
+// The records (one per sample) of CSV and JSON tracks, from any sample to any other: the same
+// bytes whoever writes them, so a long track can be written in two parts at once, the last
+// records on a worker thread (src/workers/jobs.ts, job kind 'records') while the main thread
+// writes the first. Imports the two formatters only (the worker thread loads this module).
+import { csvRecords } from './csv.js';
+import { trackJsonRecords, type JsonField } from './track-json.js';
+
+/** The records of a CSV or JSON track, as plain data a worker thread can take. */
+export type RecordsSpec =
+  | { readonly format: 'csv'; readonly decimals: readonly number[] }
+  | { readonly format: 'json'; readonly fields: readonly JsonField[] };
+
+/** Records from..to-1 of a CSV or JSON track; afterFirst: they follow records written elsewhere (JSON: a comma before the first). */
+export function trackRecords(spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number, to: number, afterFirst = false): Generator<Buffer> {
+  return spec.format === 'csv' ? csvRecords(epochsTT, values, spec.decimals, from, to) : trackJsonRecords(epochsTT, values, spec.fields, from, to, undefined, afterFirst);
+}
