@@ -37,9 +37,11 @@ export function* csvChunks(table: TrackTable, opts: CsvOptions = {}): Generator<
   const vd = opts.velocityDecimals ?? 9;
   checkDigits('positionDecimals', pd, 20);
   checkDigits('velocityDecimals', vd, 20);
-  const columns = CSV_HEADER.split(',').slice(1).map((header, i) => ({ header, decimals: i < 3 ? pd : vd }));
-  yield* columnCsvChunks(table.epochsTT, table.states, columns, opts);
+  yield* columnCsvChunks(table.epochsTT, table.states, stateCsvColumns(pd, vd), opts);
 }
+
+/** The state columns of CSV_HEADER: positions with pd decimals (km), velocities with vd (km/s). */
+export const stateCsvColumns = (pd = 6, vd = 9): CsvColumn[] => CSV_HEADER.split(',').slice(1).map((header, i) => ({ header, decimals: i < 3 ? pd : vd }));
 
 /** Any table of numbers per epoch (values holds columns.length numbers per sample) as RFC 4180 CSV, in byte chunks. */
 export function* columnCsvChunks(epochsTT: Float64Array, values: Float64Array, columns: readonly CsvColumn[], opts: Pick<CsvOptions, 'epochDigits' | 'chunkChars'> = {}): Generator<Buffer> {

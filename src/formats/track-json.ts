@@ -38,7 +38,7 @@ export function trackJsonHead(head: Record<string, unknown>): Buffer {
 export const TRACK_JSON_END = Buffer.from(']}', 'latin1');
 
 /** Numbers per sample the fields read. */
-export const fieldsWidth = (fields: readonly JsonField[]): number => fields.reduce((w, f) => Math.max(w, f.from + f.count), 0);
+const fieldsWidth = (fields: readonly JsonField[]): number => fields.reduce((w, f) => Math.max(w, f.from + f.count), 0);
 
 /**
  * The sample objects of samples from..to-1, each after a comma but the answer's first (sample 0,

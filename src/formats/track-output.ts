@@ -2,7 +2,7 @@
 // order it needs, and the formatter with its columns. Routes call this and nothing else to format.
 import { assertFinite, assertFiniteTable } from '../api/finite.js';
 import { ProblemError } from '../errors.js';
-import { CSV_HEADER, csvHeader, CSV_MEDIA_TYPE, type CsvColumn } from './csv.js';
+import { csvHeader, CSV_MEDIA_TYPE, stateCsvColumns, type CsvColumn } from './csv.js';
 import { GEOJSON_MEDIA_TYPE, groundTrackGeoJson } from './geojson.js';
 import { groundTrackSvg, SVG_MEDIA_TYPE } from './svg/index.js';
 import { formatUtcIso } from '../solver/time/time.js';
@@ -119,7 +119,7 @@ function splitChunks(head: Buffer, spec: RecordsSpec, epochsTT: Float64Array, va
 }
 
 const csvSpec = (columns: readonly CsvColumn[]): RecordsSpec => ({ format: 'csv', decimals: columns.map((c) => c.decimals) });
-const STATE_CSV: readonly CsvColumn[] = CSV_HEADER.split(',').slice(1).map((header, i) => ({ header, decimals: i < 3 ? 6 : 9 }));
+const STATE_CSV: readonly CsvColumn[] = stateCsvColumns();
 
 /** The track in its format; refuses (422) states that cannot be printed before anything is streamed. A long CSV or JSON track is written in two parts when tail is given (the same bytes). */
 export function trackProduct(t: TrackProductInput, tail?: TailWriter): Product {

@@ -10,6 +10,7 @@ import fp from 'fastify-plugin';
 import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import type { AnswerCache, CachedAnswer } from '../cache/types.js';
 import type { Product } from '../formats/product.js';
+import { JSON_MEDIA_TYPE } from '../formats/track-json.js';
 import { scenarioHash, type ScenarioKind } from '../scenario/hash.js';
 import { assertFinite } from '../api/finite.js';
 
@@ -135,7 +136,7 @@ export async function jsonAnswerInTurns<T>(head: object, key: string, count: num
     text += ']';
   }
   parts.push(Buffer.from(`${text}}`));
-  return { body: Buffer.concat(parts), contentType: JSON_CONTENT_TYPE };
+  return { body: Buffer.concat(parts), contentType: JSON_MEDIA_TYPE };
 }
 
 export const etagOf = (hash: string): string => `"${hash}"`;
@@ -147,12 +148,10 @@ export function ifNoneMatchHits(header: string | undefined, hash: string): boole
   return header.split(',').some((tag) => tag.trim().replace(/^W\//, '') === etagOf(hash));
 }
 
-const JSON_CONTENT_TYPE = 'application/json; charset=utf-8';
-
 /** A JSON answer's bytes; refuses (422 non-finite-result, naming the field) a value JSON would print as null. */
 export function jsonAnswer(value: unknown): CachedAnswer {
   assertFinite(value);
-  return { body: Buffer.from(JSON.stringify(value)), contentType: JSON_CONTENT_TYPE };
+  return { body: Buffer.from(JSON.stringify(value)), contentType: JSON_MEDIA_TYPE };
 }
 
 export interface AnswersOptions {

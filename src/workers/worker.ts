@@ -30,14 +30,13 @@ function linuxThreadId(): number | undefined {
 }
 
 /** Lower this thread's priority by `nice` (capped at 19); where that cannot be done the thread keeps the process priority. */
-export function lowerThreadPriority(nice: number): number | undefined {
+function lowerThreadPriority(nice: number): void {
   const tid = linuxThreadId();
-  if (tid === undefined || nice <= 0) return undefined;
+  if (tid === undefined || nice <= 0) return;
   try {
     setPriority(tid, Math.min(19, getPriority(tid) + nice));
-    return getPriority(tid);
   } catch {
-    return undefined;
+    // Refused (a limit on nice values, a sandbox): the thread keeps the process priority.
   }
 }
 
