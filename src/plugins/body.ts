@@ -4,12 +4,15 @@
 //   any string (or key) holding a lone UTF-16 surrogate answers 400 validation-failed with its
 //   path: such text has no UTF-8 form, cannot be canonicalised for the scenario hash and would
 //   reach every free-text field (names, ids, labels, unit labels, batch items).
-// - A body not received within BODY_TIMEOUT_S answers 408 request-timeout and the connection closes.
+// - A body not received within BODY_TIMEOUT_S answers 408 request-timeout and the connection closes
+//   (no timer when the whole body is already in memory: it cannot stall).
+// - A shortcut (app.bodyShortcut: the request memo, src/plugins/memo.ts) may take the body text
+//   before it is scanned and parsed: a request whose exact bytes were answered before skips both.
 // - Request ids: a client's x-request-id is kept when it is short and plain, else replaced.
 import { randomBytes } from 'node:crypto';
 import type { IncomingMessage } from 'node:http';
 import fp from 'fastify-plugin';
-import type { FastifyInstance } from 'fastify';
+import type { FastifyInstance, FastifyRequest } from 'fastify';
 import { ProblemError, type FieldIssue } from '../errors.js';
 import { MAX_LISTED_ISSUES } from '../schemas/list.js';
 
@@ -90,19 +93,44 @@ export function requestIds(): (req: IncomingMessage) => string {
   };
 }
 
+/**
+ * Takes a JSON body's text before it is scanned and parsed: resolves true when it has answered for
+ * the request (the request then carries what to send, and the body given to the route is
+ * SHORTCUT_BODY, never validated), false to let the body be parsed as usual.
+ */
+export type BodyShortcut = (request: FastifyRequest, text: string) => Promise<boolean>;
+
+/** The parsed body of a request a BodyShortcut took: the hook that answers it runs before validation. */
+export const SHORTCUT_BODY: unique symbol = Symbol('body taken by a shortcut');
+
+/** True when the whole body (a Content-Length body) is already in the request stream's buffer. */
+function bodyInMemory(raw: IncomingMessage): boolean {
+  const length = raw.headers['content-length'];
+  return length !== undefined && raw.headers['transfer-encoding'] === undefined && raw.readableLength >= Number(length);
+}
+
 export default fp(async function body(app: FastifyInstance) {
   const maxDepth = app.config.MAX_JSON_DEPTH;
   const bodyTimeoutMs = app.config.BODY_TIMEOUT_S * 1000;
   const parseJson = app.getDefaultJsonParser('error', 'error');
 
-  // The body text as received, for the request memo (src/plugins/memo.ts) once it parsed cleanly.
-  app.decorateRequest('bodyText', null);
+  app.decorate('bodyShortcut', null);
   // JSON only: fastify's own text/plain parser would hand a string to the schema (a 400 "expected
   // object"); without it a text body is 415 unsupported-media-type like any other type.
   app.removeContentTypeParser('text/plain');
   app.removeContentTypeParser('application/json');
   app.addContentTypeParser('application/json', { parseAs: 'string' }, (request, text, done) => {
     const json = text as string;
+    const shortcut = app.bodyShortcut;
+    if (shortcut === null) return parse(request, json, done);
+    shortcut(request, json).then(
+      (taken) => (taken ? done(null, SHORTCUT_BODY) : parse(request, json, done)),
+      (error: unknown) => done(error instanceof Error ? error : new Error(String(error)), undefined),
+    );
+  });
+
+  /** The depth scan, the parse and the surrogate check of a JSON body. */
+  function parse(request: FastifyRequest, json: string, done: (error: Error | null, value?: unknown) => void): void {
     if (jsonDepth(json, maxDepth) > maxDepth) {
       done(new ProblemError('json-too-deep', `objects and arrays are nested deeper than ${maxDepth} levels (MAX_JSON_DEPTH)`), undefined);
       return;
@@ -116,13 +144,13 @@ export default fp(async function body(app: FastifyInstance) {
           return done(new ProblemError('validation-failed', `The request does not match the schema: text with a lone UTF-16 surrogate at ${summary}`, { errors }), undefined);
         }
       }
-      request.bodyText = json;
       done(null, value);
     });
-  });
+  }
 
   // A body that stalls is cut off: the stream ends in a 408 problem and the connection closes.
   app.addHook('preParsing', async (request, _reply, payload) => {
+    if (payload === request.raw && bodyInMemory(request.raw)) return payload;
     // The reader (fastify's body collector) is told by an 'error' event, not by destroying the
     // stream: destroying it would close the socket before the 408 is written. The answer then
     // carries `connection: close`.
@@ -142,8 +170,8 @@ export default fp(async function body(app: FastifyInstance) {
 }, { name: 'body' });
 
 declare module 'fastify' {
-  interface FastifyRequest {
-    /** The JSON body's text when it parsed cleanly (null otherwise). */
-    bodyText: string | null;
+  interface FastifyInstance {
+    /** Set by the request memo when it is on; null otherwise. */
+    bodyShortcut: BodyShortcut | null;
   }
 }

@@ -2,16 +2,18 @@
 // before (route, body text, and the headers an answer depends on) is answered from the cache under
 // the scenario hash remembered for them, before the body is validated, canonicalised and hashed.
 // The key check, rate limits and overload refusals run first (onRequest hooks): the memo is looked
-// up only in preValidation. The key holds the caller's key id, the media types asked and the
-// encodings accepted, so a memo entry serves only the request that made it. Only 200 answers of the
-// answer pipeline (their ETag is the scenario hash) are remembered, under the solver version in
-// force (src/cache/request-memo.ts); a remembered hash whose answer is no longer cached falls
-// through to the full path. If-None-Match is honoured on the fast path as on the full one.
+// up when the body's text has arrived, before it is scanned for depth and parsed (app.bodyShortcut,
+// src/plugins/body.ts), and a hit is answered in preValidation. The key holds the caller's key id,
+// the media types asked and the encodings accepted, so a memo entry serves only the request that
+// made it. Only 200 answers of the answer pipeline (their ETag is the scenario hash) are
+// remembered, under the solver version in force (src/cache/request-memo.ts); a remembered hash
+// whose answer is no longer cached falls through to the full path (the body is then parsed). If-None-Match is honoured on the fast path as on the full one.
 import fp from 'fastify-plugin';
 import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import { memoKey, RequestMemo } from '../cache/request-memo.js';
 import { SOLVER_VERSION } from '../solver/core/version.js';
 import { etagOf, ifNoneMatchHits } from './answers.js';
+import type { CachedAnswer } from '../cache/types.js';
 
 /** The routes answered through app.answers (their 200 answers carry the scenario hash as ETag). */
 export const MEMO_ROUTES = new Set(['/v1/orbit', '/v1/track', '/v1/passes', '/v1/eclipses', '/v1/two-body', '/v1/central-force']);
@@ -51,21 +53,31 @@ export default fp(async function memo(app: FastifyInstance, opts: MemoOptions) {
   } });
   app.decorate('requestMemo', memo);
   app.decorateRequest('memoKey', null);
+  app.decorateRequest('memoAnswer', null);
 
-  app.addHook('preValidation', async (request: FastifyRequest, reply: FastifyReply) => {
-    const body = request.bodyText;
-    if (request.method !== 'POST' || body === null || !MEMO_ROUTES.has(request.routeOptions.url ?? '') || !memo.fits(body.length + 1024)) return;
+  // The body's text, before it is parsed: a remembered request takes its answer here (or its 304).
+  app.bodyShortcut = async (request: FastifyRequest, body: string): Promise<boolean> => {
+    if (request.method !== 'POST' || !MEMO_ROUTES.has(request.routeOptions.url ?? '') || !memo.fits(body.length + 1024)) return false;
     const key = requestKey(request, body);
     request.memoKey = key;
     const hash = memo.get(key);
-    if (hash === undefined) return;
+    if (hash === undefined) return false;
     if (ifNoneMatchHits(request.headers['if-none-match'], hash)) {
-      reply.code(304).header('etag', etagOf(hash)).send();
-      return reply;
+      request.memoAnswer = { hash, stored: null };
+      return true;
     }
     const stored = await app.answers.cache.get(hash);
-    if (!stored) return; // evicted: the full path solves and stores it again
-    app.answers.sendStored(request, reply, hash, stored, 'hit');
+    if (!stored) return false; // evicted: the body is parsed and the full path solves and stores it again
+    request.memoAnswer = { hash, stored };
+    return true;
+  };
+
+  // Before validation: the body of a request taken above is not a scenario (SHORTCUT_BODY).
+  app.addHook('preValidation', async (request: FastifyRequest, reply: FastifyReply) => {
+    const hit = request.memoAnswer;
+    if (!hit) return; // null, or undefined on routes registered before this plugin (/docs)
+    if (hit.stored === null) reply.code(304).header('etag', etagOf(hit.hash)).send();
+    else app.answers.sendStored(request, reply, hit.hash, hit.stored, 'hit');
     return reply;
   });
 
@@ -87,5 +99,7 @@ declare module 'fastify' {
   interface FastifyRequest {
     /** This request's memo key, when it was looked up. */
     memoKey: string | null;
+    /** The answer the memo found for this request (stored null: a 304), when it found one. */
+    memoAnswer: { readonly hash: string; readonly stored: CachedAnswer | null } | null;
   }
 }

@@ -6,6 +6,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { newKey } from '../../src/auth/keys.js';
+import { SHORTCUT_BODY } from '../../src/plugins/body.js';
+import { buildApp } from '../../src/app.js';
 import { testApp } from '../helpers/app.js';
 import { DEMO_ORBIT, EPOCH } from '../helpers/demo.js';
 
@@ -31,6 +33,22 @@ describe('request memo, open service', () => {
     expect(second.rawPayload.equals(first.rawPayload)).toBe(true);
     for (const h of ['etag', 'content-location', 'content-type', 'content-length']) expect(second.headers[h], h).toBe(first.headers[h]);
     expect(second.headers['x-cache']).toBe('hit');
+  });
+
+  it('a memo hit takes the body before it is parsed: the route never sees a scenario, the answer is the same', async () => {
+    const probe = await buildApp({ logger: false, config: { RATE_LIMIT_PER_MIN: 0, RATE_LIMIT_HEAVY_PER_MIN: 0, MAX_EVENT_LOOP_DELAY_MS: 0 } });
+    const bodies: unknown[] = [];
+    probe.addHook('onResponse', async (request) => { bodies.push(request.body); });
+    await probe.ready();
+    try {
+      const first = await send(probe, '/v1/orbit', ORBIT);
+      const second = await send(probe, '/v1/orbit', ORBIT);
+      expect(second.rawPayload.equals(first.rawPayload)).toBe(true);
+      expect(bodies[0]).toEqual(DEMO_ORBIT); // parsed on the full path
+      expect(bodies[1]).toBe(SHORTCUT_BODY); // taken by the memo, never parsed nor validated
+    } finally {
+      await probe.close();
+    }
   });
 
   it('a body that differs only in spacing or key order is not a memo hit, but the same scenario (cache hit, same bytes)', async () => {
