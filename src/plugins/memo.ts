@@ -7,7 +7,8 @@
 // the media types asked and the encodings accepted, so a memo entry serves only the request that
 // made it. Only 200 answers of the answer pipeline (their ETag is the scenario hash) are
 // remembered, under the solver version in force (src/cache/request-memo.ts); a remembered hash
-// whose answer is no longer cached falls through to the full path (the body is then parsed). If-None-Match is honoured on the fast path as on the full one.
+// whose answer is no longer cached falls through to the full path (the body is then parsed).
+// If-None-Match is honoured on the fast path as on the full one.
 import fp from 'fastify-plugin';
 import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import { memoKey, RequestMemo } from '../cache/request-memo.js';

@@ -6,8 +6,9 @@ import { buildApp, type BuildOptions } from '../../src/app.js';
  * test sets them (test/http/limits.test.ts and edge.test.ts do): a test that holds the loop on
  * purpose must not make the next test's request a 503.
  */
-export async function testApp(options: BuildOptions = {}): Promise<FastifyInstance> {
+export async function testApp(options: BuildOptions = {}, beforeReady?: (app: FastifyInstance) => void): Promise<FastifyInstance> {
   const app = await buildApp({ logger: false, ...options, config: { RATE_LIMIT_PER_MIN: 0, RATE_LIMIT_HEAVY_PER_MIN: 0, MAX_EVENT_LOOP_DELAY_MS: 0, ...options.config } });
+  beforeReady?.(app); // hooks a test adds (they cannot be added once the app is ready)
   await app.ready();
   return app;
 }

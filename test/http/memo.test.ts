@@ -7,7 +7,6 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { newKey } from '../../src/auth/keys.js';
 import { SHORTCUT_BODY } from '../../src/plugins/body.js';
-import { buildApp } from '../../src/app.js';
 import { testApp } from '../helpers/app.js';
 import { DEMO_ORBIT, EPOCH } from '../helpers/demo.js';
 
@@ -36,10 +35,8 @@ describe('request memo, open service', () => {
   });
 
   it('a memo hit takes the body before it is parsed: the route never sees a scenario, the answer is the same', async () => {
-    const probe = await buildApp({ logger: false, config: { RATE_LIMIT_PER_MIN: 0, RATE_LIMIT_HEAVY_PER_MIN: 0, MAX_EVENT_LOOP_DELAY_MS: 0 } });
     const bodies: unknown[] = [];
-    probe.addHook('onResponse', async (request) => { bodies.push(request.body); });
-    await probe.ready();
+    const probe = await testApp({}, (a) => a.addHook('onResponse', async (request) => { bodies.push(request.body); }));
     try {
       const first = await send(probe, '/v1/orbit', ORBIT);
       const second = await send(probe, '/v1/orbit', ORBIT);
