@@ -2,7 +2,6 @@
 // the product's inputs (the answer head, degrees for geodetic coordinates, OEM metadata).
 import type { CentralBody } from '../solver/bodies/bodies.js';
 import type { Conservation } from '../solver/propagation/track.js';
-import { RAD } from '../solver/core/math.js';
 import type { FrameOptions } from '../solver/earth/frames.js';
 import { epochTT } from './epoch.js';
 import type { Track } from '../solver/propagation/track.js';
@@ -10,7 +9,7 @@ import type { InitialState } from './orbit.js';
 import { interpolationDiagnostics } from './ephemeris.js';
 import type { TrackDiagnostics, TrackRequest } from '../schemas/track.js';
 import type { TrackNeeds, TrackFormat, TrackProductInput } from '../formats/track-output.js';
-import type { TrackJob, TrackJobResult } from '../workers/jobs.js';
+import { geodeticDegrees, printedStates, type TrackJob, type TrackJobResult } from '../workers/jobs.js';
 
 /** The answer's diagnostics from a track's conservation report (and, for the ephemeris model, its interpolation). */
 export function trackDiagnostics(c: Conservation, interpolation?: TrackDiagnostics['interpolation'], earthOrientation?: TrackDiagnostics['earthOrientation']): TrackDiagnostics {
@@ -41,15 +40,6 @@ export function trackJob(req: TrackRequest, body: CentralBody, start: InitialSta
   };
 }
 
-/** WGS-84 latitude, longitude (rad -> deg, in place) and height (km): radians to degrees at the edge. */
-function geodeticDegrees(g: Float64Array): Float64Array {
-  for (let i = 0; i < g.length; i += 3) {
-    g[i] = g[i]! * RAD;
-    g[i + 1] = g[i + 1]! * RAD;
-  }
-  return g;
-}
-
 /** The product's inputs for a solved track job. */
 export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: string, body: CentralBody, start: InitialState, result: TrackJobResult, earthOrientation?: TrackDiagnostics['earthOrientation']): TrackProductInput {
   const initialEpochTT = start.epochTT;
@@ -59,7 +49,7 @@ export function trackProductInput(req: TrackRequest, format: TrackFormat, hash: 
     format,
     frame: req.frame,
     epochsTT: inertial.epochsTT,
-    states: req.frame === 'teme' ? result.teme! : result.earthFixed ?? inertial.states,
+    states: printedStates(result, req.frame === 'teme'),
     geodeticDeg: result.geodetic ? geodeticDegrees(result.geodetic) : null,
     head: {
       scenarioHash: hash,

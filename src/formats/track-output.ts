@@ -11,6 +11,7 @@ import type { Product } from './product.js';
 import { JSON_MEDIA_TYPE, STATE_COLUMNS, STATE_FIELDS, TRACK_JSON_END, trackJsonHead } from './track-json.js';
 import { assertPrintable } from './track-table.js';
 import { trackRecords, type RecordsSpec } from './track-records.js';
+import type { TrackTail } from '../workers/jobs.js';
 
 export const TRACK_FORMATS = [
   ['json', 'application/json'],
@@ -86,43 +87,55 @@ export interface TrackProductInput {
   readonly oem: { readonly creationEpochTT: number; readonly centerName: string; readonly comments: readonly string[] };
 }
 
-/**
- * Writes records from..n-1 of a long track elsewhere (a worker thread) while this thread writes
- * the first ones: resolves to their bytes, or rejects (they are then written here).
- */
-export type TailWriter = (spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number) => Promise<Buffer>;
-
-/** Tracks of at least this many samples are written in two parts, the second by a TailWriter. */
+/** Tracks of at least this many samples are written in two parts, the last records by a solver thread. */
 export const SPLIT_MIN_SAMPLES = 20_000;
-/** The share of the samples this thread writes (it also writes the answer to the socket). */
+/** The share of the samples this thread writes (it also checks them and writes the answer to the socket). */
 const MAIN_SHARE = 0.45;
 
-/** Header, records and closing of a CSV or JSON track: the records from..n-1 by tail when given and the track is long. */
-function splitChunks(head: Buffer, spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, end: Buffer | null, tail: TailWriter | undefined): Iterable<Buffer> | AsyncIterable<Buffer> {
-  const n = epochsTT.length;
-  if (!tail || n < SPLIT_MIN_SAMPLES) {
+const csvSpec = (columns: readonly CsvColumn[]): RecordsSpec => ({ format: 'csv', decimals: columns.map((c) => c.decimals) });
+const STATE_CSV: readonly CsvColumn[] = stateCsvColumns();
+
+/** The records of a CSV or JSON track in a frame (geodetic: latitude, longitude, height); null for the other formats. */
+function recordsSpec(format: TrackFormat, frame: TrackFrame): RecordsSpec | null {
+  if (format === 'csv') return csvSpec(frame === 'geodetic' ? GEODETIC_CSV : STATE_CSV);
+  if (format === 'json') return { format: 'json', fields: frame === 'geodetic' ? GEODETIC_FIELDS : STATE_FIELDS };
+  return null;
+}
+
+/** The last records (from..n-1) of a long CSV or JSON track of n samples, which a solver thread can write; null when the track is written in one piece. */
+export function trackTail(format: TrackFormat, frame: TrackFrame, n: number): TrackTail | null {
+  const spec = recordsSpec(format, frame);
+  if (spec === null || n < SPLIT_MIN_SAMPLES) return null;
+  return { spec, from: Math.floor(n * MAIN_SHARE), geodetic: frame === 'geodetic' };
+}
+
+/** Header, records and closing of a CSV or JSON track: the last records from `tail` when the track is long and they are given (if they fail, written here). */
+function splitChunks(head: Buffer, t: TrackProductInput, values: Float64Array, end: Buffer | null, tail: Promise<Buffer> | undefined): Iterable<Buffer> | AsyncIterable<Buffer> {
+  const n = t.epochsTT.length;
+  const spec = recordsSpec(t.format, t.frame)!;
+  const plan = trackTail(t.format, t.frame, n);
+  if (!tail || !plan) {
     return (function* () {
       yield head;
-      yield* trackRecords(spec, epochsTT, values, 0, n);
+      yield* trackRecords(spec, t.epochsTT, values, 0, n);
       if (end) yield end;
     })();
   }
-  const from = Math.floor(n * MAIN_SHARE);
-  // Started now, so the other thread writes while this one does; written here if it cannot.
-  const rest = tail(spec, epochsTT, values, from).catch(() => Buffer.concat([...trackRecords(spec, epochsTT, values, from, n)]));
+  const rest = tail.catch(() => Buffer.concat([...trackRecords(spec, t.epochsTT, values, plan.from, n)]));
   return (async function* () {
     yield head;
-    yield* trackRecords(spec, epochsTT, values, 0, from);
+    yield* trackRecords(spec, t.epochsTT, values, 0, plan.from);
     yield await rest;
     if (end) yield end;
   })();
 }
 
-const csvSpec = (columns: readonly CsvColumn[]): RecordsSpec => ({ format: 'csv', decimals: columns.map((c) => c.decimals) });
-const STATE_CSV: readonly CsvColumn[] = stateCsvColumns();
-
-/** The track in its format; refuses (422) states that cannot be printed before anything is streamed. A long CSV or JSON track is written in two parts when tail is given (the same bytes). */
-export function trackProduct(t: TrackProductInput, tail?: TailWriter): Product {
+/**
+ * The track in its format; refuses (422) states that cannot be printed before anything is
+ * streamed. A long CSV or JSON track takes its last records (trackTail's) from `tail` when given:
+ * the same bytes as written here.
+ */
+export function trackProduct(t: TrackProductInput, tail?: Promise<Buffer>): Product {
   assertFinite(t.head);
   const geodetic = t.frame === 'geodetic' || isGroundTrack(t.format);
   // The numbers printed, checked before anything streams (a formatter that throws mid-answer can only cut it short).
@@ -142,11 +155,11 @@ export function trackProduct(t: TrackProductInput, tail?: TailWriter): Product {
       const n = t.epochsTT.length;
       return { contentType: SVG_MEDIA_TYPE, chunks: [groundTrackSvg(samples, { name: t.object.name, startLabel: label(t.epochsTT[0]!), endLabel: label(t.epochsTT[n - 1]!) })] };
     }
-    if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: splitChunks(csvHeader(GEODETIC_CSV), csvSpec(GEODETIC_CSV), t.epochsTT, g, null, tail) };
-    return { contentType: JSON_MEDIA_TYPE, chunks: splitChunks(trackJsonHead(t.head), { format: 'json', fields: GEODETIC_FIELDS }, t.epochsTT, g, TRACK_JSON_END, tail) };
+    if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: splitChunks(csvHeader(GEODETIC_CSV), t, g, null, tail) };
+    return { contentType: JSON_MEDIA_TYPE, chunks: splitChunks(trackJsonHead(t.head), t, g, TRACK_JSON_END, tail) };
   }
   const table = { epochsTT: t.epochsTT, states: t.states };
-  if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: splitChunks(csvHeader(STATE_CSV), csvSpec(STATE_CSV), t.epochsTT, t.states, null, tail) };
+  if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: splitChunks(csvHeader(STATE_CSV), t, t.states, null, tail) };
   if (t.format === 'oem') {
     return {
       contentType: OEM_MEDIA_TYPE,
@@ -161,5 +174,5 @@ export function trackProduct(t: TrackProductInput, tail?: TailWriter): Product {
       }),
     };
   }
-  return { contentType: JSON_MEDIA_TYPE, chunks: splitChunks(trackJsonHead(t.head), { format: 'json', fields: STATE_FIELDS }, t.epochsTT, t.states, TRACK_JSON_END, tail) };
+  return { contentType: JSON_MEDIA_TYPE, chunks: splitChunks(trackJsonHead(t.head), t, t.states, TRACK_JSON_END, tail) };
 }

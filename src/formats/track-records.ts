@@ -1,7 +1,7 @@
 // The records (one per sample) of CSV and JSON tracks, from any sample to any other: the same
 // bytes whoever writes them, so a long track can be written in two parts at once, the last
-// records on a worker thread (src/workers/jobs.ts, job kind 'records') while the main thread
-// writes the first. Imports the two formatters only (the worker thread loads this module).
+// records by the worker thread that computed the track (src/workers/jobs.ts, runTrackWithTail)
+// while the main thread writes the first. Imports the two formatters only (the worker thread loads this module).
 import { csvRecords } from './csv.js';
 import { trackJsonRecords, type JsonField } from './track-json.js';
 

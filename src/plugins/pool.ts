@@ -5,7 +5,8 @@
 import fp from 'fastify-plugin';
 import type { FastifyInstance } from 'fastify';
 import { ProblemError } from '../errors.js';
-import type { Job, JobResult } from '../workers/jobs.js';
+import type { Job, JobResult, TrackJob, TrackJobResult, TrackTail } from '../workers/jobs.js';
+import type { Outcome } from '../solver/core/result.js';
 import { DeadlineExceededError, PoolOverloadedError, SolverPool, WorkerDiedError, type PoolStats } from '../workers/pool.js';
 
 /** Seconds a refused client is asked to wait (Retry-After). */
@@ -14,6 +15,8 @@ export const RETRY_AFTER_S = 2;
 export interface PoolService {
   /** Solve a job inline or on a worker thread; ProblemError('overloaded') when the queue is full. */
   solve<J extends Job>(job: J): Promise<JobResult<J>>;
+  /** A long CSV or JSON track and its last records from one thread (SolverPool.trackWithTail); result fails as solve() does, tail rejects when the records must be written here. */
+  trackWithTail(job: TrackJob, tail: TrackTail): { result: Promise<Outcome<TrackJobResult>>; tail: Promise<Buffer> };
   stats(): PoolStats;
 }
 
@@ -33,23 +36,31 @@ export default fp(async function pool(app: FastifyInstance) {
     onIdleWorkerError: (error) => app.log.error({ err: error }, 'solver worker thread died with no job in hand; a new one takes its place'),
     ...(deadlineS !== undefined ? { deadlineMs: deadlineS * 1000 } : {}),
   });
+  /** The pool's refusals as problems: a full queue, a deadline passed, a thread that died. */
+  const asProblem = (error: unknown): unknown => {
+    if (error instanceof PoolOverloadedError) {
+      return new ProblemError('overloaded', `${error.message}; retry after ${RETRY_AFTER_S} s`, { headers: { 'retry-after': String(RETRY_AFTER_S) } });
+    }
+    if (error instanceof DeadlineExceededError) {
+      return new ProblemError('deadline-exceeded', `${error.message} (REQUEST_DEADLINE_S); ask for less work: a shorter span, fewer samples or stations`);
+    }
+    if (error instanceof WorkerDiedError) {
+      app.log.error({ err: error.cause }, 'solver worker thread died');
+      return new ProblemError('worker-failed', `${error.message}; a new thread has taken its place: retry after ${RETRY_AFTER_S} s`, { headers: { 'retry-after': String(RETRY_AFTER_S) } });
+    }
+    return error;
+  };
   const service: PoolService = {
     async solve(job) {
       try {
         return await solver.solve(job);
       } catch (error) {
-        if (error instanceof PoolOverloadedError) {
-          throw new ProblemError('overloaded', `${error.message}; retry after ${RETRY_AFTER_S} s`, { headers: { 'retry-after': String(RETRY_AFTER_S) } });
-        }
-        if (error instanceof DeadlineExceededError) {
-          throw new ProblemError('deadline-exceeded', `${error.message} (REQUEST_DEADLINE_S); ask for less work: a shorter span, fewer samples or stations`);
-        }
-        if (error instanceof WorkerDiedError) {
-          app.log.error({ err: error.cause }, 'solver worker thread died');
-          throw new ProblemError('worker-failed', `${error.message}; a new thread has taken its place: retry after ${RETRY_AFTER_S} s`, { headers: { 'retry-after': String(RETRY_AFTER_S) } });
-        }
-        throw error;
+        throw asProblem(error);
       }
+    },
+    trackWithTail(job, tail) {
+      const solving = solver.trackWithTail(job, tail);
+      return { result: solving.result.catch((error: unknown) => { throw asProblem(error); }), tail: solving.tail };
     },
     stats: () => solver.stats(),
   };

@@ -2,8 +2,7 @@
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
 import { solverProblem } from '../errors.js';
-import { epochsForFormat, TRACK_FORMATS, trackNeeds, trackProduct, type TailWriter } from '../formats/track-output.js';
-import type { RecordsSpec } from '../formats/track-records.js';
+import { epochsForFormat, TRACK_FORMATS, trackNeeds, trackProduct, trackTail } from '../formats/track-output.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
 import { gridEpochs } from '../api/grid.js';
@@ -15,16 +14,6 @@ import { problemResponses } from '../schemas/common.js';
 import { TrackAnswer, TrackRequest } from '../schemas/track.js';
 
 const track: FastifyPluginAsyncZod = async (app) => {
-  /** Records from..n-1 written on a solver thread if one is free now; rejects otherwise (they are then written here). */
-  const writeTail = async (spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number): Promise<Buffer> => {
-    const { active, threads } = app.pool.stats();
-    if (active >= threads) throw new Error('no solver thread free');
-    const width = values.length / epochsTT.length;
-    // Copies of the samples move to the thread; this thread keeps the whole table for its part.
-    const bytes = await app.pool.solve({ kind: 'records', spec, epochsTT: epochsTT.slice(from), values: values.slice(width * from) });
-    return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  };
-
   app.post('/v1/track', {
     schema: {
       tags: ['orbits'],
@@ -65,16 +54,17 @@ const track: FastifyPluginAsyncZod = async (app) => {
       const used = inputSpan(req, start.value);
       if (needs.earthFixed || needs.teme) used.addAll(epochs);
       // Propagation and frame conversion run on a worker thread for long grids (the grid's buffer
-      // moves there and comes back, the EOP table cut to its rows); formatting stays here, in chunks.
-      const result = await app.pool.solve(trackJob(req, body, start.value, epochs, needs, samples.empty ? frame : forSpan(frame, samples.lo, samples.hi)));
+      // moves there and comes back, the EOP table cut to its rows); formatting stays here, in
+      // chunks, but for the last records of a long CSV or JSON answer: the thread that computed the
+      // track writes them while this one checks and writes the first. Every request sharing this
+      // computation shares those bytes.
+      const job = trackJob(req, body, start.value, epochs, needs, samples.empty ? frame : forSpan(frame, samples.lo, samples.hi));
+      const plan = trackTail(format, req.frame, epochs.length);
+      const solving = plan ? app.pool.trackWithTail(job, plan) : { result: app.pool.solve(job), tail: undefined };
+      const result = await solving.result;
       if (!result.ok) throw solverProblem(result);
       const input = trackProductInput(req, format, hash, body, start.value, result.value, earthOrientationDiagnostics(eop, used, req.ut1MinusUtc));
-      // A long CSV or JSON answer is written in two parts at once: the last records by a solver
-      // thread while this one writes the first (only when a thread is free: else all here).
-      // Every request sharing this computation shares those bytes.
-      let tailBytes: Promise<Buffer> | undefined;
-      const tail: TailWriter = (spec, epochsTT, values, from) => (tailBytes ??= writeTail(spec, epochsTT, values, from));
-      return () => trackProduct(input, tail);
+      return () => trackProduct(input, solving.tail);
     });
   });
 };

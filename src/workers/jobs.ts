@@ -15,7 +15,7 @@ import { lightPasses, type LightAt, type LightingOptions, type PassLight } from 
 import { findPasses, type Pass, type PassSearchOptions, type PassSearchResult, type PassStation, type PointingSample } from '../solver/stations/passes.js';
 import { radialTrack, type RadialTrack, type TrackRequest as RadialTrackRequest } from '../solver/central/radial-track.js';
 import { analyseCentralForce, type AnalysisOptions, type CentralForceAnalysis, type CentralForceProblem, type PotentialSample } from '../solver/central/radial.js';
-import { SECONDS_PER_DAY } from '../solver/core/math.js';
+import { RAD, SECONDS_PER_DAY } from '../solver/core/math.js';
 import { failure, success, type Failure, type Outcome } from '../solver/core/result.js';
 import { DEFAULT_MAX_STEPS } from '../solver/numerics/ode.js';
 import { propagateTrack, type Track, type TrackInput } from '../solver/propagation/track.js';
@@ -102,17 +102,12 @@ export function workEstimate(job: Job): number {
       if (job.spec.model === 'numerical') units += orbitsCovered(job.spec, [job.startTT, job.stopTT]) * STEPS_PER_ORBIT * UNITS_PER_INTEGRATOR_STEP;
       return units;
     }
-    case 'records':
-      return job.epochsTT.length * UNITS_PER_RECORD;
     case 'central-force':
       // The analysis alone (10 000 potential samples, ~10 ms) stays inline; a track's cost follows
       // its integrated span (up to 200 000 steps): always a worker.
       return job.track === null ? 0 : INLINE_WORK_UNITS;
   }
 }
-
-/** Work units per record written (about 400 ns, measured: 8 units of ~50 ns). */
-const UNITS_PER_RECORD = 8;
 
 /** True when the job is small enough to run on the main thread. */
 export const runsInline = (job: Job): boolean => workEstimate(job) < INLINE_WORK_UNITS;
@@ -220,20 +215,19 @@ export interface CentralForceJobResult {
 }
 
 /**
- * The last records of a long CSV or JSON track, written on a worker thread while the main thread
- * writes the first ones (src/formats/track-output.ts). epochsTT and values hold only those samples
- * (they move to the thread); the records follow others (JSON: each after a comma).
+ * The last records (from..n-1) of a long CSV or JSON track, written by the thread that computed
+ * the track once it has sent the states on, while the main thread writes the first ones
+ * (src/formats/track-output.ts, SolverPool.trackWithTail).
  */
-export interface RecordsJob {
-  readonly kind: 'records';
+export interface TrackTail {
   readonly spec: RecordsSpec;
-  readonly epochsTT: Float64Array;
-  readonly values: Float64Array;
+  readonly from: number;
+  /** The records print geodetic coordinates (degrees); else the states of the output frame. */
+  readonly geodetic: boolean;
 }
 
 interface JobTypes {
   track: { job: TrackJob; result: Outcome<TrackJobResult> };
-  records: { job: RecordsJob; result: Uint8Array };
   passes: { job: PassesJob; result: Outcome<PassesJobResult> };
   eclipses: { job: EclipsesJob; result: Outcome<EclipsesJobResult> };
   'central-force': { job: CentralForceJob; result: CentralForceJobResult };
@@ -254,8 +248,6 @@ export function runJob<J extends Job>(job: J): JobResult<J> {
       return runEclipses(j) as JobResult<J>;
     case 'central-force':
       return runCentralForce(j) as JobResult<J>;
-    case 'records':
-      return runRecords(j) as JobResult<J>;
     default:
       throw new TypeError(`unknown job kind ${(j as { kind: unknown }).kind}`);
   }
@@ -360,9 +352,37 @@ type WireRadialTrack = Omit<RadialTrack, 't' | 'r' | 'rDot' | 'phi'> & {
   readonly t: Float64Array; readonly r: Float64Array; readonly rDot: Float64Array; readonly phi: Float64Array;
 };
 
-/** The records' bytes in one buffer of their own (so that it can move between threads). */
-function runRecords(job: RecordsJob): Uint8Array {
-  const chunks = [...trackRecords(job.spec, job.epochsTT, job.values, 0, job.epochsTT.length, true)];
+/** The states a track prints in its output frame: TEME, else Earth-fixed when computed, else inertial. */
+export function printedStates(result: TrackJobResult, teme: boolean): Float64Array {
+  return teme ? result.teme! : result.earthFixed ?? result.track.states;
+}
+
+/** Latitude and longitude (rad -> deg, in place) and height (km) of geodetic coordinates: radians to degrees at the edge. */
+export function geodeticDegrees(g: Float64Array): Float64Array {
+  for (let i = 0; i < g.length; i += 3) {
+    g[i] = g[i]! * RAD;
+    g[i + 1] = g[i + 1]! * RAD;
+  }
+  return g;
+}
+
+/**
+ * A track job, then the records tail.from..n-1 of its answer: the track's outcome goes to send
+ * (in its wire form) as soon as it is computed, the records' bytes, in one buffer of their own,
+ * are the return value (null when the track failed). The records are written from copies of
+ * their samples, so the states can move to the main thread first.
+ */
+export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wire) => void): Uint8Array | null {
+  const result = runTrack(job);
+  if (!result.ok) {
+    send(toWire('track', result));
+    return null;
+  }
+  const r = result.value;
+  const epochsTT = r.track.epochsTT.slice(tail.from);
+  const values = tail.geodetic ? geodeticDegrees(r.geodetic!.slice(3 * tail.from)) : printedStates(r, job.teme === true).slice(6 * tail.from);
+  send(toWire('track', result));
+  const chunks = [...trackRecords(tail.spec, epochsTT, values, 0, epochsTT.length, true)];
   const out = new Uint8Array(new ArrayBuffer(chunks.reduce((n, c) => n + c.length, 0)));
   let offset = 0;
   for (const c of chunks) {
@@ -380,10 +400,6 @@ export function toWire(kind: JobKind, result: JobResult<Job>): Wire {
   switch (kind) {
     case 'eclipses':
       value = result; // small plain objects: cloned as they are
-      break;
-    case 'records':
-      value = result;
-      transfer.add((result as Uint8Array).buffer as ArrayBuffer);
       break;
     case 'track': {
       const r = result as Outcome<TrackJobResult>;
@@ -422,7 +438,6 @@ export function fromWire<J extends Job>(kind: J['kind'], value: unknown): JobRes
   switch (kind) {
     case 'track':
     case 'eclipses':
-    case 'records':
       return value as JobResult<J>;
     case 'passes': {
       const r = value as Outcome<PassSearchResult & { passes: WirePass[]; light: WirePassLight[] }>;
@@ -442,7 +457,6 @@ export function fromWire<J extends Job>(kind: J['kind'], value: unknown): JobRes
 
 /** Buffers a job's payload can give away to the worker. */
 export function payloadTransfer(job: Job): ArrayBuffer[] {
-  if (job.kind === 'records') return [job.epochsTT.buffer as ArrayBuffer, job.values.buffer as ArrayBuffer];
   return job.kind === 'track' ? [job.input.epochsTT.buffer as ArrayBuffer] : [];
 }
 

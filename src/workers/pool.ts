@@ -5,10 +5,12 @@
 // Threads start on first use (or on start()), so an app that never solves a heavy job never
 // spawns one.
 import { createRequire } from 'node:module';
+import { MessageChannel, receiveMessageOnPort, type Transferable } from 'node:worker_threads';
 import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
-import type { WorkerSettings } from './worker.js';
-import { fromWire, payloadTransfer, refusedBeforeWork, runJob, runsInline, type Job, type JobResult } from './jobs.js';
+import type { TrackTailTask, WorkerSettings } from './worker.js';
+import { fromWire, payloadTransfer, refusedBeforeWork, runJob, runsInline, type Job, type JobResult, type TrackJob, type TrackJobResult, type TrackTail } from './jobs.js';
+import type { Outcome } from '../solver/core/result.js';
 
 /** The queue in front of the threads is full (or the pool is closing): try again later. */
 export class PoolOverloadedError extends Error {
@@ -87,6 +89,12 @@ const WORKER_OUT_OF_MEMORY = 'ERR_WORKER_OUT_OF_MEMORY';
 
 const QUEUE_FULL = new Set(['Task queue is at limit', 'No task queue available and all Workers are busy']);
 
+/** The promise itself, marked as handled: a rejection nobody waits for (an answer refused before it streams) is no unhandled rejection. */
+function handled<T>(p: Promise<T>): Promise<T> {
+  p.catch(() => undefined);
+  return p;
+}
+
 export class SolverPool {
   readonly #options: SolverPoolOptions;
   #piscina: Piscina | undefined;
@@ -140,24 +148,68 @@ export class SolverPool {
    * to the thread (the caller's array is emptied; the result carries it back).
    */
   async inWorker<J extends Job>(job: J, options: { deadlineMs?: number } = {}): Promise<JobResult<J>> {
+    return fromWire<J>(job.kind, await this.#run(job.kind, job, payloadTransfer(job), options.deadlineMs));
+  }
+
+  /**
+   * A long CSV or JSON track in a worker thread, whose last records (tail.from..n-1) the same
+   * thread writes once it has sent the track: `result` settles as soon as the track is computed,
+   * `tail` when its records are written. `tail` rejects when the track failed or the thread could
+   * not write them (stopped at the deadline, died): the caller then writes them itself. A job sure
+   * to break a limit is refused as solve() refuses it (its failure is the result).
+   */
+  trackWithTail(job: TrackJob, tail: TrackTail): { result: Promise<Outcome<TrackJobResult>>; tail: Promise<Buffer> } {
+    const refused = refusedBeforeWork(job);
+    if (refused) return { result: Promise.resolve(refused), tail: handled(Promise.reject(new Error('the track was refused'))) };
+    const { port1, port2 } = new MessageChannel();
+    const task: TrackTailTask = { kind: 'track-tail', job, tail, port: port2 };
+    const bytes = this.#run(job.kind, task, [...payloadTransfer(job), port2]);
+    const result = new Promise<Outcome<TrackJobResult>>((resolve, reject) => {
+      let settled = false;
+      const take = (wire: unknown): void => {
+        settled = true;
+        port1.close();
+        resolve(fromWire<TrackJob>('track', wire));
+      };
+      port1.once('message', take);
+      // The thread sends the track before it writes the records, but the two messages travel on
+      // different ports: when the task settles first, the track is already in this port's queue.
+      const ended = (error: unknown): void => {
+        if (settled) return;
+        const sent = receiveMessageOnPort(port1);
+        if (sent) return take(sent.message);
+        settled = true;
+        port1.close();
+        reject(error ?? new WorkerFailedError(job.kind, 'the thread ended without sending the track'));
+      };
+      bytes.then(() => ended(undefined), ended);
+    });
+    const records = bytes.then((u) => {
+      if (!(u instanceof Uint8Array)) throw new Error('the track failed: no records');
+      return Buffer.from(u.buffer, u.byteOffset, u.byteLength);
+    });
+    return { result, tail: handled(records) };
+  }
+
+  /** One task on a thread: the pool's queue, deadline and error mapping. */
+  async #run(kind: Job['kind'], task: unknown, transferList: readonly Transferable[], deadlineMsOption?: number): Promise<unknown> {
     if (this.#closing) throw new PoolOverloadedError('the service is shutting down');
     this.start();
     this.#active++;
-    const deadlineMs = options.deadlineMs ?? this.#options.deadlineMs;
+    const deadlineMs = deadlineMsOption ?? this.#options.deadlineMs;
     // Aborting a running task makes piscina stop its thread and start a fresh one.
     const deadline = deadlineMs === undefined ? undefined : AbortSignal.timeout(deadlineMs);
     try {
-      const wire: unknown = await this.#piscina!.run(job, { transferList: payloadTransfer(job), ...(deadline ? { signal: deadline } : {}) });
-      return fromWire<J>(job.kind, wire);
+      return await this.#piscina!.run(task, { transferList: [...transferList], ...(deadline ? { signal: deadline } : {}) });
     } catch (error) {
       // Messages stay free of internals (thread and queue sizes): they reach the client.
       if (error instanceof Error && QUEUE_FULL.has(error.message)) throw new PoolOverloadedError('the solver queue is full');
       if (deadline?.aborted) throw new DeadlineExceededError(deadlineMs!);
       if (error instanceof Error && error.name === 'AbortError') throw new PoolOverloadedError('the service is shutting down');
       if (error instanceof Error && (/^worker exited with code/.test(error.message) || (error as NodeJS.ErrnoException).code === WORKER_OUT_OF_MEMORY)) {
-        throw new WorkerDiedError(job.kind, error);
+        throw new WorkerDiedError(kind, error);
       }
-      throw new WorkerFailedError(job.kind, error);
+      throw new WorkerFailedError(kind, error);
     } finally {
       this.#active--;
     }

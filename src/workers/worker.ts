@@ -5,8 +5,9 @@
 // `nice`, so that the thread answering requests gets the CPU first when both want it.
 import { readlinkSync } from 'node:fs';
 import { getPriority, setPriority } from 'node:os';
+import type { MessagePort } from 'node:worker_threads';
 import { move, transferableSymbol, valueSymbol, workerData } from 'piscina';
-import { runJob, toWire, type Job } from './jobs.js';
+import { runJob, runTrackWithTail, toWire, type Job, type TrackJob, type TrackTail, type Wire } from './jobs.js';
 
 /** What the pool tells each of its threads (piscina's workerData). */
 export interface WorkerSettings {
@@ -43,7 +44,20 @@ function lowerThreadPriority(nice: number): void {
 const settings = workerData as WorkerSettings | undefined;
 if (settings) lowerThreadPriority(settings.nice);
 
-export default function solveJob(job: Job): unknown {
-  const wire = toWire(job.kind, runJob(job));
-  return move({ [transferableSymbol]: wire.transfer, [valueSymbol]: wire.value } as Parameters<typeof move>[0]);
+/** A track job whose last records this thread writes after it has sent the track on `port` (SolverPool.trackWithTail). */
+export interface TrackTailTask {
+  readonly kind: 'track-tail';
+  readonly job: TrackJob;
+  readonly tail: TrackTail;
+  readonly port: MessagePort;
+}
+
+/** A wire form for piscina: its buffers transferred, not copied. */
+const moved = (wire: Wire): unknown => move({ [transferableSymbol]: wire.transfer, [valueSymbol]: wire.value } as Parameters<typeof move>[0]);
+
+export default function solveJob(task: Job | TrackTailTask): unknown {
+  if (task.kind !== 'track-tail') return moved(toWire(task.kind, runJob(task)));
+  // The main thread closes the channel once it has the track (closing here could race the message).
+  const records = runTrackWithTail(task.job, task.tail, (wire) => task.port.postMessage(wire.value, wire.transfer));
+  return records === null ? null : moved({ value: records, transfer: [records.buffer as ArrayBuffer] });
 }

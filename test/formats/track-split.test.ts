@@ -1,13 +1,16 @@
 // A long CSV or JSON track is written in two parts at once (src/formats/track-output.ts): the
-// first records here, the last ones by a TailWriter (a solver thread). The answer must be the same
-// bytes as written in one piece, whoever writes the tail, and whether or not the tail can be
-// written elsewhere. The states are an invented circular orbit (demo data); the checks compare
-// the service with itself (one piece against two), and the HTTP check reads the records back.
+// first records here, the last ones by the solver thread that computed the track, after it has
+// sent the track on (SolverPool.trackWithTail). The answer must be the same bytes as written in
+// one piece, whoever writes the last records, and the track must arrive whatever happens to them.
+// The orbit is an invented 550 km circular one (demo data); the checks compare the service with
+// itself (one piece against two, the thread against this thread), and the HTTP check reads the
+// records back.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
-import { SPLIT_MIN_SAMPLES, trackProduct, type TailWriter, type TrackFormat, type TrackFrame, type TrackProductInput } from '../../src/formats/track-output.js';
-import { runJob } from '../../src/workers/jobs.js';
-import { SolverPool } from '../../src/workers/pool.js';
+import { SPLIT_MIN_SAMPLES, trackProduct, trackTail, type TrackFormat, type TrackFrame, type TrackProductInput } from '../../src/formats/track-output.js';
+import { BODIES } from '../../src/solver/bodies/bodies.js';
+import { geodeticDegrees, printedStates, runJob, type TrackJob, type TrackJobResult } from '../../src/workers/jobs.js';
+import { SolverPool, WorkerFailedError } from '../../src/workers/pool.js';
 import { parseUtcIso } from '../../src/solver/time/time.js';
 import { postJson, testApp } from '../helpers/app.js';
 
@@ -17,67 +20,95 @@ const T0 = (() => {
   if (!r.ok) throw new Error(r.message);
   return r.value;
 })();
+const EARTH = BODIES.earth;
+const A = 6928.137;
+const SPEED = Math.sqrt(EARTH.gm / A);
+const INCLINATION = (97.6 * Math.PI) / 180;
 
-function input(format: TrackFormat, frame: TrackFrame): TrackProductInput {
-  const epochsTT = Float64Array.from({ length: N }, (_, i) => T0 + 7.25 * i);
-  const states = new Float64Array(6 * N);
-  const geodeticDeg = new Float64Array(3 * N);
-  const n = Math.sqrt(398_600.4418 / 6928 ** 3);
-  for (let i = 0; i < N; i++) {
-    const [c, s] = [Math.cos(n * 7.25 * i), Math.sin(n * 7.25 * i)];
-    states.set([6928 * c, -0.1 * 6928 * s, 6928 * s, -7.58 * s, 0.758 * c, 7.58 * c], 6 * i);
-    geodeticDeg.set([80 * s, ((i * 0.37) % 360) - 180, 550 + c], 3 * i);
-  }
+/** The track job of a frame; its own grid each time (the grid's buffer moves to the thread). */
+function jobFor(frame: TrackFrame, input: Partial<TrackJob['input']> = {}): TrackJob {
+  const earthFixed = frame === 'itrf' || frame === 'geodetic';
   return {
-    format, frame, epochsTT, states, geodeticDeg,
+    kind: 'track',
+    input: {
+      body: EARTH, model: 'two-body', r0: [A, 0, 0], v0: [0, SPEED * Math.cos(INCLINATION), SPEED * Math.sin(INCLINATION)], epochTT: T0,
+      epochsTT: Float64Array.from({ length: N }, (_, i) => T0 + 7.25 * i), ...input,
+    },
+    earthFixed: earthFixed ? { dut1: 0.2 } : null,
+    geodetic: frame === 'geodetic',
+    teme: frame === 'teme',
+    ...(frame === 'teme' ? { temeFrame: { dut1: 0.2 } } : {}),
+  };
+}
+
+function productInput(format: TrackFormat, frame: TrackFrame, r: TrackJobResult): TrackProductInput {
+  return {
+    format, frame, epochsTT: r.track.epochsTT, states: printedStates(r, frame === 'teme'), geodeticDeg: r.geodetic ? geodeticDegrees(r.geodetic) : null,
     head: { scenarioHash: 'test', object: { name: 'Kestrel-9 ü', id: 'K9' }, sampleCount: N },
     object: { name: 'Kestrel-9 ü', id: 'K9' },
     oem: { creationEpochTT: T0, centerName: 'EARTH', comments: [] },
   };
 }
 
-async function bytesOf(t: TrackProductInput, tail?: TailWriter): Promise<Buffer> {
+async function bytesOf(t: TrackProductInput, tail?: Promise<Buffer>): Promise<Buffer> {
   const parts: Buffer[] = [];
   for await (const c of trackProduct(t, tail).chunks) parts.push(typeof c === 'string' ? Buffer.from(c) : c);
   return Buffer.concat(parts);
 }
 
-/** The tail as the solver thread writes it (runJob is what the thread runs), here. */
-const inline: TailWriter = async (spec, epochsTT, values, from) => {
-  const width = values.length / epochsTT.length;
-  return Buffer.from(runJob({ kind: 'records', spec, epochsTT: epochsTT.slice(from), values: values.slice(width * from) }));
-};
+function solved(r: ReturnType<typeof runJob<TrackJob>>): TrackJobResult {
+  if (!r.ok) throw new Error(r.message);
+  return r.value;
+}
 
 let pool: SolverPool;
 beforeAll(() => { pool = new SolverPool({ threads: 1, queueLimit: 2 }); });
 afterAll(async () => { await pool.close(); });
 
 describe('a long track written in two parts', () => {
-  const cases: Array<[TrackFormat, TrackFrame]> = [['csv', 'gcrf'], ['json', 'gcrf'], ['csv', 'geodetic'], ['json', 'geodetic']];
-  it.each(cases)('%s, frame %s: the same bytes as in one piece, with the tail written here, on a thread, or refused', async (format, frame) => {
-    const t = input(format, frame);
-    const whole = await bytesOf(t);
-    const onThread: TailWriter = async (spec, epochsTT, values, from) => {
-      const width = values.length / epochsTT.length;
-      const u = await pool.inWorker({ kind: 'records', spec, epochsTT: epochsTT.slice(from), values: values.slice(width * from) });
-      return Buffer.from(u.buffer, u.byteOffset, u.byteLength);
-    };
-    let asked = 0;
-    const refused: TailWriter = async () => { asked++; throw new Error('no thread free'); };
-    expect((await bytesOf(t, inline)).equals(whole)).toBe(true);
-    expect((await bytesOf(t, onThread)).equals(whole)).toBe(true);
-    expect((await bytesOf(t, refused)).equals(whole)).toBe(true);
-    expect(asked).toBe(1); // the tail was asked for, refused, and written here
+  const cases: Array<[TrackFormat, TrackFrame]> = [['csv', 'gcrf'], ['json', 'gcrf'], ['csv', 'geodetic'], ['json', 'geodetic'], ['csv', 'itrf'], ['json', 'teme']];
+  it.each(cases)('%s, frame %s: the same bytes as in one piece, with the last records from the thread or written here', async (format, frame) => {
+    const whole = await bytesOf(productInput(format, frame, solved(runJob(jobFor(frame)))));
+    const plan = trackTail(format, frame, N)!;
+    expect(plan.from).toBeGreaterThan(0);
+    expect(plan.from).toBeLessThan(N);
+    const onThread = pool.trackWithTail(jobFor(frame), plan);
+    const fromThread = productInput(format, frame, solved(await onThread.result));
+    expect((await bytesOf(fromThread, onThread.tail)).equals(whole)).toBe(true);
+    // The thread could not write them (stopped, died): they are written here, the same bytes.
+    const again = productInput(format, frame, solved(runJob(jobFor(frame))));
+    expect((await bytesOf(again, Promise.reject(new Error('the thread stopped')))).equals(whole)).toBe(true);
     if (format === 'json') expect(JSON.parse(whole.toString()).samples).toHaveLength(N);
     else expect(whole.toString().split('\r\n')).toHaveLength(N + 2); // header, N records, the empty string after the last CRLF
   });
 
-  it('a short track is written in one piece: the tail writer is not asked', async () => {
-    const t = input('csv', 'gcrf');
-    const short = { ...t, epochsTT: t.epochsTT.subarray(0, 100), states: t.states.subarray(0, 600) };
-    let asked = 0;
-    await bytesOf(short, async () => { asked++; return Buffer.alloc(0); });
-    expect(asked).toBe(0);
+  it('a short track, OEM, GeoJSON and SVG are written in one piece', () => {
+    expect(trackTail('csv', 'gcrf', SPLIT_MIN_SAMPLES - 1)).toBeNull();
+    expect(trackTail('csv', 'gcrf', SPLIT_MIN_SAMPLES)).not.toBeNull();
+    for (const format of ['oem', 'geojson', 'svg'] as const) expect(trackTail(format, 'gcrf', N)).toBeNull();
+  });
+
+  it('a track that fails is the result, and its tail rejects (nothing to write)', async () => {
+    // Periapsis inside the Earth: 7000 km at 3 km/s (the impact failure of propagateTrack).
+    const solving = pool.trackWithTail(jobFor('gcrf', { v0: [0, 3, 0] }), trackTail('csv', 'gcrf', N)!);
+    const r = await solving.result;
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.code).toBe('impact');
+    await expect(solving.tail).rejects.toThrow(/no records/);
+  });
+
+  it('records that fail on the thread after the track was sent: the track still arrives, the tail rejects', async () => {
+    // A three-column CSV spec over six-column states: the formatter throws once the track is sent.
+    const solving = pool.trackWithTail(jobFor('gcrf'), { ...trackTail('csv', 'geodetic', N)!, geodetic: false });
+    expect(solved(await solving.result).track.epochsTT).toHaveLength(N);
+    await expect(solving.tail).rejects.toBeInstanceOf(WorkerFailedError);
+  });
+
+  it('a thread that throws before it sends the track: the result rejects (no wait for a message that never comes)', async () => {
+    // Geodetic records asked of a job that computes none: a programmer error before the send.
+    const solving = pool.trackWithTail(jobFor('gcrf'), trackTail('csv', 'geodetic', N)!);
+    await expect(solving.result).rejects.toBeInstanceOf(WorkerFailedError);
+    await expect(solving.tail).rejects.toBeInstanceOf(WorkerFailedError);
   });
 });
 
