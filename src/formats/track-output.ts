@@ -9,7 +9,7 @@ import { formatUtcIso } from '../solver/time/time.js';
 import { oemChunks, OEM_MEDIA_TYPE } from './oem.js';
 import type { Product } from './product.js';
 import { JSON_MEDIA_TYPE, STATE_COLUMNS, STATE_FIELDS, TRACK_JSON_END, trackJsonHead } from './track-json.js';
-import { assertPrintable } from './track-table.js';
+import { assertPrintable, firstUnprintable } from './track-table.js';
 import { trackRecords, type RecordsSpec } from './track-records.js';
 import type { TrackTail } from '../workers/jobs.js';
 
@@ -142,10 +142,12 @@ export function trackProduct(t: TrackProductInput, tail?: Promise<Buffer>): Prod
   if (geodetic) {
     if (t.geodeticDeg === null) throw new Error('a geodetic track product needs geodetic coordinates'); // programmer error
     assertFiniteTable(t.geodeticDeg, GEODETIC_COLUMNS);
-  } else {
+    assertPrintable(t.states);
+  } else if (firstUnprintable(t.states) >= 0) {
+    // One pass when the states pass (a printable number is finite); else the refusal in its order.
     assertFiniteTable(t.states, STATE_COLUMNS);
+    assertPrintable(t.states);
   }
-  assertPrintable(t.states);
   if (geodetic) {
     const g = t.geodeticDeg!;
     if (isGroundTrack(t.format)) {

@@ -10,7 +10,17 @@ export type RecordsSpec =
   | { readonly format: 'csv'; readonly decimals: readonly number[] }
   | { readonly format: 'json'; readonly fields: readonly JsonField[] };
 
-/** Records from..to-1 of a CSV or JSON track; afterFirst: they follow records written elsewhere (JSON: a comma before the first). */
-export function trackRecords(spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number, to: number, afterFirst = false): Generator<Buffer> {
-  return spec.format === 'csv' ? csvRecords(epochsTT, values, spec.decimals, from, to) : trackJsonRecords(epochsTT, values, spec.fields, from, to, undefined, afterFirst);
+/** Records from..to-1 of a CSV or JSON track; afterFirst: they follow records written elsewhere (JSON: a comma before the first); in chunks of about chunkBytes. */
+export function trackRecords(spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number, to: number, afterFirst = false, chunkBytes = 65_536): Generator<Buffer> {
+  return spec.format === 'csv'
+    ? csvRecords(epochsTT, values, spec.decimals, from, to, { chunkChars: chunkBytes })
+    : trackJsonRecords(epochsTT, values, spec.fields, from, to, chunkBytes, afterFirst);
 }
+
+/**
+ * Room enough, in practice, for `count` records of `width` numbers (an epoch and its separators,
+ * up to 24 bytes a number with its key or separator: a track's numbers print in 11 to 14): the
+ * records then fit in one buffer, written once, with no concatenation. Larger numbers only cost
+ * a second buffer. Pages of the part left unwritten are never touched.
+ */
+export const recordsBytesBound = (count: number, width: number): number => count * (64 + 24 * width);

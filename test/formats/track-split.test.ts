@@ -133,3 +133,31 @@ describe('POST /v1/track of more than SPLIT_MIN_SAMPLES samples', () => {
     epochs.forEach((e, i) => expect(Date.parse(e) - Date.parse('2026-12-01T00:00:00Z')).toBe(2000 * i));
   });
 });
+
+describe('numbers that cannot be printed are refused before anything streams', () => {
+  const small = (): TrackProductInput => {
+    const t = productInput('json', 'gcrf', solved(runJob(jobFor('gcrf'))));
+    return { ...t, epochsTT: t.epochsTT.subarray(0, 10), states: t.states.slice(0, 60) };
+  };
+  const refusal = (t: TrackProductInput): { code: string; message: string } => {
+    try {
+      trackProduct(t);
+    } catch (error) {
+      return error as { code: string; message: string };
+    }
+    throw new Error('not refused');
+  };
+  it('a NaN: 422 non-finite-result naming the sample and column; a huge number: limit-exceeded; both: the non-finite one first', () => {
+    const nan = small();
+    nan.states[6 * 3 + 4] = Number.NaN;
+    expect(refusal(nan)).toMatchObject({ code: 'non-finite-result', message: expect.stringMatching(/^answer\.samples\.3\.velocity\.1 /) });
+    const huge = small();
+    huge.states[6 * 2] = 1e22;
+    expect(refusal(huge)).toMatchObject({ code: 'limit-exceeded', message: expect.stringMatching(/^sample 2 reaches 1e\+22 /) });
+    const both = small();
+    both.states[6 * 2] = -1e22;
+    both.states[6 * 5 + 1] = Number.POSITIVE_INFINITY;
+    expect(refusal(both)).toMatchObject({ code: 'non-finite-result', message: expect.stringMatching(/^answer\.samples\.5\.position\.1 /) });
+    expect(() => trackProduct(small())).not.toThrow();
+  });
+});
