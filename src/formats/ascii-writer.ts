@@ -23,31 +23,31 @@ const QUADS = Uint8Array.from({ length: 40_000 }, (_, i) => ZERO + (Math.floor((
 // for all 2^31 values once, and at the quotient boundaries in test/formats/ascii-writer.test.ts).
 // A float64 division costs several multiplications here, and the digits are most of a track's work.
 
+/** "0000".."9999" as little-endian 32-bit words: four digit bytes in one store (DataView#setUint32, any alignment). */
+const QUAD_WORDS = Uint32Array.from({ length: 10_000 }, (_, i) => QUADS[4 * i]! | (QUADS[4 * i + 1]! << 8) | (QUADS[4 * i + 2]! << 16) | (QUADS[4 * i + 3]! << 24));
+/** "00".."99" as little-endian 16-bit words. */
+const PAIR_WORDS = Uint16Array.from({ length: 100 }, (_, i) => PAIRS[2 * i]! | (PAIRS[2 * i + 1]! << 8));
+
 /** Writes a non-negative int32 in exactly `width` digits (zero-padded; n has at most that many) ending before `end`. */
-function writeDigitsBefore(buf: Uint8Array, end: number, n: number, width: number): void {
+function writeDigitsBefore(buf: Uint8Array, view: DataView, end: number, n: number, width: number): void {
   let p = end;
   const stop = end - width;
   let m = n;
   while (m >= 10_000) {
     const q = (m * 1e-4) | 0;
-    const r = (m - q * 10_000) << 2;
-    buf[p - 1] = QUADS[r + 3]!;
-    buf[p - 2] = QUADS[r + 2]!;
-    buf[p - 3] = QUADS[r + 1]!;
-    buf[p - 4] = QUADS[r]!;
+    view.setUint32(p - 4, QUAD_WORDS[m - q * 10_000]!, true);
     p -= 4;
     m = q;
   }
   if (m >= 100) {
     const q = (m * 0.01) | 0;
-    const r = (m - q * 100) << 1;
-    buf[--p] = PAIRS[r + 1]!;
-    buf[--p] = PAIRS[r]!;
+    view.setUint16(p - 2, PAIR_WORDS[m - q * 100]!, true);
+    p -= 2;
     m = q;
   }
   if (m >= 10) {
-    buf[--p] = PAIRS[(m << 1) + 1]!;
-    buf[--p] = PAIRS[m << 1]!;
+    view.setUint16(p - 2, PAIR_WORDS[m]!, true);
+    p -= 2;
   } else {
     buf[--p] = ZERO + m;
   }
@@ -55,9 +55,9 @@ function writeDigitsBefore(buf: Uint8Array, end: number, n: number, width: numbe
 }
 
 /** Writes a non-negative int32 with at least `width` digits at pos; returns the end. */
-function writeInt32(buf: Uint8Array, pos: number, n: number, width: number): number {
+function writeInt32(buf: Uint8Array, view: DataView, pos: number, n: number, width: number): number {
   const digits = Math.max(digitCount(n), width);
-  writeDigitsBefore(buf, pos + digits, n, digits);
+  writeDigitsBefore(buf, view, pos + digits, n, digits);
   return pos + digits;
 }
 
@@ -73,28 +73,38 @@ function writeTwo(buf: Uint8Array, pos: number, n: number): void {
  * end, or -1 where the general path must decide (ties, large magnitudes, other decimals): the
  * same test as scaledForFixed, so both give the same digits.
  */
-function writeFixed(buf: Uint8Array, pos: number, value: number, decimals: number): number {
+/**
+ * 1 / 10^d: the whole part is floor(scaled * INV_SCALES[d]) corrected by one where the product's
+ * rounding crossed an integer (the remainder then falls outside [0, 10^d)); exact integer
+ * arithmetic below 2^53, the same quotient as floor(scaled / 10^d), without a division.
+ */
+const INV_SCALES = SCALES.map((s) => 1 / s);
+
+function writeFixed(buf: Uint8Array, view: DataView, pos: number, value: number, decimals: number): number {
   if (decimals < 1 || decimals > 9) return -1;
   const scale = SCALES[decimals]!;
   const magnitude = Math.abs(value) * scale;
   const floor = Math.floor(magnitude);
   if (!(magnitude < 9e15) || !(Math.abs(magnitude - floor - 0.5) > 1e-6)) return -1;
   const scaled = Math.round(magnitude);
-  const whole = Math.floor(scaled / scale);
+  let whole = Math.floor(scaled * INV_SCALES[decimals]!);
+  let frac = scaled - whole * scale;
+  if (frac >= scale) { whole++; frac -= scale; } else if (frac < 0) { whole--; frac += scale; }
   if (whole >= INT32_LIMIT) return -1;
   let p = pos;
   if (value < 0 && scaled !== 0) buf[p++] = 45;
   const wholeDigits = digitCount(whole);
-  writeDigitsBefore(buf, p + wholeDigits, whole, wholeDigits);
+  writeDigitsBefore(buf, view, p + wholeDigits, whole, wholeDigits);
   p += wholeDigits;
   buf[p++] = 46;
-  writeDigitsBefore(buf, p + decimals, scaled - whole * scale, decimals);
+  writeDigitsBefore(buf, view, p + decimals, frac, decimals);
   return p + decimals;
 }
 
 export class AsciiWriter {
   readonly #chunkBytes: number;
   #buf: Buffer;
+  #view: DataView;
   #pos = 0;
   readonly #split: (tt: number, out: UtcFields) => void;
   readonly #fields = newUtcFields();
@@ -105,6 +115,7 @@ export class AsciiWriter {
   constructor(epochFractionDigits = EPOCH_FRACTION_DIGITS, chunkBytes = 65_536) {
     this.#chunkBytes = chunkBytes;
     this.#buf = Buffer.allocUnsafe(chunkBytes);
+    this.#view = new DataView(this.#buf.buffer, this.#buf.byteOffset, this.#buf.byteLength);
     this.#fractionDigits = epochFractionDigits;
     this.#split = utcSplitter(epochFractionDigits);
   }
@@ -123,6 +134,7 @@ export class AsciiWriter {
   take(): Buffer {
     const out = this.#buf.subarray(0, this.#pos);
     this.#buf = Buffer.allocUnsafe(this.#chunkBytes);
+    this.#view = new DataView(this.#buf.buffer, this.#buf.byteOffset, this.#buf.byteLength);
     this.#pos = 0;
     return out;
   }
@@ -132,6 +144,7 @@ export class AsciiWriter {
     const bigger = Buffer.allocUnsafe(Math.max(this.#buf.length * 2, this.#pos + n));
     this.#buf.copy(bigger, 0, 0, this.#pos);
     this.#buf = bigger;
+    this.#view = new DataView(bigger.buffer, bigger.byteOffset, bigger.byteLength);
   }
 
   /** ASCII text (callers pass ASCII only: JSON they have escaped, keywords, separators). */
@@ -159,19 +172,19 @@ export class AsciiWriter {
   /** A non-negative integer below 2^53, with at least `width` digits (zero-padded); room already reserved. */
   #integer(n: number, width: number): void {
     if (n < INT32_LIMIT) {
-      this.#pos = writeInt32(this.#buf, this.#pos, n, width);
+      this.#pos = writeInt32(this.#buf, this.#view, this.#pos, n, width);
       return;
     }
     // Above 2^31: the leading digits and the last nine, each an int32 (n < 2^53 < 1e16, all exact).
     const high = Math.floor(n / 1e9);
-    this.#pos = writeInt32(this.#buf, this.#pos, high, Math.max(width - 9, 1));
-    this.#pos = writeInt32(this.#buf, this.#pos, n - high * 1e9, 9);
+    this.#pos = writeInt32(this.#buf, this.#view, this.#pos, high, Math.max(width - 9, 1));
+    this.#pos = writeInt32(this.#buf, this.#view, this.#pos, n - high * 1e9, 9);
   }
 
   /** The same text as fixed(value, decimals) from track-table.ts. */
   fixed(value: number, decimals: number): this {
     if (this.#pos + 40 <= this.#buf.length) {
-      const end = writeFixed(this.#buf, this.#pos, value, decimals);
+      const end = writeFixed(this.#buf, this.#view, this.#pos, value, decimals);
       if (end >= 0) {
         this.#pos = end;
         return this;
@@ -203,7 +216,7 @@ export class AsciiWriter {
       }
       const v = values[from + c]!;
       const d = decimals[c]!;
-      const end = this.#pos + 40 <= this.#buf.length ? writeFixed(this.#buf, this.#pos, v, d) : -1;
+      const end = this.#pos + 40 <= this.#buf.length ? writeFixed(this.#buf, this.#view, this.#pos, v, d) : -1;
       if (end >= 0) this.#pos = end;
       else this.fixed(v, d);
     }
@@ -236,7 +249,7 @@ export class AsciiWriter {
     const digits = this.#fractionDigits;
     if (digits > 0) {
       buf[p++] = 46;
-      writeDigitsBefore(buf, p + digits, f.fraction, digits);
+      writeDigitsBefore(buf, this.#view, p + digits, f.fraction, digits);
       p += digits;
     }
     if (zone) buf[p++] = 90;

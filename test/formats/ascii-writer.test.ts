@@ -68,6 +68,19 @@ describe('AsciiWriter', () => {
     }
   });
 
+  it('splits whole and decimal digits as toFixed does where the scaled number is a multiple of 10^d or next to one', () => {
+    // The whole part is a product with 1 / 10^d, corrected by one (the comment above INV_SCALES in
+    // ascii-writer.ts): the product can round across an integer exactly at and next to multiples.
+    for (let d = 1; d <= 9; d++) {
+      for (const whole of [1, 3, 7, 9, 10, 99, 6928, 7000, 65_535, 999_999, 2 ** 31 - 1]) {
+        for (const step of [-1, 0, 1]) {
+          const x = (whole * 10 ** d + step) / 10 ** d;
+          for (const v of [x, -x]) expect(written((w) => w.fixed(v, d)), `${v} ${d}`).toBe(reference(v, d));
+        }
+      }
+    }
+  });
+
   it('writes numbers that use all 53 bits exactly as toFixed (fc.double alone favours round values)', () => {
     const uniform = fc.tuple(fc.integer({ min: -(2 ** 52), max: 2 ** 52 }), fc.integer({ min: -12, max: 9 })).map(([n, e]) => (n / 2 ** 52) * 10 ** e);
     fc.assert(fc.property(uniform, fc.integer({ min: 0, max: 12 }), (x, d) => written((w) => w.fixed(x, d)) === reference(x, d)), { numRuns: 20_000 });
