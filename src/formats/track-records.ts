@@ -18,9 +18,13 @@ export function trackRecords(spec: RecordsSpec, epochsTT: Float64Array, values: 
 }
 
 /**
- * Room enough, in practice, for `count` records of `width` numbers (an epoch and its separators,
- * up to 24 bytes a number with its key or separator: a track's numbers print in 11 to 14): the
- * records then fit in one buffer, written once, with no concatenation. Larger numbers only cost
- * a second buffer. Pages of the part left unwritten are never touched.
+ * Room for records from..to-1 in one buffer, in practice: the first record's length, plus two
+ * bytes a number (a sign, one more whole digit) for each record, plus the writer's margin. Larger
+ * records only cost a second buffer; pages left unwritten are never touched.
  */
-export const recordsBytesBound = (count: number, width: number): number => count * (64 + 24 * width);
+export function recordsBytesEstimate(spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number, to: number): number {
+  if (to <= from) return 1024;
+  const first = [...trackRecords(spec, epochsTT, values, from, from + 1, true)].reduce((n, c) => n + c.length, 0);
+  const width = values.length / epochsTT.length;
+  return (to - from) * (first + 2 * width) + 2048;
+}

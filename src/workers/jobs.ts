@@ -22,7 +22,7 @@ import { propagateTrack, type Track, type TrackInput } from '../solver/propagati
 import { stateFunction, type PropagationSpec, type StateFunction } from '../solver/propagation/propagator.js';
 import { ephemerisStateFunction, type InterpolationReport } from '../solver/propagation/ephemeris.js';
 import { sgp4FirstStop } from '../solver/propagation/sgp4.js';
-import { recordsBytesBound, trackRecords, type RecordsSpec } from '../formats/track-records.js';
+import { recordsBytesEstimate, trackRecords, type RecordsSpec } from '../formats/track-records.js';
 
 // Inline or worker thread is decided by an estimate of the work, in units of about one inertial
 // two-body grid sample (~50 ns on the two-core development machine): a job estimated under
@@ -384,8 +384,8 @@ export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wi
   send(toWire('track', result));
   // One buffer sized for all the records: written once, moved to the main thread as it is (a
   // buffer of its own: Buffer's shared pool, which must never move, holds only small ones).
-  const width = values.length / epochsTT.length;
-  const chunks = [...trackRecords(tail.spec, epochsTT, values, 0, epochsTT.length, true, recordsBytesBound(epochsTT.length, width))];
+  const room = recordsBytesEstimate(tail.spec, epochsTT, values, 0, epochsTT.length);
+  const chunks = [...trackRecords(tail.spec, epochsTT, values, 0, epochsTT.length, true, room)];
   if (chunks.length === 1 && chunks[0]!.buffer.byteLength > Buffer.poolSize) return chunks[0]!;
   const out = new Uint8Array(new ArrayBuffer(chunks.reduce((n, c) => n + c.length, 0)));
   let offset = 0;
