@@ -366,11 +366,23 @@ export function geodeticDegrees(g: Float64Array): Float64Array {
   return g;
 }
 
+/** The scratch of this thread's long-track copies: kept up to this many numbers (64 MiB), a larger need gets an array of its own. */
+const TAIL_SCRATCH_MAX = 8 * 2 ** 20;
+let scratchKept = new Float64Array(0);
+
+/** At least `size` numbers of scratch, reused from job to job (a thread runs one job at a time, and no job keeps it). */
+function tailScratch(size: number): Float64Array {
+  if (size <= scratchKept.length) return scratchKept;
+  const fresh = new Float64Array(size);
+  if (size <= TAIL_SCRATCH_MAX) scratchKept = fresh;
+  return fresh;
+}
+
 /**
  * A track job, then the records tail.from..n-1 of its answer: the track's outcome goes to send
  * (in its wire form) as soon as it is computed, the records' bytes, in one buffer of their own,
  * are the return value (null when the track failed). The records are written from copies of
- * their samples, so the states can move to the main thread first.
+ * their samples in the thread's scratch, so the states can move to the main thread first.
  */
 export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wire) => void): Uint8Array | null {
   const result = runTrack(job);
@@ -379,8 +391,16 @@ export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wi
     return null;
   }
   const r = result.value;
-  const epochsTT = r.track.epochsTT.slice(tail.from);
-  const values = tail.geodetic ? geodeticDegrees(r.geodetic!.slice(3 * tail.from)) : printedStates(r, job.teme === true).slice(6 * tail.from);
+  const source = tail.geodetic ? r.geodetic! : printedStates(r, job.teme === true);
+  const width = tail.geodetic ? 3 : 6;
+  const count = r.track.epochsTT.length - tail.from;
+  // Copies in this thread's scratch (reused from job to job), made before the arrays move.
+  const scratch = tailScratch((1 + width) * count);
+  const epochsTT = scratch.subarray(0, count);
+  epochsTT.set(r.track.epochsTT.subarray(tail.from));
+  const values = scratch.subarray(count, (1 + width) * count);
+  values.set(source.subarray(width * tail.from));
+  if (tail.geodetic) geodeticDegrees(values);
   send(toWire('track', result));
   // One buffer sized for all the records: written once, moved to the main thread as it is (a
   // buffer of its own: Buffer's shared pool, which must never move, holds only small ones).

@@ -82,6 +82,15 @@ describe('a long track written in two parts', () => {
     else expect(whole.toString().split('\r\n')).toHaveLength(N + 2); // header, N records, the empty string after the last CRLF
   });
 
+  it('one thread, tracks of other lengths and widths in turn (its scratch reused): the same bytes as in one piece', async () => {
+    for (const [frame, count] of [['gcrf', N], ['geodetic', SPLIT_MIN_SAMPLES + 3], ['teme', N - 999], ['geodetic', N]] as const) {
+      const job = (): TrackJob => { const j = jobFor(frame); return { ...j, input: { ...j.input, epochsTT: j.input.epochsTT.slice(0, count) } }; };
+      const whole = await bytesOf(productInput('csv', frame, solved(runJob(job()))));
+      const onThread = pool.trackWithTail(job(), trackTail('csv', frame, count)!);
+      expect((await bytesOf(productInput('csv', frame, solved(await onThread.result)), onThread.tail)).equals(whole), `${frame} ${count}`).toBe(true);
+    }
+  });
+
   it('a short track, OEM, GeoJSON and SVG are written in one piece', () => {
     expect(trackTail('csv', 'gcrf', SPLIT_MIN_SAMPLES - 1)).toBeNull();
     expect(trackTail('csv', 'gcrf', SPLIT_MIN_SAMPLES)).not.toBeNull();
