@@ -3,6 +3,10 @@
 // (CSV, OEM, JSON tracks) write through it and yield each full chunk.
 import { newUtcFields, utcSplitter, type UtcFields, EPOCH_FRACTION_DIGITS } from '../solver/time/time.js';
 import { fixed, scaledForFixed, SCALES } from './track-table.js';
+import { OUTPUT_CHUNKS, type ChunkPool } from './chunk-pool.js';
+
+const EMPTY = Buffer.alloc(0);
+const EMPTY_VIEW = new DataView(new ArrayBuffer(0));
 
 const ZERO = 48;
 /** "00".."99" as byte pairs: two digits per division. */
@@ -103,6 +107,8 @@ function writeFixed(buf: Uint8Array, view: DataView, pos: number, value: number,
 
 export class AsciiWriter {
   readonly #chunkBytes: number;
+  readonly #pool: ChunkPool | null;
+  /** The chunk being written; empty until the first write after a take (so that no chunk is taken and left unused). */
   #buf: Buffer;
   #view: DataView;
   #pos = 0;
@@ -112,10 +118,12 @@ export class AsciiWriter {
   #prefixText = '';
   #prefixBytes = Buffer.alloc(0);
 
+  /** Chunks of the default size come from OUTPUT_CHUNKS (given back when a response finishes, src/plugins/answers.ts). */
   constructor(epochFractionDigits = EPOCH_FRACTION_DIGITS, chunkBytes = 65_536) {
     this.#chunkBytes = chunkBytes;
-    this.#buf = Buffer.allocUnsafe(chunkBytes);
-    this.#view = new DataView(this.#buf.buffer, this.#buf.byteOffset, this.#buf.byteLength);
+    this.#pool = chunkBytes === OUTPUT_CHUNKS.chunkBytes ? OUTPUT_CHUNKS : null;
+    this.#buf = EMPTY;
+    this.#view = EMPTY_VIEW;
     this.#fractionDigits = epochFractionDigits;
     this.#split = utcSplitter(epochFractionDigits);
   }
@@ -130,21 +138,25 @@ export class AsciiWriter {
     return this.#pos >= this.#chunkBytes - 1024;
   }
 
-  /** The bytes written so far (a new buffer is started). */
+  /** The bytes written so far (the next write starts a new chunk). */
   take(): Buffer {
     const out = this.#buf.subarray(0, this.#pos);
-    this.#buf = Buffer.allocUnsafe(this.#chunkBytes);
-    this.#view = new DataView(this.#buf.buffer, this.#buf.byteOffset, this.#buf.byteLength);
+    this.#buf = EMPTY;
+    this.#view = EMPTY_VIEW;
     this.#pos = 0;
     return out;
   }
 
   #room(n: number): void {
     if (this.#pos + n <= this.#buf.length) return;
-    const bigger = Buffer.allocUnsafe(Math.max(this.#buf.length * 2, this.#pos + n));
-    this.#buf.copy(bigger, 0, 0, this.#pos);
-    this.#buf = bigger;
-    this.#view = new DataView(bigger.buffer, bigger.byteOffset, bigger.byteLength);
+    if (this.#pos === 0 && n <= this.#chunkBytes) {
+      this.#buf = this.#pool ? this.#pool.acquire() : Buffer.allocUnsafe(this.#chunkBytes);
+    } else {
+      const bigger = Buffer.allocUnsafe(Math.max(this.#buf.length * 2, this.#pos + n, this.#chunkBytes));
+      this.#buf.copy(bigger, 0, 0, this.#pos);
+      this.#buf = bigger;
+    }
+    this.#view = new DataView(this.#buf.buffer, this.#buf.byteOffset, this.#buf.byteLength);
   }
 
   /** ASCII text (callers pass ASCII only: JSON they have escaped, keywords, separators). */

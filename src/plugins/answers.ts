@@ -4,12 +4,14 @@
 // of starting their own (100 identical requests cost one computation and one place in the pool's
 // queue). The computation belongs to the flight, not to the request that started it: a client that
 // goes away stops nothing, and every waiter gets the same answer, or the same failure.
+import { Socket } from 'node:net';
 import { Readable } from 'node:stream';
 import { setImmediate as nextTurn } from 'node:timers/promises';
 import fp from 'fastify-plugin';
 import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import type { AnswerCache, CachedAnswer } from '../cache/types.js';
 import type { Product } from '../formats/product.js';
+import { OUTPUT_CHUNKS } from '../formats/chunk-pool.js';
 import { JSON_MEDIA_TYPE } from '../formats/track-json.js';
 import { scenarioHash, type ScenarioKind } from '../scenario/hash.js';
 import { assertFinite } from '../api/finite.js';
@@ -51,6 +53,9 @@ declare module 'fastify' {
     answers: AnswerService;
   }
 }
+
+/** Pooled chunks an answer gives back at most (8 MiB): the rest of a longer answer is left to the garbage collector, so that answers in flight do not hold all their written chunks. */
+const RETURNED_CHUNKS = 128;
 
 /** Milliseconds of formatting a streamed answer does before it lets the event loop turn. */
 export const SLICE_MS = 2;
@@ -187,8 +192,15 @@ export default fp(async function answers(app: FastifyInstance, opts: AnswersOpti
   const sendStored: AnswerService['sendStored'] = (_request, reply, hash, answer, cacheState) =>
     headers(reply, hash, cacheState, answer.contentType).send(answer.body);
 
-  /** Stream the chunks (in turns of the event loop: inTurns); keep a copy while it stays under maxStoredBytes and store it at the end. */
-  function streamAndStore(hash: string, answer: StreamedAnswer): Readable {
+  /**
+   * Stream the chunks (in turns of the event loop: inTurns); keep a copy while it stays under
+   * maxStoredBytes and store it at the end. The writer's pooled chunks (OUTPUT_CHUNKS) go back to
+   * the pool once the response has finished on a real socket (its last byte handed to the
+   * operating system, the stored copy made): up to RETURNED_CHUNKS of them an answer.
+   */
+  function streamAndStore(reply: FastifyReply, hash: string, answer: StreamedAnswer): Readable {
+    const sent: Buffer[] = [];
+    if (reply.raw.socket instanceof Socket) reply.raw.once('finish', () => OUTPUT_CHUNKS.release(sent.splice(0)));
     async function* bytes(): AsyncGenerator<Buffer> {
       let kept: Buffer[] | undefined = [];
       let size = 0;
@@ -196,6 +208,7 @@ export default fp(async function answers(app: FastifyInstance, opts: AnswersOpti
         size += buffer.length;
         if (kept && size <= maxStoredBytes) kept.push(buffer);
         else kept = undefined;
+        if (sent.length < RETURNED_CHUNKS && OUTPUT_CHUNKS.owns(buffer)) sent.push(buffer);
         yield buffer;
       }
       if (kept) await cache.set(hash, { body: await concatInTurns(kept, size), contentType: answer.contentType });
@@ -230,7 +243,7 @@ export default fp(async function answers(app: FastifyInstance, opts: AnswersOpti
       lookup(request, reply, kind, scenario, async (hash) => {
         const format = await shared(streamFlights, hash, async () => produce(hash));
         const answer = format();
-        return headers(reply, hash, 'miss', answer.contentType).send(streamAndStore(hash, answer));
+        return headers(reply, hash, 'miss', answer.contentType).send(streamAndStore(reply, hash, answer));
       }),
     inFlight: () => flights.size + streamFlights.size,
   };

@@ -1,0 +1,47 @@
+// Output chunks of the ASCII writer, reused from one streamed answer to the next: a chunk handed
+// to a response is returned here only once the response has finished, that is once its last byte
+// has been handed to the operating system (Node's 'finish' of http.ServerResponse: every earlier
+// write has completed, so no socket, compression stream or cache copy still reads the chunk).
+// Bounded: at most maxChunks wait here; chunks not returned (an answer cut short, a chunk kept by
+// other code) are left to the garbage collector, and then a new chunk is allocated instead.
+
+export class ChunkPool {
+  readonly #free: ArrayBuffer[] = [];
+  /** Buffers this pool made and has not been given back: only these may return, once each. */
+  readonly #out = new WeakSet<ArrayBuffer>();
+
+  constructor(readonly chunkBytes: number, readonly maxChunks: number) {
+    if (!(Number.isInteger(chunkBytes) && chunkBytes > Buffer.poolSize)) throw new RangeError('chunkBytes must exceed Buffer.poolSize (a chunk of its own, never a slice of the shared pool)');
+  }
+
+  /** A chunk of chunkBytes (its content is whatever was there: write before reading). */
+  acquire(): Buffer {
+    const reused = this.#free.pop();
+    const buffer = reused ?? Buffer.allocUnsafe(this.chunkBytes).buffer as ArrayBuffer;
+    this.#out.add(buffer);
+    return Buffer.from(buffer, 0, this.chunkBytes);
+  }
+
+  /** Give back the chunks behind these views once nothing reads them; views of other memory are ignored. */
+  release(views: Iterable<Uint8Array>): void {
+    for (const v of views) {
+      const buffer = v.buffer as ArrayBuffer;
+      if (!this.#out.has(buffer)) continue;
+      this.#out.delete(buffer);
+      if (this.#free.length < this.maxChunks) this.#free.push(buffer);
+    }
+  }
+
+  /** True for a view of a chunk this pool handed out and has not had back. */
+  owns(view: Uint8Array): boolean {
+    return this.#out.has(view.buffer as ArrayBuffer);
+  }
+
+  /** Chunks waiting to be reused. */
+  get size(): number {
+    return this.#free.length;
+  }
+}
+
+/** The chunks of the formatters' default size (64 KiB): up to 256 of them (16 MiB) kept. */
+export const OUTPUT_CHUNKS = new ChunkPool(65_536, 256);
