@@ -118,12 +118,15 @@ export class AsciiWriter {
   #prefixText = '';
   #prefixBytes = Buffer.alloc(0);
 
-  /** Chunks of the default size come from OUTPUT_CHUNKS (given back when a response finishes, src/plugins/answers.ts). */
-  constructor(epochFractionDigits = EPOCH_FRACTION_DIGITS, chunkBytes = 65_536) {
-    this.#chunkBytes = chunkBytes;
-    this.#pool = chunkBytes === OUTPUT_CHUNKS.chunkBytes ? OUTPUT_CHUNKS : null;
-    this.#buf = EMPTY;
-    this.#view = EMPTY_VIEW;
+  /**
+   * Chunks of the default size come from OUTPUT_CHUNKS (given back when a response finishes,
+   * src/plugins/answers.ts). `first`: memory for the first chunk (it is then the chunk size).
+   */
+  constructor(epochFractionDigits = EPOCH_FRACTION_DIGITS, chunkBytes = 65_536, first?: Buffer) {
+    this.#chunkBytes = first ? first.length : chunkBytes;
+    this.#pool = this.#chunkBytes === OUTPUT_CHUNKS.chunkBytes ? OUTPUT_CHUNKS : null;
+    this.#buf = first ?? EMPTY;
+    this.#view = first ? new DataView(first.buffer, first.byteOffset, first.byteLength) : EMPTY_VIEW;
     this.#fractionDigits = epochFractionDigits;
     this.#split = utcSplitter(epochFractionDigits);
   }

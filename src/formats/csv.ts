@@ -20,6 +20,8 @@ export interface CsvOptions {
   readonly velocityDecimals?: number;
   /** A chunk is yielded once it reaches this many characters (default 65536; ASCII, so bytes). */
   readonly chunkChars?: number;
+  /** Memory for the first chunk (its length is then the chunk size). */
+  readonly first?: Buffer;
 }
 
 const CRLF = '\r\n';
@@ -56,14 +58,14 @@ export const csvHeader = (columns: readonly CsvColumn[]): Buffer => Buffer.from(
  * The records of samples from..to-1 (values holds decimals.length numbers per sample): the same
  * bytes whoever writes them, so a long table can be written in parts (src/formats/track-output.ts).
  */
-export function* csvRecords(epochsTT: Float64Array, values: Float64Array, decimals: readonly number[], from: number, to: number, opts: Pick<CsvOptions, 'epochDigits' | 'chunkChars'> = {}): Generator<Buffer> {
+export function* csvRecords(epochsTT: Float64Array, values: Float64Array, decimals: readonly number[], from: number, to: number, opts: Pick<CsvOptions, 'epochDigits' | 'chunkChars' | 'first'> = {}): Generator<Buffer> {
   const width = decimals.length;
   const n = epochsTT.length;
   if (values.length !== width * n) throw new RangeError(`table holds ${values.length} numbers for ${n} epochs of ${width} columns`);
   if (!(0 <= from && from <= to && to <= n)) throw new RangeError(`records ${from}..${to} of ${n}`);
   const epochDigits = opts.epochDigits ?? EPOCH_FRACTION_DIGITS;
   checkDigits('epochDigits', epochDigits, 9);
-  const out = new AsciiWriter(epochDigits, opts.chunkChars ?? 65_536);
+  const out = new AsciiWriter(epochDigits, opts.chunkChars ?? 65_536, opts.first);
   for (let i = from; i < to; i++) {
     out.utc(epochsTT[i]!).fixedRun(values, width * i, width, decimals, 44, true);
     out.char(13).char(10);

@@ -45,12 +45,12 @@ const fieldsWidth = (fields: readonly JsonField[]): number => fields.reduce((w, 
  * unless afterFirst says these samples follow others written elsewhere): the same
  * bytes whoever writes them, so a long track can be written in parts (src/formats/track-output.ts).
  */
-export function* trackJsonRecords(epochsTT: Float64Array, values: Float64Array, fields: readonly JsonField[], from: number, to: number, chunkBytes = 65_536, afterFirst = false): Generator<Buffer> {
+export function* trackJsonRecords(epochsTT: Float64Array, values: Float64Array, fields: readonly JsonField[], from: number, to: number, chunkBytes = 65_536, afterFirst = false, first?: Buffer): Generator<Buffer> {
   const width = fieldsWidth(fields);
   const n = epochsTT.length;
   if (values.length !== width * n) throw new RangeError(`table holds ${values.length} numbers for ${n} epochs of ${width} columns`);
   if (!(0 <= from && from <= to && to <= n)) throw new RangeError(`records ${from}..${to} of ${n}`);
-  const out = new AsciiWriter(undefined, chunkBytes);
+  const out = new AsciiWriter(undefined, chunkBytes, first);
   const prefixes = fields.map((f) => Buffer.from(`,"${f.key}":${f.count > 1 ? '[' : ''}`, 'latin1'));
   const decimals = fields.map((f) => Array.from({ length: f.count }, () => f.decimals));
   const firstOpen = Buffer.from('{"epoch":"', 'latin1');

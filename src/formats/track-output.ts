@@ -12,6 +12,7 @@ import { JSON_MEDIA_TYPE, STATE_COLUMNS, STATE_FIELDS, TRACK_JSON_END, trackJson
 import { assertPrintable, firstUnprintable } from './track-table.js';
 import { trackRecords, type RecordsSpec } from './track-records.js';
 import type { TrackTail } from '../workers/jobs.js';
+import type { ChunkPool } from './chunk-pool.js';
 
 export const TRACK_FORMATS = [
   ['json', 'application/json'],
@@ -109,33 +110,72 @@ export function trackTail(format: TrackFormat, frame: TrackFrame, n: number): Tr
   return { spec, from: Math.floor(n * MAIN_SHARE), geodetic: frame === 'geodetic' };
 }
 
+/**
+ * The last records of one computed track, written by a solver thread (`bytes`), shared by every
+ * answer formatted from the track; `arena`, when the thread wrote them into the main thread's
+ * shared memory, goes back to `arenas` once every answer that took the bytes has been delivered
+ * (finished on a socket) and the thread ended normally. From then on an answer that asks gets
+ * null and writes the records itself; an answer not delivered, or a thread that failed (it may
+ * still be writing), keeps the arena out of the pool for good.
+ */
+export class TailBytes {
+  #users = 0;
+  #open = true;
+  #spoilt = false;
+
+  constructor(readonly bytes: Promise<readonly Buffer[]>, readonly arena: Buffer | null = null, readonly arenas: ChunkPool | null = null) {
+    bytes.catch(() => { this.#spoilt = true; });
+  }
+
+  /** The bytes for one more answer, or null once the arena has gone back. */
+  take(): Promise<readonly Buffer[]> | null {
+    if (!this.#open) return null;
+    this.#users++;
+    return this.bytes;
+  }
+
+  /** An answer that took the bytes has ended: delivered, or not (cut short, an error, no socket). */
+  settled(delivered: boolean): void {
+    if (!delivered) this.#spoilt = true;
+    if (--this.#users > 0 || !this.#open) return;
+    this.#open = false;
+    if (!this.#spoilt && this.arena && this.arenas) this.arenas.release([this.arena]);
+  }
+}
+
 /** Header, records and closing of a CSV or JSON track: the last records from `tail` when the track is long and they are given (if they fail, written here). */
-function splitChunks(head: Buffer, t: TrackProductInput, values: Float64Array, end: Buffer | null, tail: Promise<Buffer> | undefined): Iterable<Buffer> | AsyncIterable<Buffer> {
+function splitChunks(head: Buffer, t: TrackProductInput, values: Float64Array, end: Buffer | null, tail: TailBytes | undefined): Pick<Product, 'chunks' | 'settled'> {
   const n = t.epochsTT.length;
   const spec = recordsSpec(t.format, t.frame)!;
   const plan = trackTail(t.format, t.frame, n);
-  if (!tail || !plan) {
-    return (function* () {
-      yield head;
-      yield* trackRecords(spec, t.epochsTT, values, 0, n);
-      if (end) yield end;
-    })();
+  const bytes = plan ? tail?.take() ?? null : null;
+  if (!bytes || !plan) {
+    return {
+      chunks: (function* () {
+        yield head;
+        yield* trackRecords(spec, t.epochsTT, values, 0, n);
+        if (end) yield end;
+      })(),
+    };
   }
-  const rest = tail.catch(() => Buffer.concat([...trackRecords(spec, t.epochsTT, values, plan.from, n)]));
-  return (async function* () {
-    yield head;
-    yield* trackRecords(spec, t.epochsTT, values, 0, plan.from);
-    yield await rest;
-    if (end) yield end;
-  })();
+  const rest = bytes.catch(() => [...trackRecords(spec, t.epochsTT, values, plan.from, n)]);
+  return {
+    chunks: (async function* () {
+      yield head;
+      yield* trackRecords(spec, t.epochsTT, values, 0, plan.from);
+      yield* await rest;
+      if (end) yield end;
+    })(),
+    settled: (delivered) => tail!.settled(delivered),
+  };
 }
 
 /**
  * The track in its format; refuses (422) states that cannot be printed before anything is
- * streamed. A long CSV or JSON track takes its last records (trackTail's) from `tail` when given:
- * the same bytes as written here.
+ * streamed. A long CSV or JSON track takes its last records (trackTail's) from `tail` when given
+ * (and it still has them): the same bytes as written here.
  */
-export function trackProduct(t: TrackProductInput, tail?: Promise<Buffer>): Product {
+export function trackProduct(t: TrackProductInput, tail?: TailBytes): Product {
   assertFinite(t.head);
   const geodetic = t.frame === 'geodetic' || isGroundTrack(t.format);
   // The numbers printed, checked before anything streams (a formatter that throws mid-answer can only cut it short).
@@ -157,11 +197,11 @@ export function trackProduct(t: TrackProductInput, tail?: Promise<Buffer>): Prod
       const n = t.epochsTT.length;
       return { contentType: SVG_MEDIA_TYPE, chunks: [groundTrackSvg(samples, { name: t.object.name, startLabel: label(t.epochsTT[0]!), endLabel: label(t.epochsTT[n - 1]!) })] };
     }
-    if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: splitChunks(csvHeader(GEODETIC_CSV), t, g, null, tail) };
-    return { contentType: JSON_MEDIA_TYPE, chunks: splitChunks(trackJsonHead(t.head), t, g, TRACK_JSON_END, tail) };
+    if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, ...splitChunks(csvHeader(GEODETIC_CSV), t, g, null, tail) };
+    return { contentType: JSON_MEDIA_TYPE, ...splitChunks(trackJsonHead(t.head), t, g, TRACK_JSON_END, tail) };
   }
   const table = { epochsTT: t.epochsTT, states: t.states };
-  if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, chunks: splitChunks(csvHeader(STATE_CSV), t, t.states, null, tail) };
+  if (t.format === 'csv') return { contentType: CSV_MEDIA_TYPE, ...splitChunks(csvHeader(STATE_CSV), t, t.states, null, tail) };
   if (t.format === 'oem') {
     return {
       contentType: OEM_MEDIA_TYPE,
@@ -176,5 +216,5 @@ export function trackProduct(t: TrackProductInput, tail?: Promise<Buffer>): Prod
       }),
     };
   }
-  return { contentType: JSON_MEDIA_TYPE, chunks: splitChunks(trackJsonHead(t.head), t, t.states, TRACK_JSON_END, tail) };
+  return { contentType: JSON_MEDIA_TYPE, ...splitChunks(trackJsonHead(t.head), t, t.states, TRACK_JSON_END, tail) };
 }

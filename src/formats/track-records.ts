@@ -10,11 +10,11 @@ export type RecordsSpec =
   | { readonly format: 'csv'; readonly decimals: readonly number[] }
   | { readonly format: 'json'; readonly fields: readonly JsonField[] };
 
-/** Records from..to-1 of a CSV or JSON track; afterFirst: they follow records written elsewhere (JSON: a comma before the first); in chunks of about chunkBytes. */
-export function trackRecords(spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number, to: number, afterFirst = false, chunkBytes = 65_536): Generator<Buffer> {
+/** Records from..to-1 of a CSV or JSON track; afterFirst: they follow records written elsewhere (JSON: a comma before the first); in chunks of about chunkBytes, the first in `first` when given. */
+export function trackRecords(spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number, to: number, afterFirst = false, chunkBytes = 65_536, first?: Buffer): Generator<Buffer> {
   return spec.format === 'csv'
-    ? csvRecords(epochsTT, values, spec.decimals, from, to, { chunkChars: chunkBytes })
-    : trackJsonRecords(epochsTT, values, spec.fields, from, to, chunkBytes, afterFirst);
+    ? csvRecords(epochsTT, values, spec.decimals, from, to, { chunkChars: chunkBytes, ...(first ? { first } : {}) })
+    : trackJsonRecords(epochsTT, values, spec.fields, from, to, chunkBytes, afterFirst, first);
 }
 
 /**

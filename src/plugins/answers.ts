@@ -196,11 +196,19 @@ export default fp(async function answers(app: FastifyInstance, opts: AnswersOpti
    * Stream the chunks (in turns of the event loop: inTurns); keep a copy while it stays under
    * maxStoredBytes and store it at the end. The writer's pooled chunks (OUTPUT_CHUNKS) go back to
    * the pool once the response has finished on a real socket (its last byte handed to the
-   * operating system, the stored copy made): up to RETURNED_CHUNKS of them an answer.
+   * operating system, the stored copy made): up to RETURNED_CHUNKS of them an answer. The
+   * answer is told how it ended (settled): delivered on a socket, or not.
    */
   function streamAndStore(reply: FastifyReply, hash: string, answer: StreamedAnswer): Readable {
     const sent: Buffer[] = [];
-    if (reply.raw.socket instanceof Socket) reply.raw.once('finish', () => OUTPUT_CHUNKS.release(sent.splice(0)));
+    const onSocket = reply.raw.socket instanceof Socket;
+    let finished = false;
+    reply.raw.once('finish', () => {
+      finished = true;
+      if (onSocket) OUTPUT_CHUNKS.release(sent.splice(0));
+      answer.settled?.(onSocket);
+    });
+    reply.raw.once('close', () => { if (!finished) answer.settled?.(false); });
     async function* bytes(): AsyncGenerator<Buffer> {
       let kept: Buffer[] | undefined = [];
       let size = 0;

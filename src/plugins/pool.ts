@@ -16,7 +16,7 @@ export interface PoolService {
   /** Solve a job inline or on a worker thread; ProblemError('overloaded') when the queue is full. */
   solve<J extends Job>(job: J): Promise<JobResult<J>>;
   /** A long CSV or JSON track and its last records from one thread (SolverPool.trackWithTail); result fails as solve() does, tail rejects when the records must be written here. */
-  trackWithTail(job: TrackJob, tail: TrackTail): { result: Promise<Outcome<TrackJobResult>>; tail: Promise<Buffer> };
+  trackWithTail(job: TrackJob, tail: TrackTail, arena?: SharedArrayBuffer): { result: Promise<Outcome<TrackJobResult>>; tail: Promise<Buffer[]> };
   stats(): PoolStats;
 }
 
@@ -58,8 +58,8 @@ export default fp(async function pool(app: FastifyInstance) {
         throw asProblem(error);
       }
     },
-    trackWithTail(job, tail) {
-      const solving = solver.trackWithTail(job, tail);
+    trackWithTail(job, tail, arena) {
+      const solving = solver.trackWithTail(job, tail, arena);
       return { result: solving.result.catch((error: unknown) => { throw asProblem(error); }), tail: solving.tail };
     },
     stats: () => solver.stats(),

@@ -2,7 +2,8 @@
 import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
 import { solverProblem } from '../errors.js';
-import { epochsForFormat, TRACK_FORMATS, trackNeeds, trackProduct, trackTail } from '../formats/track-output.js';
+import { epochsForFormat, TailBytes, TRACK_FORMATS, trackNeeds, trackProduct, trackTail } from '../formats/track-output.js';
+import { TAIL_ARENAS } from '../formats/chunk-pool.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
 import { gridEpochs } from '../api/grid.js';
@@ -60,11 +61,13 @@ const track: FastifyPluginAsyncZod = async (app) => {
       // computation shares those bytes.
       const job = trackJob(req, body, start.value, epochs, needs, samples.empty ? frame : forSpan(frame, samples.lo, samples.hi));
       const plan = trackTail(format, req.frame, epochs.length);
-      const solving = plan ? app.pool.trackWithTail(job, plan) : { result: app.pool.solve(job), tail: undefined };
+      const arena = plan ? TAIL_ARENAS.acquire() : null;
+      const solving = plan ? app.pool.trackWithTail(job, plan, arena!.buffer as SharedArrayBuffer) : { result: app.pool.solve(job), tail: undefined };
+      const tail = solving.tail ? new TailBytes(solving.tail, arena, TAIL_ARENAS) : undefined;
       const result = await solving.result;
       if (!result.ok) throw solverProblem(result);
       const input = trackProductInput(req, format, hash, body, start.value, result.value, earthOrientationDiagnostics(eop, used, req.ut1MinusUtc));
-      return () => trackProduct(input, solving.tail);
+      return () => trackProduct(input, tail);
     });
   });
 };

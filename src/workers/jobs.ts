@@ -380,11 +380,12 @@ function tailScratch(size: number): Float64Array {
 
 /**
  * A track job, then the records tail.from..n-1 of its answer: the track's outcome goes to send
- * (in its wire form) as soon as it is computed, the records' bytes, in one buffer of their own,
- * are the return value (null when the track failed). The records are written from copies of
+ * (in its wire form) as soon as it is computed; the records' bytes, in order, are the return
+ * value (null when the track failed), written into `arena` (the main thread's shared memory) when
+ * they fit, else into buffers of their own. The records are written from copies of
  * their samples in the thread's scratch, so the states can move to the main thread first.
  */
-export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wire) => void): Uint8Array | null {
+export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wire) => void, arena?: SharedArrayBuffer): Uint8Array[] | null {
   const result = runTrack(job);
   if (!result.ok) {
     send(toWire('track', result));
@@ -402,18 +403,12 @@ export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wi
   values.set(source.subarray(width * tail.from));
   if (tail.geodetic) geodeticDegrees(values);
   send(toWire('track', result));
-  // One buffer sized for all the records: written once, moved to the main thread as it is (a
-  // buffer of its own: Buffer's shared pool, which must never move, holds only small ones).
+  // Into the main thread's arena when they fit, else one buffer sized for them: written once,
+  // then shared or moved as they are (buffers of their own: Buffer's shared pool, which must never
+  // move, holds only small ones, and the estimate is far above its size).
   const room = recordsBytesEstimate(tail.spec, epochsTT, values, 0, epochsTT.length);
-  const chunks = [...trackRecords(tail.spec, epochsTT, values, 0, epochsTT.length, true, room)];
-  if (chunks.length === 1 && chunks[0]!.buffer.byteLength > Buffer.poolSize) return chunks[0]!;
-  const out = new Uint8Array(new ArrayBuffer(chunks.reduce((n, c) => n + c.length, 0)));
-  let offset = 0;
-  for (const c of chunks) {
-    out.set(c, offset);
-    offset += c.length;
-  }
-  return out;
+  const first = arena && room <= arena.byteLength ? Buffer.from(arena) : undefined;
+  return [...trackRecords(tail.spec, epochsTT, values, 0, epochsTT.length, true, room, first)];
 }
 
 /** The result of a job of this kind in its wire form (worker side). */

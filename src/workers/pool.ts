@@ -155,14 +155,16 @@ export class SolverPool {
    * A long CSV or JSON track in a worker thread, whose last records (tail.from..n-1) the same
    * thread writes once it has sent the track: `result` settles as soon as the track is computed,
    * `tail` when its records are written. `tail` rejects when the track failed or the thread could
-   * not write them (stopped at the deadline, died): the caller then writes them itself. A job sure
+   * not write them (stopped at the deadline, died): the caller then writes them itself. `arena`:
+   * shared memory the thread writes the records into when they fit (a thread that failed may
+   * still be writing it: never reuse it then). A job sure
    * to break a limit is refused as solve() refuses it (its failure is the result).
    */
-  trackWithTail(job: TrackJob, tail: TrackTail): { result: Promise<Outcome<TrackJobResult>>; tail: Promise<Buffer> } {
+  trackWithTail(job: TrackJob, tail: TrackTail, arena?: SharedArrayBuffer): { result: Promise<Outcome<TrackJobResult>>; tail: Promise<Buffer[]> } {
     const refused = refusedBeforeWork(job);
     if (refused) return { result: Promise.resolve(refused), tail: handled(Promise.reject(new Error('the track was refused'))) };
     const { port1, port2 } = new MessageChannel();
-    const task: TrackTailTask = { kind: 'track-tail', job, tail, port: port2 };
+    const task: TrackTailTask = { kind: 'track-tail', job, tail, port: port2, ...(arena ? { arena } : {}) };
     const bytes = this.#run(job.kind, task, [...payloadTransfer(job), port2]);
     const result = new Promise<Outcome<TrackJobResult>>((resolve, reject) => {
       let settled = false;
@@ -184,9 +186,9 @@ export class SolverPool {
       };
       bytes.then(() => ended(undefined), ended);
     });
-    const records = bytes.then((u) => {
-      if (!(u instanceof Uint8Array)) throw new Error('the track failed: no records');
-      return Buffer.from(u.buffer, u.byteOffset, u.byteLength);
+    const records = bytes.then((parts) => {
+      if (!Array.isArray(parts)) throw new Error('the track failed: no records');
+      return (parts as Uint8Array[]).map((u) => Buffer.from(u.buffer, u.byteOffset, u.byteLength));
     });
     return { result, tail: handled(records) };
   }

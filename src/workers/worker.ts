@@ -50,6 +50,8 @@ export interface TrackTailTask {
   readonly job: TrackJob;
   readonly tail: TrackTail;
   readonly port: MessagePort;
+  /** The main thread's shared memory for the records (TAIL_ARENAS), when it lent one. */
+  readonly arena?: SharedArrayBuffer;
 }
 
 /** A wire form for piscina: its buffers transferred, not copied. */
@@ -58,6 +60,7 @@ const moved = (wire: Wire): unknown => move({ [transferableSymbol]: wire.transfe
 export default function solveJob(task: Job | TrackTailTask): unknown {
   if (task.kind !== 'track-tail') return moved(toWire(task.kind, runJob(task)));
   // The main thread closes the channel once it has the track (closing here could race the message).
-  const records = runTrackWithTail(task.job, task.tail, (wire) => task.port.postMessage(wire.value, wire.transfer));
-  return records === null ? null : moved({ value: records, transfer: [records.buffer as ArrayBuffer] });
+  const records = runTrackWithTail(task.job, task.tail, (wire) => task.port.postMessage(wire.value, wire.transfer), task.arena);
+  // Shared memory (the arena) is shared, not moved: only the thread's own buffers are transferred.
+  return records === null ? null : moved({ value: records, transfer: [...new Set(records.map((r) => r.buffer).filter((b): b is ArrayBuffer => b instanceof ArrayBuffer))] });
 }

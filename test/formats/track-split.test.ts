@@ -7,7 +7,8 @@
 // records back.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
-import { SPLIT_MIN_SAMPLES, trackProduct, trackTail, type TrackFormat, type TrackFrame, type TrackProductInput } from '../../src/formats/track-output.js';
+import { SPLIT_MIN_SAMPLES, TailBytes, trackProduct, trackTail, type TrackFormat, type TrackFrame, type TrackProductInput } from '../../src/formats/track-output.js';
+import { ChunkPool } from '../../src/formats/chunk-pool.js';
 import { BODIES } from '../../src/solver/bodies/bodies.js';
 import { geodeticDegrees, printedStates, runJob, type TrackJob, type TrackJobResult } from '../../src/workers/jobs.js';
 import { SolverPool, WorkerFailedError } from '../../src/workers/pool.js';
@@ -50,7 +51,7 @@ function productInput(format: TrackFormat, frame: TrackFrame, r: TrackJobResult)
   };
 }
 
-async function bytesOf(t: TrackProductInput, tail?: Promise<Buffer>): Promise<Buffer> {
+async function bytesOf(t: TrackProductInput, tail?: TailBytes): Promise<Buffer> {
   const parts: Buffer[] = [];
   for await (const c of trackProduct(t, tail).chunks) parts.push(typeof c === 'string' ? Buffer.from(c) : c);
   return Buffer.concat(parts);
@@ -74,10 +75,17 @@ describe('a long track written in two parts', () => {
     expect(plan.from).toBeLessThan(N);
     const onThread = pool.trackWithTail(jobFor(frame), plan);
     const fromThread = productInput(format, frame, solved(await onThread.result));
-    expect((await bytesOf(fromThread, onThread.tail)).equals(whole)).toBe(true);
+    expect((await bytesOf(fromThread, new TailBytes(onThread.tail))).equals(whole)).toBe(true);
+    // Into an arena of shared memory: the same bytes, the thread's part in the arena itself.
+    const arena = Buffer.from(new SharedArrayBuffer(12 * 2 ** 20));
+    const inArena = pool.trackWithTail(jobFor(frame), plan, arena.buffer as SharedArrayBuffer);
+    const parts = await inArena.tail;
+    expect(parts[0]!.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(Buffer.compare(parts[0]!, arena.subarray(0, parts[0]!.length))).toBe(0);
+    expect((await bytesOf(productInput(format, frame, solved(await inArena.result)), new TailBytes(inArena.tail))).equals(whole)).toBe(true);
     // The thread could not write them (stopped, died): they are written here, the same bytes.
     const again = productInput(format, frame, solved(runJob(jobFor(frame))));
-    expect((await bytesOf(again, Promise.reject(new Error('the thread stopped')))).equals(whole)).toBe(true);
+    expect((await bytesOf(again, new TailBytes(Promise.reject(new Error('the thread stopped'))))).equals(whole)).toBe(true);
     if (format === 'json') expect(JSON.parse(whole.toString()).samples).toHaveLength(N);
     else expect(whole.toString().split('\r\n')).toHaveLength(N + 2); // header, N records, the empty string after the last CRLF
   });
@@ -87,8 +95,36 @@ describe('a long track written in two parts', () => {
       const job = (): TrackJob => { const j = jobFor(frame); return { ...j, input: { ...j.input, epochsTT: j.input.epochsTT.slice(0, count) } }; };
       const whole = await bytesOf(productInput('csv', frame, solved(runJob(job()))));
       const onThread = pool.trackWithTail(job(), trackTail('csv', frame, count)!);
-      expect((await bytesOf(productInput('csv', frame, solved(await onThread.result)), onThread.tail)).equals(whole), `${frame} ${count}`).toBe(true);
+      expect((await bytesOf(productInput('csv', frame, solved(await onThread.result)), new TailBytes(onThread.tail))).equals(whole), `${frame} ${count}`).toBe(true);
     }
+  });
+
+  it('the arena goes back once every answer that took the bytes was delivered, never after a failure or an answer not delivered', async () => {
+    const arenas = new ChunkPool(8192 + 1, 4, (n) => new SharedArrayBuffer(n));
+    const make = (bytes: Promise<readonly Buffer[]>): TailBytes => new TailBytes(bytes, arenas.acquire(), arenas);
+    const ok = make(Promise.resolve([Buffer.from('x')]));
+    expect(ok.take()).not.toBeNull();
+    expect(ok.take()).not.toBeNull();
+    ok.settled(true);
+    expect(arenas.size).toBe(0); // one answer still streaming
+    ok.settled(true);
+    expect(arenas.size).toBe(1);
+    expect(ok.take()).toBeNull(); // gone back: a later answer writes the records itself
+    const cut = make(Promise.resolve([Buffer.from('x')])); // takes the arena just given back
+    expect(arenas.size).toBe(0);
+    cut.take();
+    cut.take();
+    cut.settled(false);
+    cut.settled(true);
+    expect(arenas.size).toBe(0); // an answer cut short (or not on a socket): kept out of the pool
+    const failed = make(Promise.reject(new Error('the thread died')));
+    failed.take();
+    await new Promise((r) => setImmediate(r));
+    failed.settled(true);
+    expect(arenas.size).toBe(0); // the thread may still be writing it
+    // An answer formatted after the arena went back: the same bytes, all written here.
+    const t = productInput('csv', 'gcrf', solved(runJob(jobFor('gcrf'))));
+    expect((await bytesOf(t, ok)).equals(await bytesOf(t))).toBe(true);
   });
 
   it('a short track, OEM, GeoJSON and SVG are written in one piece', () => {
