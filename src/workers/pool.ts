@@ -157,8 +157,8 @@ export class SolverPool {
    * `tail` when its records are written. `tail` rejects when the track failed or the thread could
    * not write them (stopped at the deadline, died): the caller then writes them itself. `arena`:
    * shared memory the thread writes the records into when they fit (a thread that failed may
-   * still be writing it: never reuse it then). A job sure
-   * to break a limit is refused as solve() refuses it (its failure is the result).
+   * still be writing it: never reuse it then). A job sure to break a limit is refused as solve()
+   * refuses it (its failure is the result).
    */
   trackWithTail(job: TrackJob, tail: TrackTail, arena?: SharedArrayBuffer): { result: Promise<Outcome<TrackJobResult>>; tail: Promise<Buffer[]> } {
     const refused = refusedBeforeWork(job);
