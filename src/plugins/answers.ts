@@ -202,13 +202,17 @@ export default fp(async function answers(app: FastifyInstance, opts: AnswersOpti
   function streamAndStore(reply: FastifyReply, hash: string, answer: StreamedAnswer): Readable {
     const sent: Buffer[] = [];
     const onSocket = reply.raw.socket instanceof Socket;
-    let finished = false;
+    let told = false;
+    const settle = (delivered: boolean): void => {
+      if (told) return; // once, whichever event comes first
+      told = true;
+      answer.settled?.(delivered);
+    };
     reply.raw.once('finish', () => {
-      finished = true;
-      if (onSocket) OUTPUT_CHUNKS.release(sent.splice(0));
-      answer.settled?.(onSocket);
+      if (!told && onSocket) OUTPUT_CHUNKS.release(sent.splice(0));
+      settle(onSocket);
     });
-    reply.raw.once('close', () => { if (!finished) answer.settled?.(false); });
+    reply.raw.once('close', () => settle(false));
     async function* bytes(): AsyncGenerator<Buffer> {
       let kept: Buffer[] | undefined = [];
       let size = 0;
