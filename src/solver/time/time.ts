@@ -167,11 +167,23 @@ export interface UtcFields {
  * It keeps the UTC day of the previous call, so a track's sorted epochs cost a few integer
  * operations each. Writes into `out` (no allocation per call).
  */
+/**
+ * floor(n / d) for integers 0 <= n < 2^53 and d > 0, from the product with inverse = 1 / d and a
+ * one-step correction where its rounding crossed an integer (exact integer arithmetic): the same
+ * quotient as the division, without one (common practice, no source).
+ */
+function quotient(n: number, d: number, inverse: number): number {
+  const q = Math.floor(n * inverse);
+  const r = n - q * d;
+  return r < 0 ? q - 1 : r >= d ? q + 1 : q;
+}
+
 export function utcSplitter(fractionDigits = EPOCH_FRACTION_DIGITS): (tt: number, out: UtcFields) => void {
   if (!(Number.isInteger(fractionDigits) && fractionDigits >= 0 && fractionDigits <= 9)) {
     throw new RangeError(`fractionDigits must be an integer 0-9, got ${fractionDigits}`);
   }
   const unitsPerSecond = 10 ** fractionDigits;
+  const secondsPerUnit = 1 / unitsPerSecond;
   let dayStartTT = NaN;
   let dayLengthUnits = 0;
   let nextDayStartTT = NaN;
@@ -197,7 +209,7 @@ export function utcSplitter(fractionDigits = EPOCH_FRACTION_DIGITS): (tt: number
       units -= dayLengthUnits;
       out.datePrefix = nextPrefix;
     }
-    const wholeSeconds = Math.floor(units / unitsPerSecond);
+    const wholeSeconds = quotient(units, unitsPerSecond, secondsPerUnit);
     out.fraction = units - wholeSeconds * unitsPerSecond;
     if (wholeSeconds >= SECONDS_PER_DAY) {
       // Inside a leap second.
@@ -205,9 +217,9 @@ export function utcSplitter(fractionDigits = EPOCH_FRACTION_DIGITS): (tt: number
       out.minute = 59;
       out.second = 60;
     } else {
-      out.hour = Math.floor(wholeSeconds / 3600);
+      out.hour = quotient(wholeSeconds, 3600, 1 / 3600);
       const rest = wholeSeconds - out.hour * 3600;
-      out.minute = Math.floor(rest / 60);
+      out.minute = quotient(rest, 60, 1 / 60);
       out.second = rest - out.minute * 60;
     }
   };

@@ -55,6 +55,21 @@ describe('time scales', () => {
     }));
   });
 
+  it('formats the instants at and next to whole seconds, minutes and hours as Date#toISOString does (ECMA-262 sec. 21.4.4.36)', () => {
+    // The splitter's quotients by 10^d, 3600 and 60 are products with a one-step correction:
+    // check them where the product can round across an integer.
+    const base = Date.UTC(2026, 11, 1);
+    for (const second of [0, 1, 59, 60, 61, 3599, 3600, 3601, 43_200, 86_340, 86_399]) {
+      for (const ms of [0, 1, 999]) {
+        const iso = new Date(base + second * 1000 + ms).toISOString(); // e.g. 2026-12-01T13:00:00.001Z
+        expect(formatUtcIso(tt(iso), 3), iso).toBe(iso);
+        // Six digits: an epoch near 2026 is a TT double good to about 1e-7 s, not to nine digits.
+        expect(formatUtcIso(tt(iso), 6), iso).toBe(iso.replace('Z', '000Z'));
+        if (ms === 0) expect(formatUtcIso(tt(iso), 0), iso).toBe(iso.replace('.000Z', 'Z'));
+      }
+    }
+  });
+
   it('format then parse returns the epoch to the printed precision', () => {
     fc.assert(fc.property(fc.double({ min: -8e8, max: 3e9, noNaN: true }), (t) => {
       const back = tt(formatUtcIso(t, 6));
