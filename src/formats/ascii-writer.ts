@@ -3,6 +3,7 @@
 // (CSV, OEM, JSON tracks) write through it and yield each full chunk.
 import { newUtcFields, utcSplitter, type UtcFields, EPOCH_FRACTION_DIGITS } from '../solver/time/time.js';
 import { fixed, scaledForFixed, SCALES } from './track-table.js';
+import { quotient } from '../solver/core/math.js';
 import { OUTPUT_CHUNKS, type ChunkPool } from './chunk-pool.js';
 
 const EMPTY = Buffer.alloc(0);
@@ -77,11 +78,7 @@ function writeTwo(buf: Uint8Array, pos: number, n: number): void {
  * end, or -1 where the general path must decide (ties, large magnitudes, other decimals): the
  * same test as scaledForFixed, so both give the same digits.
  */
-/**
- * 1 / 10^d: the whole part is floor(scaled * INV_SCALES[d]) corrected by one where the product's
- * rounding crossed an integer (the remainder then falls outside [0, 10^d)); exact integer
- * arithmetic below 2^53, the same quotient as floor(scaled / 10^d), without a division.
- */
+/** 1 / 10^d: the whole part is quotient(scaled, 10^d, INV_SCALES[d]), the division's quotient without a division. */
 const INV_SCALES = SCALES.map((s) => 1 / s);
 
 function writeFixed(buf: Uint8Array, view: DataView, pos: number, value: number, decimals: number): number {
@@ -91,9 +88,8 @@ function writeFixed(buf: Uint8Array, view: DataView, pos: number, value: number,
   const floor = Math.floor(magnitude);
   if (!(magnitude < 9e15) || !(Math.abs(magnitude - floor - 0.5) > 1e-6)) return -1;
   const scaled = Math.round(magnitude);
-  let whole = Math.floor(scaled * INV_SCALES[decimals]!);
-  let frac = scaled - whole * scale;
-  if (frac >= scale) { whole++; frac -= scale; } else if (frac < 0) { whole--; frac += scale; }
+  const whole = quotient(scaled, scale, INV_SCALES[decimals]!);
+  const frac = scaled - whole * scale;
   if (whole >= INT32_LIMIT) return -1;
   let p = pos;
   if (value < 0 && scaled !== 0) buf[p++] = 45;

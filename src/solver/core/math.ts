@@ -43,3 +43,14 @@ export function relativeDifference(a: number, b: number): number {
   const scale = Math.max(Math.abs(a), Math.abs(b));
   return scale === 0 ? 0 : Math.abs(a - b) / scale;
 }
+
+/**
+ * floor(n / d) for integers 0 <= n < 2^53 and d > 0, from the product with inverse = 1 / d and a
+ * one-step correction where its rounding crossed an integer (exact integer arithmetic): the same
+ * quotient as the division, without one (common practice, no source).
+ */
+export function quotient(n: number, d: number, inverse: number): number {
+  const q = Math.floor(n * inverse);
+  const r = n - q * d;
+  return r < 0 ? q - 1 : r >= d ? q + 1 : q;
+}

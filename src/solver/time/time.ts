@@ -4,7 +4,7 @@
 // UTC -> TAI by the leap-second table below; TT = TAI + 32.184 s (IAU 1991, Resolution A4).
 // UT1 = UTC + dut1, with dut1 = 0 unless the caller gives UT1-UTC.
 
-import { SECONDS_PER_DAY } from '../core/math.js';
+import { quotient, SECONDS_PER_DAY } from '../core/math.js';
 import { failure, success, type Outcome } from '../core/result.js';
 
 /** TT - TAI in seconds (IAU 1991 Resolution A4; IERS Conventions 2010, sec. 10.1). */
@@ -167,17 +167,6 @@ export interface UtcFields {
  * It keeps the UTC day of the previous call, so a track's sorted epochs cost a few integer
  * operations each. Writes into `out` (no allocation per call).
  */
-/**
- * floor(n / d) for integers 0 <= n < 2^53 and d > 0, from the product with inverse = 1 / d and a
- * one-step correction where its rounding crossed an integer (exact integer arithmetic): the same
- * quotient as the division, without one (common practice, no source).
- */
-function quotient(n: number, d: number, inverse: number): number {
-  const q = Math.floor(n * inverse);
-  const r = n - q * d;
-  return r < 0 ? q - 1 : r >= d ? q + 1 : q;
-}
-
 export function utcSplitter(fractionDigits = EPOCH_FRACTION_DIGITS): (tt: number, out: UtcFields) => void {
   if (!(Number.isInteger(fractionDigits) && fractionDigits >= 0 && fractionDigits <= 9)) {
     throw new RangeError(`fractionDigits must be an integer 0-9, got ${fractionDigits}`);
