@@ -22,9 +22,13 @@ export function trackRecords(spec: RecordsSpec, epochsTT: Float64Array, values: 
  * bytes a number (a sign, one more whole digit) for each record, plus the writer's margin. Larger
  * records only cost a second buffer; pages left unwritten are never touched.
  */
+/** Room for the one record recordsBytesEstimate writes to measure it (a longer record grows the chunk). */
+const PROBE_BYTES = 2048;
+
 export function recordsBytesEstimate(spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number, to: number): number {
   if (to <= from) return 1024;
-  const first = [...trackRecords(spec, epochsTT, values, from, from + 1, true)].reduce((n, c) => n + c.length, 0);
+  // The probe in a small chunk (Buffer's shared pool): not one of OUTPUT_CHUNKS, which it would never give back.
+  const first = [...trackRecords(spec, epochsTT, values, from, from + 1, true, PROBE_BYTES)].reduce((n, c) => n + c.length, 0);
   const width = values.length / epochsTT.length;
   return (to - from) * (first + 2 * width) + 2048;
 }
