@@ -104,10 +104,11 @@ export function* oemChunks(table: TrackTable, meta: OemMeta): Generator<Buffer> 
   yield Buffer.from(chunk, 'latin1');
 
   const out = new AsciiWriter(digits, chunkChars);
+  const decimals = [pd, pd, pd, vd, vd, vd];
   for (let i = 0; i < n; i++) {
-    const o = 6 * i;
     out.utc(epochsTT[i]!, false);
-    for (let c = 0; c < 6; c++) out.char(32).fixed(states[o + c]!, c < 3 ? pd : vd);
+    // Each number after a space; the writer reads them from the table (no number boxed a sample).
+    out.fixedRun(states, 6 * i, 6, decimals, 32, true);
     out.char(10);
     if (out.full) yield out.take();
   }
