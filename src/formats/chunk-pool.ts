@@ -46,10 +46,17 @@ export class ChunkPool {
 /** The chunks of the formatters' default size (64 KiB): up to 256 of them (16 MiB) kept. */
 export const OUTPUT_CHUNKS = new ChunkPool(65_536, 256);
 
+/** Samples whose states a tail arena holds at its start (48 bytes each: 4.8 MB for the default MAX_TRACK_SAMPLES). */
+export const TAIL_ARENA_STATES_MAX = 100_000;
+
 /**
- * Shared memory a solver thread writes the last records of a long track into (SolverPool.trackWithTail),
- * 12 MiB each (the last 55 % of 100,000 JSON samples take 7.7 MB), up to 2 kept: an arena goes back
- * only once every answer that streamed its bytes has finished on a socket and the thread has
- * ended normally (TailBytes in src/formats/track-output.ts); else it is left to the collector.
+ * Shared memory a solver thread writes a long track into (SolverPool.trackWithTail): its states
+ * at the start (up to TAIL_ARENA_STATES_MAX samples, for the models that can write them there),
+ * then the last records of the answer. 14 MiB each (4.8 MB of states and the last 55 % of
+ * 100,000 JSON samples, 7.7 MB, estimated 8.3), up to 2 kept: an arena goes back only once every
+ * answer made from it has finished on a socket and the thread has ended normally (TailBytes in
+ * src/formats/track-output.ts); else it is left to the collector. Pages written once are not
+ * faulted in again: fresh memory for the states cost a page fault each 4 KiB on the solver
+ * thread (100,000 samples took 17 ms instead of 5 on a 2-core virtual machine).
  */
-export const TAIL_ARENAS = new ChunkPool(12 * 2 ** 20, 2, (bytes) => new SharedArrayBuffer(bytes));
+export const TAIL_ARENAS = new ChunkPool(14 * 2 ** 20, 2, (bytes) => new SharedArrayBuffer(bytes));

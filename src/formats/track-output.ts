@@ -116,20 +116,35 @@ export function trackTail(format: TrackFormat, frame: TrackFrame, n: number): Tr
  * shared memory, goes back to `arenas` once every answer that took the bytes has been delivered
  * (finished on a socket) and the thread ended normally. From then on an answer that asks gets
  * null and writes the records itself; an answer not delivered, or a thread that failed (it may
- * still be writing), keeps the arena out of the pool for good.
+ * still be writing), keeps the arena out of the pool for good. When the track's states are in the
+ * arena too (holdsStates), no answer may be made from them once it has gone back: take() then
+ * throws instead (a programmer error: every answer of one computation takes its bytes before any
+ * of them can finish, src/plugins/answers.ts).
  */
 export class TailBytes {
   #users = 0;
   #open = true;
   #spoilt = false;
+  #statesHere = false;
 
   constructor(readonly bytes: Promise<readonly Buffer[]>, readonly arena: Buffer | null = null, readonly arenas: ChunkPool | null = null) {
     bytes.catch(() => { this.#spoilt = true; });
   }
 
+  /**
+   * The track's states came back in shared memory: the thread wrote them into the arena (the only
+   * shared memory a track job is lent), and they go back with it.
+   */
+  holdsStates(states: Float64Array): void {
+    if (states.buffer instanceof SharedArrayBuffer) this.#statesHere = true;
+  }
+
   /** The bytes for one more answer, or null once the arena has gone back. */
   take(): Promise<readonly Buffer[]> | null {
-    if (!this.#open) return null;
+    if (!this.#open) {
+      if (this.#statesHere) throw new Error('the track\'s states were in an arena given back: no answer can be made from them');
+      return null;
+    }
     this.#users++;
     return this.bytes;
   }

@@ -23,6 +23,7 @@ import { stateFunction, type PropagationSpec, type StateFunction } from '../solv
 import { ephemerisStateFunction, type InterpolationReport } from '../solver/propagation/ephemeris.js';
 import { sgp4FirstStop } from '../solver/propagation/sgp4.js';
 import { recordsBytesEstimate, trackRecords, type RecordsSpec } from '../formats/track-records.js';
+import { TAIL_ARENA_STATES_MAX } from '../formats/chunk-pool.js';
 
 // Inline or worker thread is decided by an estimate of the work, in units of about one inertial
 // two-body grid sample (~50 ns on the two-core development machine): a job estimated under
@@ -253,9 +254,9 @@ export function runJob<J extends Job>(job: J): JobResult<J> {
   }
 }
 
-function runTrack(job: TrackJob): Outcome<TrackJobResult> {
+function runTrack(job: TrackJob, into?: Float64Array): Outcome<TrackJobResult> {
   if (job.geodetic && !job.earthFixed) throw new TypeError('a geodetic track needs earthFixed');
-  const run = propagateTrack(job.input);
+  const run = propagateTrack(job.input, into);
   if (!run.ok) return run;
   const earthFixed = job.earthFixed ? gcrfToItrfBatch(run.value.epochsTT, run.value.states, job.earthFixed) : null;
   const geodetic = job.geodetic && earthFixed ? geodeticBatch(earthFixed) : null;
@@ -386,7 +387,12 @@ function tailScratch(size: number): Float64Array {
  * their samples in the thread's scratch, so the states can move to the main thread first.
  */
 export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wire) => void, arena?: SharedArrayBuffer): Uint8Array[] | null {
-  const result = runTrack(job);
+  // The states at the start of the arena (the two-body and J2 models write them there), the
+  // records after them: the main thread reads both where they are, and gives the arena back once
+  // every answer made from them has been delivered (TailBytes in src/formats/track-output.ts).
+  const n = job.input.epochsTT.length;
+  const into = arena && n <= TAIL_ARENA_STATES_MAX ? new Float64Array(arena, 0, 6 * n) : undefined;
+  const result = runTrack(job, into);
   if (!result.ok) {
     send(toWire('track', result));
     return null;
@@ -407,14 +413,19 @@ export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wi
   // then shared or moved as they are (buffers of their own: Buffer's shared pool, which must never
   // move, holds only small ones, and the estimate is far above its size).
   const room = recordsBytesEstimate(tail.spec, epochsTT, values, 0, epochsTT.length);
-  const first = arena && room <= arena.byteLength ? Buffer.from(arena) : undefined;
+  const at = r.track.states.buffer === arena ? 48 * n : 0;
+  const first = arena && at + room <= arena.byteLength ? Buffer.from(arena, at) : undefined;
   return [...trackRecords(tail.spec, epochsTT, values, 0, epochsTT.length, true, room, first)];
 }
 
 /** The result of a job of this kind in its wire form (worker side). */
 export function toWire(kind: JobKind, result: JobResult<Job>): Wire {
   const transfer = new Set<ArrayBuffer>();
-  const keep = (a: Float64Array): Float64Array => { transfer.add(a.buffer as ArrayBuffer); return a; };
+  // Shared memory (states in a lent arena) is shared as it is: only the thread's own buffers move.
+  const keep = (a: Float64Array): Float64Array => {
+    if (a.buffer instanceof ArrayBuffer) transfer.add(a.buffer);
+    return a;
+  };
   let value: unknown;
   switch (kind) {
     case 'eclipses':

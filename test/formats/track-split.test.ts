@@ -76,13 +76,22 @@ describe('a long track written in two parts', () => {
     const onThread = pool.trackWithTail(jobFor(frame), plan);
     const fromThread = productInput(format, frame, solved(await onThread.result));
     expect((await bytesOf(fromThread, new TailBytes(onThread.tail))).equals(whole)).toBe(true);
-    // Into an arena of shared memory: the same bytes, the thread's part in the arena itself.
+    // Into an arena of shared memory: the same bytes; the states at the arena's start (the
+    // two-body model writes them there), the thread's part of the records right after them.
     const arena = Buffer.from(new SharedArrayBuffer(12 * 2 ** 20));
+    arena.fill(0x5a); // not zero: every state must be written
     const inArena = pool.trackWithTail(jobFor(frame), plan, arena.buffer as SharedArrayBuffer);
     const parts = await inArena.tail;
+    const inArenaResult = solved(await inArena.result);
+    const states = inArenaResult.track.states;
+    expect(states.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(Buffer.compare(Buffer.from(states.buffer, states.byteOffset, states.byteLength), arena.subarray(0, 48 * N))).toBe(0);
+    expect(Array.from(states)).toEqual(Array.from(solved(runJob(jobFor(frame))).track.states));
     expect(parts[0]!.buffer).toBeInstanceOf(SharedArrayBuffer);
-    expect(Buffer.compare(parts[0]!, arena.subarray(0, parts[0]!.length))).toBe(0);
-    expect((await bytesOf(productInput(format, frame, solved(await inArena.result)), new TailBytes(inArena.tail))).equals(whole)).toBe(true);
+    expect(Buffer.compare(parts[0]!, arena.subarray(48 * N, 48 * N + parts[0]!.length))).toBe(0);
+    const tailInArena = new TailBytes(inArena.tail);
+    tailInArena.holdsStates(states);
+    expect((await bytesOf(productInput(format, frame, inArenaResult), tailInArena)).equals(whole)).toBe(true);
     // The thread could not write them (stopped, died): they are written here, the same bytes.
     const again = productInput(format, frame, solved(runJob(jobFor(frame))));
     expect((await bytesOf(again, new TailBytes(Promise.reject(new Error('the thread stopped'))))).equals(whole)).toBe(true);
@@ -125,6 +134,19 @@ describe('a long track written in two parts', () => {
     // An answer formatted after the arena went back: the same bytes, all written here.
     const t = productInput('csv', 'gcrf', solved(runJob(jobFor('gcrf'))));
     expect((await bytesOf(t, ok)).equals(await bytesOf(t))).toBe(true);
+    // ... unless the track's states were in the arena: then no answer can be made from them.
+    const held = make(Promise.resolve([Buffer.from('x')]));
+    held.holdsStates(new Float64Array(new SharedArrayBuffer(48)));
+    expect(held.take()).not.toBeNull();
+    held.settled(true);
+    expect(arenas.size).toBe(1);
+    expect(() => held.take()).toThrow(/given back/);
+    // States of the thread's own memory (a model that makes its own array) do not count.
+    const own = make(Promise.resolve([Buffer.from('x')]));
+    own.holdsStates(new Float64Array(6));
+    own.take();
+    own.settled(true);
+    expect(own.take()).toBeNull();
   });
 
   it('a short track, OEM, GeoJSON and SVG are written in one piece', () => {

@@ -51,16 +51,25 @@ const ephemerisOf = (spec: PropagationSpec): Ephemeris => {
   return spec.ephemeris;
 };
 
+/** 6 numbers for each of n epochs: the first 6n of `into` when it holds them, else a new array. */
+function statesArray(n: number, into: Float64Array | undefined): Float64Array {
+  return into && into.length >= 6 * n ? into.subarray(0, 6 * n) : new Float64Array(6 * n);
+}
+
 export type StateFunction = (tt: number) => Outcome<{ r: Vec3; v: Vec3 }>;
 
-/** States (x, y, z, vx, vy, vz per sample) at the epochs, in their order. */
-export function statesAt(spec: PropagationSpec, epochsTT: Float64Array): Outcome<Float64Array> {
+/**
+ * States (x, y, z, vx, vy, vz per sample) at the epochs, in their order. `into`: memory for them
+ * (6 numbers an epoch, or more), used by the two-body and J2 models (the others make their own
+ * array); the result is then a view of it.
+ */
+export function statesAt(spec: PropagationSpec, epochsTT: Float64Array, into?: Float64Array): Outcome<Float64Array> {
   const { body, r0, v0, epochTT } = spec;
   switch (spec.model) {
     case 'two-body': {
       const dt = new Float64Array(epochsTT.length); // a plain loop: TypedArray.map is several times slower here
       for (let k = 0; k < dt.length; k++) dt[k] = epochsTT[k]! - epochTT;
-      const out = new Float64Array(6 * epochsTT.length);
+      const out = statesArray(epochsTT.length, into);
       const done = propagateGrid(r0, v0, body.gm, dt, out);
       return done.ok ? success(out) : done;
     }
@@ -70,7 +79,7 @@ export function statesAt(spec: PropagationSpec, epochsTT: Float64Array): Outcome
         ? j2SecularPropagator(body, r0, v0, epochTT)
         : j2AnalyticPropagator(body, r0, v0, epochTT, bodySpinAxis(body, spanMiddle(epochTT, epochsTT)));
       if (!at.ok) return at;
-      const out = new Float64Array(6 * epochsTT.length);
+      const out = statesArray(epochsTT.length, into);
       for (let k = 0; k < epochsTT.length; k++) {
         const s = at.value(epochsTT[k]!);
         if (!s.ok) return s;

@@ -34,7 +34,8 @@ export interface Track {
   readonly teme?: Float64Array;
 }
 
-export function propagateTrack(input: TrackInput): Outcome<Track> {
+/** `into`: memory for the states where the model can use it (statesAt); the track's states are then a view of it. */
+export function propagateTrack(input: TrackInput, into?: Float64Array): Outcome<Track> {
   const { body, epochsTT } = input;
   let interpolation: InterpolationReport | undefined;
   let states: Float64Array;
@@ -51,7 +52,7 @@ export function propagateTrack(input: TrackInput): Outcome<Track> {
     if (!run.ok) return run;
     ({ states, interpolation } = run.value);
   } else {
-    const run = statesAt(input, epochsTT);
+    const run = statesAt(input, epochsTT, into);
     if (!run.ok) return run;
     states = run.value;
   }
