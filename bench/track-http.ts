@@ -16,6 +16,7 @@ import type { AddressInfo } from 'node:net';
 import { buildApp } from '../src/app.js';
 import { csvChunks } from '../src/formats/csv.js';
 import { STATE_FIELDS, trackJsonChunks } from '../src/formats/track-json.js';
+import { OUTPUT_CHUNKS } from '../src/formats/chunk-pool.js';
 import { baselineLoop } from './baseline.js';
 import type { BenchResult } from './types.js';
 
@@ -105,14 +106,24 @@ const cpuMs = (): number => {
   return (u.user + u.system) / 1000;
 };
 
-/** CPU time (ms) of formatting the table as CSV, then as JSON; a byte of each chunk kept from being optimised away. */
+/**
+ * CPU time (ms) of formatting the table as CSV, then as JSON; a byte of each chunk kept from being
+ * optimised away. Each chunk goes back to the writer's pool once read, as a streamed answer's do
+ * once sent: chunks never given back would make every round draw new memory from the system.
+ */
 function formatOnce(table: { epochsTT: Float64Array; states: Float64Array }): { csv: number; json: number; sink: number } {
   let sink = 0;
   let t = cpuMs();
-  for (const c of csvChunks(table)) sink += c[c.length >> 1]!;
+  for (const c of csvChunks(table)) {
+    sink += c[c.length >> 1]!;
+    OUTPUT_CHUNKS.release([c]);
+  }
   const csv = cpuMs() - t;
   t = cpuMs();
-  for (const c of trackJsonChunks({ scenarioHash: 'bench' }, table.epochsTT, table.states, STATE_FIELDS)) sink += c[c.length >> 1]!;
+  for (const c of trackJsonChunks({ scenarioHash: 'bench' }, table.epochsTT, table.states, STATE_FIELDS)) {
+    sink += c[c.length >> 1]!;
+    OUTPUT_CHUNKS.release([c]);
+  }
   return { csv, json: cpuMs() - t, sink };
 }
 
