@@ -57,7 +57,13 @@ describe('the chunk pool', () => {
 // The long ones twice each in a round: two requests of one computation share the thread's bytes.
 let alone: Buffer[];
 const short = [0, 1, 2].flatMap((i) => (['csv', 'json'] as const).map((f) => scenario(i, f)));
-const long = [0, 1].flatMap((i) => (['csv', 'json'] as const).map((f) => scenario(i, f, true)));
+// The long ones: two-body (its states written into the arena too), J2 (the same), and an
+// Earth-fixed frame (the printed numbers are the thread's own ITRF array, the states in the arena).
+const long = [
+  ...[0, 1].flatMap((i) => (['csv', 'json'] as const).map((f) => scenario(i, f, true))),
+  { ...scenario(2, 'json', true), model: 'j2-analytic' },
+  { ...scenario(3, 'csv', true), model: 'j2-secular', frame: 'itrf' },
+];
 const bodies = [...short, ...long, ...long];
 beforeAll(async () => {
   const reference = await testApp({ config: { CACHE_MAX_BYTES: 0 } });
@@ -77,7 +83,7 @@ for (const cacheBytes of [0, 64 * 2 ** 20]) {
     });
     afterAll(async () => { await app.close(); });
 
-    it('ten different tracks (four long ones asked twice), CSV and JSON, plain and gzip, three rounds: every answer the bytes of the same answer alone', async () => {
+    it('twelve different tracks (six long ones asked twice), CSV and JSON, plain and gzip, three rounds: every answer the bytes of the same answer alone', async () => {
       // Empty the pools first (held here), so that what is in them after the first round came from it.
       const held: Buffer[] = [];
       while (OUTPUT_CHUNKS.size > 0) held.push(OUTPUT_CHUNKS.acquire());
