@@ -5,8 +5,12 @@ import { roundToMicrosecond } from '../solver/core/math.js';
 import type { TimeGrid } from '../schemas/grid.js';
 import { epochTT } from './epoch.js';
 
-/** The sample epochs of a validated grid (in its timeSystem), refusing more than `max` before allocating anything. */
-export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
+/**
+ * The sample epochs of a validated grid (in its timeSystem), refusing more than `max` before
+ * allocating anything. A regular grid is written into the memory `lend(n)` gives when it gives n
+ * numbers (a long track's arena, src/routes/track.ts).
+ */
+export function gridEpochs(grid: TimeGrid, max: number, lend?: (n: number) => Float64Array | undefined): Float64Array {
   const system = grid.timeSystem ?? 'UTC';
   if (grid.times) {
     if (grid.times.length > max) {
@@ -22,7 +26,7 @@ export function gridEpochs(grid: TimeGrid, max: number): Float64Array {
     throw new ProblemError('too-many-samples', `${asked}; the maximum is ${max} (use a longer step or a shorter span)`, { errors: [{ path: 'body.grid.step', message: `gives more than ${max} samples` }] });
   }
   // Sampled on the microsecond, the resolution the epochs are printed with (start + k step rarely falls on one).
-  const epochs = regularGrid(start, stop, grid.step!);
+  const epochs = regularGrid(start, stop, grid.step!, lend);
   for (let i = 0; i < epochs.length; i++) epochs[i] = roundToMicrosecond(epochs[i]!);
   return epochs;
 }

@@ -46,14 +46,15 @@ export class ChunkPool {
 /** The chunks of the formatters' default size (64 KiB): up to 256 of them (16 MiB) kept. */
 export const OUTPUT_CHUNKS = new ChunkPool(65_536, 256);
 
-/** Samples whose states a tail arena holds at its start (48 bytes each: 4.8 MB for the default MAX_TRACK_SAMPLES). */
+/** Samples whose grid and states a tail arena holds at its start (56 bytes each: 5.6 MB for the default MAX_TRACK_SAMPLES). */
 export const TAIL_ARENA_STATES_MAX = 100_000;
 
 /**
- * Shared memory a solver thread writes a long track into (SolverPool.trackWithTail): its states
- * at the start (up to TAIL_ARENA_STATES_MAX samples, for the models that can write them there),
- * then the last records of the answer. 14 MiB each (4.8 MB of states and the last 55 % of
- * 100,000 JSON samples, 7.7 MB, estimated 8.3), up to 2 kept: an arena goes back only once every
+ * Shared memory a long track is computed into (SolverPool.trackWithTail): its regular grid at
+ * the start (written by the route), its states after it (the solver thread; up to
+ * TAIL_ARENA_STATES_MAX samples, for the models that can write them there), then the last records
+ * of the answer. 14 MiB each (0.8 MB of grid, 4.8 MB of states and the last 55 % of 100,000 JSON
+ * samples, 7.7 MB, estimated 8.3), up to 2 kept: an arena goes back only once every
  * answer made from it has finished on a socket and the thread has ended normally (TailBytes in
  * src/formats/track-output.ts); else it is left to the collector. Pages written once are not
  * faulted in again: fresh memory for the states cost a page fault each 4 KiB on the solver

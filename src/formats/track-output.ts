@@ -116,8 +116,8 @@ export function trackTail(format: TrackFormat, frame: TrackFrame, n: number): Tr
  * shared memory, goes back to `arenas` once every answer that took the bytes has been delivered
  * (finished on a socket) and the thread ended normally. From then on an answer that asks gets
  * null and writes the records itself; an answer not delivered, or a thread that failed (it may
- * still be writing), keeps the arena out of the pool for good. When the track's states are in the
- * arena too (holdsStates), no answer may be made from them once it has gone back: take() then
+ * still be writing), keeps the arena out of the pool for good. When the track's grid or states are
+ * in the arena too (holdsStates), no answer may be made from them once it has gone back: take() then
  * throws instead (a programmer error: every answer of one computation takes its bytes before any
  * of them can finish, src/plugins/answers.ts).
  */
@@ -132,11 +132,12 @@ export class TailBytes {
   }
 
   /**
-   * The track's states came back in shared memory: the thread wrote them into the arena (the only
-   * shared memory a track job is lent), and they go back with it.
+   * The track's arrays (its grid, its states) that are in shared memory are in the arena (the only
+   * shared memory a track job is lent: the route wrote the grid there, the thread the states), and
+   * go back with it.
    */
-  holdsStates(states: Float64Array): void {
-    if (states.buffer instanceof SharedArrayBuffer) this.#statesHere = true;
+  holdsStates(...arrays: readonly Float64Array[]): void {
+    if (arrays.some((a) => a.buffer instanceof SharedArrayBuffer)) this.#statesHere = true;
   }
 
   /** The bytes for one more answer, or null once the arena has gone back. */

@@ -3,7 +3,7 @@ import type { FastifyPluginAsyncZod } from 'fastify-type-provider-zod';
 import { z } from 'zod';
 import { solverProblem } from '../errors.js';
 import { epochsForFormat, TailBytes, TRACK_FORMATS, trackNeeds, trackProduct, trackTail } from '../formats/track-output.js';
-import { TAIL_ARENAS } from '../formats/chunk-pool.js';
+import { TAIL_ARENA_STATES_MAX, TAIL_ARENAS } from '../formats/chunk-pool.js';
 import { chooseFormat } from '../plugins/negotiate.js';
 import { resolveBody } from '../api/body.js';
 import { gridEpochs } from '../api/grid.js';
@@ -49,24 +49,33 @@ const track: FastifyPluginAsyncZod = async (app) => {
       const frame = frameOptions(req.ut1MinusUtc, eop);
       const start = initialState(body, req, frame);
       if (!start.ok) throw solverProblem(start);
-      const epochs = epochsForFormat(format, gridEpochs(req.grid, app.config.MAX_TRACK_SAMPLES));
-      // The epochs that used the Earth orientation (read before the grid's buffer moves to the worker).
+      // A long CSV or JSON track's regular grid is written at the start of the arena the solver
+      // thread is lent (the states follow it, then the last records): memory written before is not
+      // faulted in again.
+      let arena: Buffer | null = null;
+      const lend = (n: number): Float64Array | undefined => {
+        if (!trackTail(format, req.frame, n) || n > TAIL_ARENA_STATES_MAX) return undefined;
+        arena = TAIL_ARENAS.acquire();
+        return new Float64Array(arena.buffer, arena.byteOffset, n);
+      };
+      const epochs = epochsForFormat(format, gridEpochs(req.grid, app.config.MAX_TRACK_SAMPLES, lend));
+      // The epochs that used the Earth orientation (read before the grid's buffer moves to the worker, unless it is shared in the arena).
       const samples = new Span().addAll(epochs);
       const used = inputSpan(req, start.value);
       if (needs.earthFixed || needs.teme) used.addAll(epochs);
       // Propagation and frame conversion run on a worker thread for long grids (the grid's buffer
-      // moves there and comes back, the EOP table cut to its rows); formatting stays here, in
+      // moves there and comes back, or is shared in the arena; the EOP table cut to its rows); formatting stays here, in
       // chunks, but for the last records of a long CSV or JSON answer: the thread that computed the
       // track writes them while this one checks and writes the first. Every request sharing this
       // computation shares those bytes.
       const job = trackJob(req, body, start.value, epochs, needs, samples.empty ? frame : forSpan(frame, samples.lo, samples.hi));
       const plan = trackTail(format, req.frame, epochs.length);
-      const arena = plan ? TAIL_ARENAS.acquire() : null;
+      arena ??= plan ? TAIL_ARENAS.acquire() : null;
       const solving = plan ? app.pool.trackWithTail(job, plan, arena!.buffer as SharedArrayBuffer) : { result: app.pool.solve(job), tail: undefined };
       const tail = solving.tail ? new TailBytes(solving.tail, arena, TAIL_ARENAS) : undefined;
       const result = await solving.result;
       if (!result.ok) throw solverProblem(result);
-      tail?.holdsStates(result.value.track.states);
+      tail?.holdsStates(result.value.track.epochsTT, result.value.track.states);
       const input = trackProductInput(req, format, hash, body, start.value, result.value, earthOrientationDiagnostics(eop, used, req.ut1MinusUtc));
       return () => trackProduct(input, tail);
     });

@@ -390,8 +390,11 @@ export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wi
   // The states at the start of the arena (the two-body and J2 models write them there), the
   // records after them: the main thread reads both where they are, and gives the arena back once
   // every answer made from them has been delivered (TailBytes in src/formats/track-output.ts).
+  // When the main thread wrote the grid at the arena's start (the only shared memory a track job
+  // is lent), the states follow it.
   const n = job.input.epochsTT.length;
-  const into = arena && n <= TAIL_ARENA_STATES_MAX ? new Float64Array(arena, 0, 6 * n) : undefined;
+  const statesAt = job.input.epochsTT.buffer instanceof SharedArrayBuffer ? 8 * n : 0;
+  const into = arena && n <= TAIL_ARENA_STATES_MAX ? new Float64Array(arena, statesAt, 6 * n) : undefined;
   const result = runTrack(job, into);
   if (!result.ok) {
     send(toWire('track', result));
@@ -413,7 +416,7 @@ export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wi
   // then shared or moved as they are (buffers of their own: Buffer's shared pool, which must never
   // move, holds only small ones, and the estimate is far above its size).
   const room = recordsBytesEstimate(tail.spec, epochsTT, values, 0, epochsTT.length);
-  const at = r.track.states.buffer === arena ? 48 * n : 0;
+  const at = r.track.states.buffer === arena ? statesAt + 48 * n : statesAt;
   const first = arena && at + room <= arena.byteLength ? Buffer.from(arena, at) : undefined;
   return [...trackRecords(tail.spec, epochsTT, values, 0, epochsTT.length, true, room, first)];
 }
@@ -487,7 +490,9 @@ export function fromWire<J extends Job>(kind: J['kind'], value: unknown): JobRes
 
 /** Buffers a job's payload can give away to the worker. */
 export function payloadTransfer(job: Job): ArrayBuffer[] {
-  return job.kind === 'track' ? [job.input.epochsTT.buffer as ArrayBuffer] : [];
+  // A grid in shared memory (a long track's arena) is shared, not moved.
+  const grid = job.kind === 'track' ? job.input.epochsTT.buffer : null;
+  return grid instanceof ArrayBuffer ? [grid] : [];
 }
 
 function packPass(p: Pass, keep: (a: Float64Array) => Float64Array): WirePass {

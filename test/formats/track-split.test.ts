@@ -99,6 +99,31 @@ describe('a long track written in two parts', () => {
     else expect(whole.toString().split('\r\n')).toHaveLength(N + 2); // header, N records, the empty string after the last CRLF
   });
 
+  it('the grid at the arena\'s start (as the route writes it): the states after it, the records after them, the same bytes', async () => {
+    for (const format of ['csv', 'json'] as const) {
+      const whole = await bytesOf(productInput(format, 'gcrf', solved(runJob(jobFor('gcrf')))));
+      const arena = Buffer.from(new SharedArrayBuffer(12 * 2 ** 20));
+      arena.fill(0x5a);
+      const job = jobFor('gcrf');
+      const grid = new Float64Array(arena.buffer, 0, N);
+      grid.set(job.input.epochsTT);
+      const lent: TrackJob = { ...job, input: { ...job.input, epochsTT: grid } };
+      const run = pool.trackWithTail(lent, trackTail(format, 'gcrf', N)!, arena.buffer as SharedArrayBuffer);
+      const parts = await run.tail;
+      const r = solved(await run.result);
+      // Shared, not moved: the route's grid is still there, and the track's grid is the same memory.
+      expect(grid.length).toBe(N);
+      expect(Array.from(r.track.epochsTT)).toEqual(Array.from(grid));
+      expect(r.track.epochsTT.buffer).toBeInstanceOf(SharedArrayBuffer);
+      expect(r.track.states.byteOffset).toBe(8 * N);
+      expect(Buffer.compare(Buffer.from(r.track.states.buffer, r.track.states.byteOffset, 48 * N), arena.subarray(8 * N, 56 * N))).toBe(0);
+      expect(Buffer.compare(parts[0]!, arena.subarray(56 * N, 56 * N + parts[0]!.length))).toBe(0);
+      const tail = new TailBytes(run.tail);
+      tail.holdsStates(r.track.epochsTT, r.track.states);
+      expect((await bytesOf(productInput(format, 'gcrf', r), tail)).equals(whole), format).toBe(true);
+    }
+  });
+
   it('one thread, tracks of other lengths and widths in turn (its scratch reused): the same bytes as in one piece', async () => {
     for (const [frame, count] of [['gcrf', N], ['geodetic', SPLIT_MIN_SAMPLES + 3], ['teme', N - 999], ['geodetic', N]] as const) {
       const job = (): TrackJob => { const j = jobFor(frame); return { ...j, input: { ...j.input, epochsTT: j.input.epochsTT.slice(0, count) } }; };

@@ -10,11 +10,12 @@ export function regularGridCount(startTT: number, stopTT: number, stepS: number)
   return Math.max(steps, 0) + 1;
 }
 
-/** The regular grid (forwards when stop > start, backwards when stop < start). */
-export function regularGrid(startTT: number, stopTT: number, stepS: number): Float64Array {
+/** The regular grid (forwards when stop > start, backwards when stop < start); in memory `lend(n)` gives, when it gives n numbers. */
+export function regularGrid(startTT: number, stopTT: number, stepS: number, lend?: (n: number) => Float64Array | undefined): Float64Array {
   const n = regularGridCount(startTT, stopTT, stepS);
   const direction = stopTT >= startTT ? 1 : -1;
-  const epochs = new Float64Array(n);
+  const lent = lend?.(n);
+  const epochs = lent && lent.length >= n ? lent.subarray(0, n) : new Float64Array(n);
   // start + k * step (not repeated addition): no drift over long grids.
   for (let k = 0; k < n - 1; k++) epochs[k] = startTT + direction * k * stepS;
   epochs[n - 1] = stopTT;
