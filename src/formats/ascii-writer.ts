@@ -72,6 +72,9 @@ function writeTwo(buf: Uint8Array, pos: number, n: number): void {
   buf[pos + 1] = PAIRS[(n << 1) + 1]!;
 }
 
+/** 1 / 10^d: the whole part is quotient(scaled, 10^d, INV_SCALES[d]), the division's quotient without a division. */
+const INV_SCALES = SCALES.map((s) => 1 / s);
+
 /**
  * fixed(values[index], decimals) written at pos (40 bytes of room), in one pass with no call per
  * digit group: the common case of track numbers (whole part below 2^31, 1 to 9 decimals). Returns
@@ -80,9 +83,6 @@ function writeTwo(buf: Uint8Array, pos: number, n: number): void {
  * a float64 argument of a call that is not inlined is boxed on the heap (16 bytes a number, six a
  * track sample, measured with V8's sampling heap profiler).
  */
-/** 1 / 10^d: the whole part is quotient(scaled, 10^d, INV_SCALES[d]), the division's quotient without a division. */
-const INV_SCALES = SCALES.map((s) => 1 / s);
-
 function writeFixed(buf: Uint8Array, view: DataView, pos: number, values: Float64Array, index: number, decimals: number): number {
   if (decimals < 1 || decimals > 9) return -1;
   const value = values[index]!;

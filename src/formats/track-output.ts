@@ -117,7 +117,7 @@ export function trackTail(format: TrackFormat, frame: TrackFrame, n: number): Tr
  * (finished on a socket) and the thread ended normally. From then on an answer that asks gets
  * null and writes the records itself; an answer not delivered, or a thread that failed (it may
  * still be writing), keeps the arena out of the pool for good. When the track's grid or states are
- * in the arena too (holdsStates), no answer may be made from them once it has gone back: take() then
+ * in the arena too (holds), no answer may be made from them once it has gone back: take() then
  * throws instead (a programmer error: every answer of one computation takes its bytes before any
  * of them can finish, src/plugins/answers.ts).
  */
@@ -125,7 +125,7 @@ export class TailBytes {
   #users = 0;
   #open = true;
   #spoilt = false;
-  #statesHere = false;
+  #arraysHere = false;
 
   constructor(readonly bytes: Promise<readonly Buffer[]>, readonly arena: Buffer | null = null, readonly arenas: ChunkPool | null = null) {
     bytes.catch(() => { this.#spoilt = true; });
@@ -136,14 +136,14 @@ export class TailBytes {
    * shared memory a track job is lent: the route wrote the grid there, the thread the states), and
    * go back with it.
    */
-  holdsStates(...arrays: readonly Float64Array[]): void {
-    if (arrays.some((a) => a.buffer instanceof SharedArrayBuffer)) this.#statesHere = true;
+  holds(...arrays: readonly Float64Array[]): void {
+    if (arrays.some((a) => a.buffer instanceof SharedArrayBuffer)) this.#arraysHere = true;
   }
 
   /** The bytes for one more answer, or null once the arena has gone back. */
   take(): Promise<readonly Buffer[]> | null {
     if (!this.#open) {
-      if (this.#statesHere) throw new Error('the track\'s states were in an arena given back: no answer can be made from them');
+      if (this.#arraysHere) throw new Error('the track\'s grid or states were in an arena given back: no answer can be made from them');
       return null;
     }
     this.#users++;

@@ -17,14 +17,14 @@ export function trackRecords(spec: RecordsSpec, epochsTT: Float64Array, values: 
     : trackJsonRecords(epochsTT, values, spec.fields, from, to, chunkBytes, afterFirst, first);
 }
 
+/** Room for the one record recordsBytesEstimate writes to measure it (a longer record grows the chunk). */
+const PROBE_BYTES = 2048;
+
 /**
  * Room for records from..to-1 in one buffer, in practice: the first record's length, plus two
  * bytes a number (a sign, one more whole digit) for each record, plus the writer's margin. Larger
  * records only cost a second buffer; pages left unwritten are never touched.
  */
-/** Room for the one record recordsBytesEstimate writes to measure it (a longer record grows the chunk). */
-const PROBE_BYTES = 2048;
-
 export function recordsBytesEstimate(spec: RecordsSpec, epochsTT: Float64Array, values: Float64Array, from: number, to: number): number {
   if (to <= from) return 1024;
   // The probe in a small chunk (Buffer's shared pool): not one of OUTPUT_CHUNKS, which it would never give back.

@@ -75,7 +75,7 @@ const track: FastifyPluginAsyncZod = async (app) => {
       const tail = solving.tail ? new TailBytes(solving.tail, arena, TAIL_ARENAS) : undefined;
       const result = await solving.result;
       if (!result.ok) throw solverProblem(result);
-      tail?.holdsStates(result.value.track.epochsTT, result.value.track.states);
+      tail?.holds(result.value.track.epochsTT, result.value.track.states);
       const input = trackProductInput(req, format, hash, body, start.value, result.value, earthOrientationDiagnostics(eop, used, req.ut1MinusUtc));
       return () => trackProduct(input, tail);
     });

@@ -383,15 +383,15 @@ function tailScratch(size: number): Float64Array {
  * A track job, then the records tail.from..n-1 of its answer: the track's outcome goes to send
  * (in its wire form) as soon as it is computed; the records' bytes, in order, are the return
  * value (null when the track failed), written into `arena` (the main thread's shared memory) when
- * they fit, else into buffers of their own. The records are written from copies of
- * their samples in the thread's scratch, so the states can move to the main thread first.
+ * they fit, else into buffers of their own. Samples in the arena are read where they are (the
+ * main thread only reads them too); the others are copied into the thread's scratch first, so
+ * that their arrays can move to the main thread.
  */
 export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wire) => void, arena?: SharedArrayBuffer): Uint8Array[] | null {
-  // The states at the start of the arena (the two-body and J2 models write them there), the
-  // records after them: the main thread reads both where they are, and gives the arena back once
-  // every answer made from them has been delivered (TailBytes in src/formats/track-output.ts).
-  // When the main thread wrote the grid at the arena's start (the only shared memory a track job
-  // is lent), the states follow it.
+  // The arena's layout: the grid when the route wrote it there (the only shared memory a track job
+  // is lent), the states (the two-body and J2 models write them there), then the records. The main
+  // thread reads them where they are and gives the arena back once every answer made from them has
+  // been delivered (TailBytes in src/formats/track-output.ts).
   const n = job.input.epochsTT.length;
   const statesAt = job.input.epochsTT.buffer instanceof SharedArrayBuffer ? 8 * n : 0;
   const into = arena && n <= TAIL_ARENA_STATES_MAX ? new Float64Array(arena, statesAt, 6 * n) : undefined;
@@ -404,13 +404,22 @@ export function runTrackWithTail(job: TrackJob, tail: TrackTail, send: (wire: Wi
   const source = tail.geodetic ? r.geodetic! : printedStates(r, job.teme === true);
   const width = tail.geodetic ? 3 : 6;
   const count = r.track.epochsTT.length - tail.from;
-  // Copies in this thread's scratch (reused from job to job), made before the arrays move.
-  const scratch = tailScratch((1 + width) * count);
-  const epochsTT = scratch.subarray(0, count);
-  epochsTT.set(r.track.epochsTT.subarray(tail.from));
-  const values = scratch.subarray(count, (1 + width) * count);
-  values.set(source.subarray(width * tail.from));
-  if (tail.geodetic) geodeticDegrees(values);
+  const inArena = (a: Float64Array): boolean => a.buffer instanceof SharedArrayBuffer;
+  let epochsTT: Float64Array;
+  let values: Float64Array;
+  if (!tail.geodetic && inArena(r.track.epochsTT) && inArena(source)) {
+    epochsTT = r.track.epochsTT.subarray(tail.from);
+    values = source.subarray(width * tail.from);
+  } else {
+    // Copies in this thread's scratch (reused from job to job), made before the arrays move (and
+    // converted to degrees here: the main thread converts its own).
+    const scratch = tailScratch((1 + width) * count);
+    epochsTT = scratch.subarray(0, count);
+    epochsTT.set(r.track.epochsTT.subarray(tail.from));
+    values = scratch.subarray(count, (1 + width) * count);
+    values.set(source.subarray(width * tail.from));
+    if (tail.geodetic) geodeticDegrees(values);
+  }
   send(toWire('track', result));
   // Into the main thread's arena when they fit, else one buffer sized for them: written once,
   // then shared or moved as they are (buffers of their own: Buffer's shared pool, which must never

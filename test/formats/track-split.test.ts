@@ -90,7 +90,7 @@ describe('a long track written in two parts', () => {
     expect(parts[0]!.buffer).toBeInstanceOf(SharedArrayBuffer);
     expect(Buffer.compare(parts[0]!, arena.subarray(48 * N, 48 * N + parts[0]!.length))).toBe(0);
     const tailInArena = new TailBytes(inArena.tail);
-    tailInArena.holdsStates(states);
+    tailInArena.holds(states);
     expect((await bytesOf(productInput(format, frame, inArenaResult), tailInArena)).equals(whole)).toBe(true);
     // The thread could not write them (stopped, died): they are written here, the same bytes.
     const again = productInput(format, frame, solved(runJob(jobFor(frame))));
@@ -119,7 +119,7 @@ describe('a long track written in two parts', () => {
       expect(Buffer.compare(Buffer.from(r.track.states.buffer, r.track.states.byteOffset, 48 * N), arena.subarray(8 * N, 56 * N))).toBe(0);
       expect(Buffer.compare(parts[0]!, arena.subarray(56 * N, 56 * N + parts[0]!.length))).toBe(0);
       const tail = new TailBytes(run.tail);
-      tail.holdsStates(r.track.epochsTT, r.track.states);
+      tail.holds(r.track.epochsTT, r.track.states);
       expect((await bytesOf(productInput(format, 'gcrf', r), tail)).equals(whole), format).toBe(true);
     }
   });
@@ -161,14 +161,14 @@ describe('a long track written in two parts', () => {
     expect((await bytesOf(t, ok)).equals(await bytesOf(t))).toBe(true);
     // ... unless the track's states were in the arena: then no answer can be made from them.
     const held = make(Promise.resolve([Buffer.from('x')]));
-    held.holdsStates(new Float64Array(new SharedArrayBuffer(48)));
+    held.holds(new Float64Array(new SharedArrayBuffer(48)));
     expect(held.take()).not.toBeNull();
     held.settled(true);
     expect(arenas.size).toBe(1);
     expect(() => held.take()).toThrow(/given back/);
     // States of the thread's own memory (a model that makes its own array) do not count.
     const own = make(Promise.resolve([Buffer.from('x')]));
-    own.holdsStates(new Float64Array(6));
+    own.holds(new Float64Array(6));
     own.take();
     own.settled(true);
     expect(own.take()).toBeNull();
